@@ -1,0 +1,5 @@
+/**
+ * Immutable sparse spin (Ising) and binary (QUBO) problems on sparse integer ids, and the exact
+ * conversion between them. Knows no files and no console.
+ */
+package org.obverse.model;
