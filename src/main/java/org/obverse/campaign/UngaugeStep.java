@@ -11,6 +11,7 @@ import org.obverse.io.BadInputException;
 import org.obverse.io.GaugeManifest;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.ProblemFile;
+import org.obverse.io.SampleCoding;
 import org.obverse.io.SampleFiles;
 import org.obverse.io.SampleFormat;
 import org.obverse.io.SampleReader;
@@ -34,7 +35,12 @@ public final class UngaugeStep {
     private UngaugeStep() {
     }
 
-    public record Request(Path manifest, Path samples, Path out, boolean allowMissing, boolean force) {
+    public record Request(Path manifest, Path samples, Path out, boolean allowMissing, boolean force,
+                          SampleCoding coding) {
+        /** Spin-coded (−1/+1) samples. */
+        public Request(Path manifest, Path samples, Path out, boolean allowMissing, boolean force) {
+            this(manifest, samples, out, allowMissing, force, SampleCoding.SPIN);
+        }
     }
 
     /** One un-gauged file. */
@@ -95,7 +101,7 @@ public final class UngaugeStep {
                 }
                 GaugeManifest.Entry e = m.gauges().get(i);
                 Path out = SampleFiles.sameLayout(in, dir, e.stem());
-                long reads = ungaugeFile(in, out, ids, gauges.get(i));
+                long reads = ungaugeFile(in, out, ids, gauges.get(i), r.coding());
                 Path energies = r.samples().resolve(e.stem() + ".energies.npy");
                 if (Files.exists(energies)) {
                     Files.copy(energies, dir.resolve(energies.getFileName()));
@@ -107,10 +113,10 @@ public final class UngaugeStep {
     }
 
     /** Un-gauges one file, streaming. */
-    static long ungaugeFile(Path in, Path out, VariableIndex ids, Gauge g) throws IOException {
+    static long ungaugeFile(Path in, Path out, VariableIndex ids, Gauge g, SampleCoding coding) throws IOException {
         int[] flipped = g.flippedPositions();
-        try (SampleReader reader = SampleFiles.open(in, ids);
-             SampleWriter writer = SampleFiles.create(out, ids, false)) {
+        try (SampleReader reader = SampleFiles.open(in, ids, coding);
+             SampleWriter writer = SampleFiles.create(out, ids, false, coding)) {
             SampleBlock b = null;
             while ((b = reader.nextBlock(CHUNK_READS, b)) != null) {
                 SpinFlips.flipInPlace(b, flipped);

@@ -6,6 +6,7 @@ import java.util.Arrays;
 import java.util.concurrent.Callable;
 import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
+import org.obverse.io.SampleCoding;
 import org.obverse.io.SampleFiles;
 import org.obverse.io.SampleReader;
 import org.obverse.model.IsingProblem;
@@ -37,12 +38,15 @@ public final class EnergyCommand implements Callable<Integer> {
     @Option(names = "--force", description = "replace an existing output file")
     boolean force;
 
+    @Option(names = "--binary", description = "samples are stored as 0/1 (x = (1 + s) / 2) instead of -1/+1")
+    boolean binary;
+
     @Override
     public Integer call() throws Exception {
         IsingProblem p = ProblemCodec.read(problem).spin();
         double[] energies = new double[1024];
         long reads = 0;
-        try (SampleReader in = SampleFiles.open(samples, p.variables())) {
+        try (SampleReader in = SampleFiles.open(samples, p.variables(), binary ? SampleCoding.BINARY : SampleCoding.SPIN)) {
             SampleBlock b = null;
             double[] chunk = new double[4096];
             while ((b = in.nextBlock(4096, b)) != null) {

@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.obverse.campaign.UngaugeStep;
+import org.obverse.io.SampleCoding;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -32,9 +33,13 @@ public final class UngaugeCommand implements Callable<Integer> {
     @Option(names = "--force", description = "replace an existing output folder")
     boolean force;
 
+    @Option(names = "--binary", description = "samples are stored as 0/1 (x = (1 + s) / 2) instead of -1/+1, in and out")
+    boolean binary;
+
     @Override
     public Integer call() throws Exception {
-        UngaugeStep.Result r = UngaugeStep.run(new UngaugeStep.Request(manifest, samples, out, allowMissing, force));
+        UngaugeStep.Result r = UngaugeStep.run(new UngaugeStep.Request(manifest, samples, out, allowMissing, force,
+                binary ? SampleCoding.BINARY : SampleCoding.SPIN));
         PrintWriter w = spec.commandLine().getOut();
         long reads = r.done().stream().mapToLong(UngaugeStep.Done::reads).sum();
         w.printf("ungauged %d gauges, %d reads, into %s%n", r.done().size(), reads, out);
