@@ -151,10 +151,11 @@ public final class EmbedCommand implements Callable<Integer> {
             }
             CellLattice lattice = CellLattice.of(shape.get("rows").asInt(), shape.get("cols").asInt(),
                     shape.get("shore").asInt());
-            w.printf("native clique of %s: up to %d variables, chains of length %d%n", lattice,
-                    CliqueEmbedding.maxSize(lattice), CliqueEmbedding.chainLength(lattice));
             try {
-                return CliqueEmbedding.forVariables(lattice, q.variables());
+                Chains c = CliqueEmbedding.avoidingDefects(lattice, g, q.variables());
+                w.printf("native clique of %d variables in %s (at most %d without defects): chains of length %d%n",
+                        q.size(), lattice, CliqueEmbedding.maxSize(lattice), c.maxLength());
+                return c;
             } catch (IllegalArgumentException e) {
                 throw BadInputException.at(logical, "", e.getMessage(), "");
             }

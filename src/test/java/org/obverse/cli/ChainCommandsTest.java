@@ -109,7 +109,8 @@ class ChainCommandsTest extends CommandTestSupport {
         Run clique = obverse("embed", "--logical", q.toString(), "--device", lattice("full.json").toString(),
                 "--chain-coupling", "-2", "--finder", "clique", "--out", p2.toString());
         assertThat(clique.code()).as(clique.err()).isZero();
-        assertThat(clique.out()).contains("up to 12 variables, chains of length 4");
+        // 5 variables fit a 2 x 2 square of K4,4 cells: chains of length 3.
+        assertThat(clique.out()).contains("native clique of 5 variables").contains("at most 12").contains("length 3");
     }
 
     @Test
