@@ -11,8 +11,9 @@ import org.obverse.model.IsingProblem;
  *
  * <p>Automatic range (common practice for simulated annealing, no source): at β_hot the
  * largest possible single-flip rise, 2·max_k(|h_k| + Σ_j |J_kj|), is taken with probability
- * ½; at β_cold the smallest nonzero coefficient's flip cost, 2·min(|h|, |J|), with
- * probability 1/100.
+ * ½; at β_cold the smallest coefficient's flip cost, 2·min(|h|, |J|), with probability
+ * 1/100. Coefficients below 10⁻⁹ of the largest count as zero: they are rounding residues of a
+ * QUBO-to-spin conversion, not terms.
  */
 public final class BetaRange {
     private BetaRange() {
@@ -22,21 +23,17 @@ public final class BetaRange {
     public static double[] automatic(IsingProblem p) {
         int n = p.size();
         double[] sumAbs = new double[n];
-        double smallest = Double.POSITIVE_INFINITY;
+        double biggest = 0;
         for (int k = 0; k < n; k++) {
             double h = Math.abs(p.field(k));
             sumAbs[k] += h;
-            if (h > 0) {
-                smallest = Math.min(smallest, h);
-            }
+            biggest = Math.max(biggest, h);
         }
         for (int e = 0; e < p.edgeCount(); e++) {
             double j = Math.abs(p.coupling(e));
             sumAbs[p.edgeU(e)] += j;
             sumAbs[p.edgeV(e)] += j;
-            if (j > 0) {
-                smallest = Math.min(smallest, j);
-            }
+            biggest = Math.max(biggest, j);
         }
         double largest = 0;
         for (double s : sumAbs) {
@@ -44,6 +41,20 @@ public final class BetaRange {
         }
         if (largest == 0) {
             return new double[] {1.0, 1.0};
+        }
+        double floor = 1e-9 * biggest;
+        double smallest = Double.POSITIVE_INFINITY;
+        for (int k = 0; k < n; k++) {
+            double h = Math.abs(p.field(k));
+            if (h > floor) {
+                smallest = Math.min(smallest, h);
+            }
+        }
+        for (int e = 0; e < p.edgeCount(); e++) {
+            double j = Math.abs(p.coupling(e));
+            if (j > floor) {
+                smallest = Math.min(smallest, j);
+            }
         }
         double hot = Math.log(2.0) / (2.0 * largest);
         double cold = Math.log(100.0) / (2.0 * smallest);
