@@ -198,27 +198,53 @@ public final class MultiSpinCoding {
             long accept = ~undecided;
             if (undecided != 0) {
                 int base = d * LEVELS;
-                long p0 = thresholds[base];
-                long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
-                long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
-                long p3 = uphillLevels > 3 ? thresholds[base + 3] : 0;
-                long p4 = uphillLevels > 4 ? thresholds[base + 4] : 0;
-                long p5 = uphillLevels > 5 ? thresholds[base + 5] : 0;
-                long p6 = uphillLevels > 6 ? thresholds[base + 6] : 0;
-                long p7 = uphillLevels > 7 ? thresholds[base + 7] : 0;
-                long below = 0;
-                for (int bit = 63; bit >= 0 && undecided != 0; bit--) {
-                    long pb = (e0 & -((p0 >>> bit) & 1L)) | (e1 & -((p1 >>> bit) & 1L))
-                            | (e2 & -((p2 >>> bit) & 1L)) | (e3 & -((p3 >>> bit) & 1L))
-                            | (e4 & -((p4 >>> bit) & 1L)) | (e5 & -((p5 >>> bit) & 1L))
-                            | (e6 & -((p6 >>> bit) & 1L)) | (e7 & -((p7 >>> bit) & 1L));
-                    long r = rng.nextLong();
-                    below |= undecided & ~r & pb;
-                    undecided &= ~(r ^ pb);
+                if (uphillLevels <= 4) {
+                    // Up to 8 terms (the K4,4 cell grid has at most 6): four levels suffice.
+                    long p0 = thresholds[base];
+                    long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
+                    long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
+                    long p3 = uphillLevels > 3 ? thresholds[base + 3] : 0;
+                    accept |= decide(undecided, e0, p0, e1, p1, e2, p2, e3, p3, rng);
+                } else {
+                    long below = 0;
+                    long p0 = thresholds[base];
+                    long p1 = thresholds[base + 1];
+                    long p2 = thresholds[base + 2];
+                    long p3 = thresholds[base + 3];
+                    long p4 = thresholds[base + 4];
+                    long p5 = uphillLevels > 5 ? thresholds[base + 5] : 0;
+                    long p6 = uphillLevels > 6 ? thresholds[base + 6] : 0;
+                    long p7 = uphillLevels > 7 ? thresholds[base + 7] : 0;
+                    for (int bit = 63; bit >= 0 && undecided != 0; bit--) {
+                        long pb = (e0 & -((p0 >>> bit) & 1L)) | (e1 & -((p1 >>> bit) & 1L))
+                                | (e2 & -((p2 >>> bit) & 1L)) | (e3 & -((p3 >>> bit) & 1L))
+                                | (e4 & -((p4 >>> bit) & 1L)) | (e5 & -((p5 >>> bit) & 1L))
+                                | (e6 & -((p6 >>> bit) & 1L)) | (e7 & -((p7 >>> bit) & 1L));
+                        long r = rng.nextLong();
+                        below |= undecided & ~r & pb;
+                        undecided &= ~(r ^ pb);
+                    }
+                    accept |= below;
                 }
-                accept |= below;
             }
             bits[k] = b ^ accept;
         }
+    }
+
+    /**
+     * The reads of {@code undecided} whose uniform U is below their level's threshold: bit by
+     * bit from the top, a fresh random word per bit, until every read is decided.
+     */
+    private static long decide(long undecided, long e0, long p0, long e1, long p1, long e2, long p2, long e3, long p3,
+                               UniformRandomProvider rng) {
+        long below = 0;
+        for (int bit = 63; bit >= 0 && undecided != 0; bit--) {
+            long pb = (e0 & -((p0 >>> bit) & 1L)) | (e1 & -((p1 >>> bit) & 1L))
+                    | (e2 & -((p2 >>> bit) & 1L)) | (e3 & -((p3 >>> bit) & 1L));
+            long r = rng.nextLong();
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        return below;
     }
 }

@@ -64,4 +64,69 @@ class BoltzmannTest extends QuietTest {
     void multiSpinKernelSamplesTheBoltzmannDistribution() {
         assertBoltzmann(SamplerSettings.Kernel.MULTI_SPIN);
     }
+
+    /** A star: the centre meets ten leaves (±1) and has a field: eleven terms, the wide-degree path. */
+    private static IsingProblem star() {
+        org.obverse.model.IsingBuilder b = IsingProblem.builder().field(0, -1);
+        for (int leaf = 1; leaf <= 10; leaf++) {
+            b.coupling(0, leaf, leaf % 3 == 0 ? 1 : -1);
+            if (leaf % 4 == 0) {
+                b.field(leaf, 1);
+            }
+        }
+        return b.build();
+    }
+
+    /** Chi-square over energy levels (levels with an expected count below 5 pooled). */
+    private static void assertEnergyLevelsBoltzmann(SamplerSettings.Kernel kernel, double beta) {
+        IsingProblem p = star();
+        int n = p.size();
+        int reads = 12_000;
+        SamplerSettings settings = SamplerSettings.defaults().withKernel(kernel).withBetaRange(beta, beta)
+                .withSweepsPerMicrosecond(40);
+        SampleSet s = ReferenceSampler.of(settings).sample(p, reads, 78);
+        java.util.TreeMap<Double, Double> weight = new java.util.TreeMap<>();
+        byte[] spins = new byte[n];
+        double z = 0;
+        for (int state = 0; state < (1 << n); state++) {
+            for (int k = 0; k < n; k++) {
+                spins[k] = (byte) (((state >>> k) & 1) == 1 ? 1 : -1);
+            }
+            double w = Math.exp(-beta * p.energy(spins));
+            weight.merge(p.energy(spins), w, Double::sum);
+            z += w;
+        }
+        java.util.TreeMap<Double, Long> seen = new java.util.TreeMap<>();
+        for (double e : s.energies()) {
+            seen.merge(e, 1L, Long::sum);
+        }
+        assertThat(weight.keySet()).containsAll(seen.keySet());
+        java.util.List<Double> expected = new java.util.ArrayList<>();
+        java.util.List<Long> observed = new java.util.ArrayList<>();
+        double poolE = 0;
+        long poolO = 0;
+        for (java.util.Map.Entry<Double, Double> level : weight.entrySet()) {
+            double exp = level.getValue() / z * reads;
+            long obs = seen.getOrDefault(level.getKey(), 0L);
+            if (exp < 5) {
+                poolE += exp;
+                poolO += obs;
+            } else {
+                expected.add(exp);
+                observed.add(obs);
+            }
+        }
+        expected.add(poolE);
+        observed.add(poolO);
+        double pValue = new ChiSquareTest().chiSquareTest(expected.stream().mapToDouble(Double::doubleValue).toArray(),
+                observed.stream().mapToLong(Long::longValue).toArray());
+        assertThat(pValue).as("%s kernel at beta %s: chi-square p-value", kernel, beta).isGreaterThan(1e-4);
+    }
+
+    @Test
+    void highDegreeSpinsAreSampledExactlyByBothKernels() {
+        for (SamplerSettings.Kernel kernel : SamplerSettings.Kernel.values()) {
+            assertEnergyLevelsBoltzmann(kernel, 0.3);
+        }
+    }
 }
