@@ -19,6 +19,9 @@ import picocli.CommandLine.Command;
             UngaugeCommand.class,
             AuditCommand.class,
             EnergyCommand.class,
+            DeviceCommand.class,
+            EmbedCommand.class,
+            DecodeCommand.class,
         })
 public final class Main implements Runnable {
     public static final int DONE = 0;
