@@ -17,9 +17,12 @@ import java.util.List;
  * g_i·g_j for a coupler) it is the intercept of the least-squares fit m_ig = a_i σ_ig + b_i,
  * which separates the logical part a_i from the bias whatever the gauges. b_i = Σ_g c_g m_ig
  * for fixed weights c_g, so its standard error from the reads is √(Σ c_g² (1 − m_ig²) /
- * reads_ig) (a ±1 variable with mean m has variance 1 − m²); from the scatter of the gauges it
- * is √(Σ c_g² · RSS / dof). The z-score divides b_i by the larger of the two, so extra
- * gauge-to-gauge variation never inflates it.
+ * reads_ig) (a ±1 variable with mean m has variance 1 − m²); with signs, from the scatter of
+ * the gauges about the fit it is √(Σ c_g² · RSS / (G − 2)), and the z-score divides b_i by
+ * the larger of the two, so extra gauge-to-gauge variation (drift) never inflates it. Without
+ * signs only the read-based error is used: the scatter then holds the flipping logical part,
+ * and the estimate assumes balanced gauges (with unbalanced random gauges and no signs a
+ * qubit with a large logical magnetisation can be flagged: pass the signs).
  *
  * <p>Flags: |z| above Φ⁻¹(1 − α / (2 m)) for m tested items (Bonferroni), so with no bias
  * the chance that any item is flagged is at most about α (normal approximation, many reads).
@@ -160,8 +163,10 @@ public final class BiasDiagnostics {
             double resid = m[g] - bias - slope * (fit ? x[g] : 0);
             rss += resid * resid;
         }
-        int dof = n - (fit ? 2 : 1);
-        double gaugeVar = dof > 0 ? sumC2 * rss / dof : 0;
+        // Without signs the gauge scatter holds the flipping logical part, not noise: only the
+        // read-based error applies (valid for balanced gauges).
+        int dof = n - 2;
+        double gaugeVar = fit && dof > 0 ? sumC2 * rss / dof : 0;
         double se = Math.sqrt(Math.max(readVar, gaugeVar));
         double z = se > 0 ? bias / se : (bias == 0 ? 0 : Math.copySign(Double.POSITIVE_INFINITY, bias));
         return new Item(index, n, total, bias, se, z, false);
