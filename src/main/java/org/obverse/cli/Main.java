@@ -15,6 +15,10 @@ import picocli.CommandLine.Command;
         description = "Range-aware spin-reversal gauges, chains, sampling and scoring for analog Ising hardware.",
         subcommands = {
             CommandLine.HelpCommand.class,
+            GaugeCommand.class,
+            UngaugeCommand.class,
+            AuditCommand.class,
+            EnergyCommand.class,
             ScoreCommand.class,
             ReportCommand.class,
         })
