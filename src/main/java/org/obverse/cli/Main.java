@@ -19,6 +19,7 @@ import picocli.CommandLine.Command;
             UngaugeCommand.class,
             AuditCommand.class,
             EnergyCommand.class,
+            SampleCommand.class,
         })
 public final class Main implements Runnable {
     public static final int DONE = 0;
