@@ -15,6 +15,15 @@ import picocli.CommandLine.Command;
         description = "Range-aware spin-reversal gauges, chains, sampling and scoring for analog Ising hardware.",
         subcommands = {
             CommandLine.HelpCommand.class,
+            GaugeCommand.class,
+            UngaugeCommand.class,
+            AuditCommand.class,
+            EnergyCommand.class,
+            DeviceCommand.class,
+            EmbedCommand.class,
+            DecodeCommand.class,
+            ScoreCommand.class,
+            ReportCommand.class,
         })
 public final class Main implements Runnable {
     public static final int DONE = 0;

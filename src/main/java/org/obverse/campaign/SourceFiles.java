@@ -1,0 +1,54 @@
+package org.obverse.campaign;
+
+import java.nio.file.Path;
+import org.obverse.io.BadInputException;
+import org.obverse.io.ChainList;
+import org.obverse.io.ChainsCodec;
+import org.obverse.io.DeviceCodec;
+import org.obverse.io.GaugeManifest;
+import org.obverse.io.ManifestCodec;
+import org.obverse.io.ProblemCodec;
+import org.obverse.io.ProblemFile;
+import org.obverse.device.DeviceLimits;
+
+/**
+ * A manifest together with the source files it names, read and checked against the recorded
+ * hashes. Paths in a manifest are relative to its folder.
+ */
+final class SourceFiles {
+    final Path manifestFile;
+    final Path folder;
+    final GaugeManifest manifest;
+
+    SourceFiles(Path manifestFile) {
+        this.manifestFile = manifestFile;
+        this.manifest = ManifestCodec.read(manifestFile);
+        Path parent = manifestFile.toAbsolutePath().getParent();
+        this.folder = parent;
+    }
+
+    Path resolve(GaugeManifest.SourceFile s) {
+        return folder.resolve(s.path()).normalize();
+    }
+
+    ProblemFile problem() {
+        return ProblemCodec.read(resolve(manifest.problem()));
+    }
+
+    DeviceLimits device() {
+        return DeviceCodec.read(resolve(manifest.device()));
+    }
+
+    ChainList chains() {
+        return manifest.chains() == null ? null : ChainsCodec.read(resolve(manifest.chains()));
+    }
+
+    /** Refuses a source whose content changed since the gauges were made. */
+    static void requireHash(Path file, String actual, String recorded, String what) {
+        if (!actual.equals(recorded)) {
+            throw BadInputException.at(file, "", "the " + what + " changed since the gauges were made (content hash "
+                    + actual.substring(0, 12) + "…, the manifest records " + recorded.substring(0, 12) + "…)",
+                    "restore the original file or draw the gauges again");
+        }
+    }
+}

@@ -1,0 +1,143 @@
+package org.obverse.campaign;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.obverse.gauge.Gauge;
+import org.obverse.io.AtomicOutput;
+import org.obverse.io.BadInputException;
+import org.obverse.io.GaugeManifest;
+import org.obverse.io.ProblemCodec;
+import org.obverse.io.ProblemFile;
+import org.obverse.io.SampleCoding;
+import org.obverse.io.SampleFiles;
+import org.obverse.io.SampleFormat;
+import org.obverse.io.SampleReader;
+import org.obverse.io.SampleWriter;
+import org.obverse.model.VariableIndex;
+import org.obverse.samples.SampleBlock;
+import org.obverse.samples.SpinFlips;
+
+/**
+ * Maps raw samples out of their gauges: for each gauge of a manifest, {@code SAMPLES/<stem>.npy}
+ * (or {@code .csv}) in the device frame becomes {@code OUT/<stem>.npy} (same layout) in the
+ * source frame, s = g ∘ s'. Streams each file in chunks, so files larger than memory work.
+ * Refuses a changed source or gauged problem, a wrong width, values other than ±1, and a gauge
+ * without its samples unless missing ones are allowed. A reported-energies file
+ * {@code <stem>.energies.npy} is copied along unchanged (energies do not change under a gauge).
+ */
+public final class UngaugeStep {
+    /** Reads un-gauged per chunk: a multiple of 64. */
+    static final int CHUNK_READS = 4096;
+
+    private UngaugeStep() {
+    }
+
+    public record Request(Path manifest, Path samples, Path out, boolean allowMissing, boolean force,
+                          SampleCoding coding) {
+        /** Spin-coded (−1/+1) samples. */
+        public Request(Path manifest, Path samples, Path out, boolean allowMissing, boolean force) {
+            this(manifest, samples, out, allowMissing, force, SampleCoding.SPIN);
+        }
+    }
+
+    /** One un-gauged file. */
+    public record Done(int gauge, Path input, Path output, long reads) {
+    }
+
+    public record Result(List<Done> done, List<Integer> missing) {
+    }
+
+    public static Result run(Request r) throws IOException {
+        SourceFiles src = new SourceFiles(r.manifest());
+        GaugeManifest m = src.manifest;
+        Path problemPath = src.resolve(m.problem());
+        ProblemFile pf = src.problem();
+        SourceFiles.requireHash(problemPath, ProblemCodec.contentHash(pf), m.problem().sha256(), "source problem");
+        VariableIndex ids = pf.variables();
+        if (!Files.isDirectory(r.samples())) {
+            throw BadInputException.at(r.samples(), "", "is not a folder", "give the folder that holds the raw samples");
+        }
+        List<Path> inputs = new ArrayList<>();
+        List<Integer> missing = new ArrayList<>();
+        List<Gauge> gauges = new ArrayList<>();
+        for (GaugeManifest.Entry e : m.gauges()) {
+            Path gp = src.folder.resolve(e.problem());
+            ProblemFile gauged = ProblemCodec.read(gp);
+            SourceFiles.requireHash(gp, ProblemCodec.contentHash(gauged), e.sha256(), "gauged problem of gauge " + e.index());
+            if (!gauged.variables().equals(ids)) {
+                throw BadInputException.at(gp, "", "its variables differ from the source problem's",
+                        "restore the gauged problem or draw the gauges again");
+            }
+            gauges.add(toGauge(r.manifest(), e, ids));
+            Path npy = r.samples().resolve(SampleFormat.NPY.fileName(e.stem()));
+            Path csv = r.samples().resolve(SampleFormat.CSV.fileName(e.stem()));
+            boolean hasNpy = Files.exists(npy);
+            boolean hasCsv = Files.exists(csv);
+            if (hasNpy && hasCsv) {
+                throw BadInputException.at(r.samples(), e.stem(), "both " + npy.getFileName() + " and "
+                        + csv.getFileName() + " exist", "keep one samples file per gauge");
+            }
+            if (!hasNpy && !hasCsv) {
+                if (!r.allowMissing()) {
+                    throw BadInputException.at(r.samples(), "", "no samples for gauge " + e.index() + " (expected "
+                            + npy.getFileName() + " or " + csv.getFileName() + ")",
+                            "add the file, or pass --allow-missing if the gauge was not run");
+                }
+                missing.add(e.index());
+                inputs.add(null);
+            } else {
+                inputs.add(hasNpy ? npy : csv);
+            }
+        }
+        List<Done> done = new ArrayList<>();
+        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+            for (int i = 0; i < inputs.size(); i++) {
+                Path in = inputs.get(i);
+                if (in == null) {
+                    continue;
+                }
+                GaugeManifest.Entry e = m.gauges().get(i);
+                Path out = SampleFiles.sameLayout(in, dir, e.stem());
+                long reads = ungaugeFile(in, out, ids, gauges.get(i), r.coding());
+                Path energies = r.samples().resolve(e.stem() + ".energies.npy");
+                if (Files.exists(energies)) {
+                    Files.copy(energies, dir.resolve(energies.getFileName()));
+                }
+                done.add(new Done(e.index(), in, r.out().resolve(out.getFileName()), reads));
+            }
+        });
+        return new Result(done, missing);
+    }
+
+    /** Un-gauges one file, streaming. */
+    static long ungaugeFile(Path in, Path out, VariableIndex ids, Gauge g, SampleCoding coding) throws IOException {
+        int[] flipped = g.flippedPositions();
+        try (SampleReader reader = SampleFiles.open(in, ids, coding);
+             SampleWriter writer = SampleFiles.create(out, ids, false, coding)) {
+            SampleBlock b = null;
+            while ((b = reader.nextBlock(CHUNK_READS, b)) != null) {
+                SpinFlips.flipInPlace(b, flipped);
+                writer.writeBlock(b);
+            }
+            writer.commit();
+            return writer.readsWritten();
+        }
+    }
+
+    /** The gauge of a manifest entry, by position of the source's variables. */
+    static Gauge toGauge(Path manifest, GaugeManifest.Entry e, VariableIndex ids) {
+        int[] ids2 = e.flipped();
+        int[] pos = new int[ids2.length];
+        for (int k = 0; k < ids2.length; k++) {
+            pos[k] = ids.indexOf(ids2[k]);
+            if (pos[k] < 0) {
+                throw BadInputException.at(manifest, "gauges[" + e.index() + "].flipped", "names qubit " + ids2[k]
+                        + ", which the source problem does not use", "restore the manifest or draw the gauges again");
+            }
+        }
+        return Gauge.flipping(ids.size(), pos);
+    }
+}

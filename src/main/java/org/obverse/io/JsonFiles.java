@@ -1,0 +1,94 @@
+package org.obverse.io;
+
+import com.fasterxml.jackson.core.JsonParser;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.StreamReadFeature;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.json.JsonMapper;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+
+/**
+ * Reading and writing obverse's JSON files: every file carries {@code "format":
+ * "obverse.<kind>/1"}; a malformed file, another kind or another version is refused with one
+ * line that names the file and the place. Number fields are read strictly (no strings for
+ * numbers, no NaN).
+ */
+public final class JsonFiles {
+    /** The shared mapper: duplicate keys refused, doubles written in shortest round-trip form. */
+    public static final ObjectMapper MAPPER = JsonMapper.builder()
+            .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+            .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+            .disable(JsonParser.Feature.ALLOW_NON_NUMERIC_NUMBERS)
+            .disable(SerializationFeature.FAIL_ON_EMPTY_BEANS)
+            .build();
+
+    private JsonFiles() {
+    }
+
+    /** Reads a JSON object from a file and checks its format tag. */
+    public static ObjectNode read(Path file, String kind) {
+        byte[] bytes;
+        try {
+            bytes = Files.readAllBytes(file);
+        } catch (NoSuchFileException e) {
+            throw BadInputException.at(file, "", "no such file", "check the path");
+        } catch (IOException e) {
+            throw BadInputException.at(file, "", "cannot be read (" + e.getMessage() + ")", "check the path and permissions");
+        }
+        return parse(file, bytes, kind);
+    }
+
+    /** Parses JSON bytes (named by file, for messages) and checks the format tag. */
+    public static ObjectNode parse(Path file, byte[] bytes, String kind) {
+        JsonNode root;
+        try {
+            root = MAPPER.readTree(bytes);
+        } catch (JsonProcessingException e) {
+            String where = e.getLocation() == null ? ""
+                    : "line " + e.getLocation().getLineNr() + ", column " + e.getLocation().getColumnNr();
+            throw BadInputException.at(file, where, "is not valid JSON (" + e.getOriginalMessage() + ")",
+                    "fix the file's syntax");
+        } catch (IOException e) {
+            throw BadInputException.at(file, "", "cannot be parsed (" + e.getMessage() + ")", "fix the file");
+        }
+        if (root == null || !root.isObject()) {
+            throw BadInputException.at(file, "top level", "is not a JSON object", "an obverse file is one JSON object");
+        }
+        String expected = "obverse." + kind + "/1";
+        JsonNode f = root.get("format");
+        if (f == null || !f.isTextual()) {
+            throw BadInputException.at(file, "\"format\"", "is missing", "an " + kind + " file starts with \"format\": \""
+                    + expected + "\"");
+        }
+        if (!f.asText().equals(expected)) {
+            throw BadInputException.at(file, "\"format\"", "is \"" + f.asText() + "\", not \"" + expected + "\"",
+                    "pass a file of kind " + kind + " (this version reads " + expected + ")");
+        }
+        return (ObjectNode) root;
+    }
+
+    /** Pretty JSON text, with a final newline. */
+    public static String text(JsonNode node) {
+        try {
+            return MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(node) + "\n";
+        } catch (JsonProcessingException e) {
+            throw new IllegalStateException("cannot serialise JSON", e);
+        }
+    }
+
+    /** Compact JSON text, used for canonical hashing. */
+    public static String compact(JsonNode node) {
+        try {
+            return MAPPER.writeValueAsString(node);
+        } catch (JsonProcessingException e) {
+            throw new IllegalStateException("cannot serialise JSON", e);
+        }
+    }
+}

@@ -1,0 +1,122 @@
+package org.obverse.io;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import org.obverse.model.VariableIndex;
+
+/** Samples from an NPY {@code int8} file of shape {@code [reads, n]} in C order. */
+final class NpySampleReader extends SampleReader {
+    private final NpyReader npy;
+    private final SampleCoding coding;
+    private final int n;
+    private final long reads;
+    private long done;
+
+    private NpySampleReader(NpyReader npy, SampleCoding coding, int n, long reads) {
+        this.npy = npy;
+        this.coding = coding;
+        this.n = n;
+        this.reads = reads;
+    }
+
+    static NpySampleReader open(Path file, VariableIndex expected, SampleCoding coding) throws IOException {
+        NpyReader npy = NpyReader.open(file);
+        try {
+            NpyHeader h = npy.header();
+            String layout = "samples are NPY int8 of shape [reads, n] in C order";
+            if (!h.dtype().sameKind(NpyDtype.INT8)) {
+                throw BadInputException.at(file, "header", "dtype is " + h.dtype().describe() + " ('" + h.dtype().descr()
+                        + "'), not int8", layout + ": save with numpy.save(path, samples.astype(numpy.int8))");
+            }
+            if (h.ndim() != 2) {
+                throw BadInputException.at(file, "header", "shape " + java.util.Arrays.toString(h.shape()) + " has "
+                        + h.ndim() + " axes, not 2", layout);
+            }
+            // With one row or one column C and Fortran order hold the same bytes.
+            if (h.fortranOrder() && h.axis(0) > 1 && h.axis(1) > 1) {
+                throw BadInputException.at(file, "header", "fortran_order is True", layout
+                        + ": save numpy.ascontiguousarray(samples) instead");
+            }
+            if (h.axis(1) > Integer.MAX_VALUE - 8) {
+                throw BadInputException.at(file, "header", h.axis(1) + " columns are too many", layout);
+            }
+            int width = (int) h.axis(1);
+            if (expected != null && width != expected.size()) {
+                throw BadInputException.at(file, "header", "shape " + java.util.Arrays.toString(h.shape()) + " has "
+                        + width + " columns but the problem has " + expected.size() + " variables",
+                        "give the samples of this problem (column k = its k-th smallest variable id)");
+            }
+            return new NpySampleReader(npy, coding, width, h.axis(0));
+        } catch (RuntimeException e) {
+            npy.close();
+            throw e;
+        }
+    }
+
+    @Override
+    public Path file() {
+        return npy.file();
+    }
+
+    @Override
+    public int variables() {
+        return n;
+    }
+
+    @Override
+    public long reads() {
+        return reads;
+    }
+
+    @Override
+    public long readsDone() {
+        return done;
+    }
+
+    @Override
+    public int readRows(byte[] rows, int maxRows) throws IOException {
+        int count = (int) Math.min(maxRows, reads - done);
+        if (count <= 0) {
+            return 0;
+        }
+        int len = count * n;
+        long firstByte = npy.byteOffsetOf(npy.position());
+        int got = npy.readBytes(rows, 0, len);
+        if (got != len) {
+            throw BadInputException.at(file(), "read " + (done + got / Math.max(1, n)), "the data ended early",
+                    "the file is truncated: write it again");
+        }
+        if (coding == SampleCoding.SPIN) {
+            for (int i = 0; i < len; i++) {
+                byte b = rows[i];
+                if (b != 1 && b != -1) {
+                    throw badValue(i, b, firstByte);
+                }
+            }
+        } else {
+            for (int i = 0; i < len; i++) {
+                byte b = rows[i];
+                if (b != 0 && b != 1) {
+                    throw badValue(i, b, firstByte);
+                }
+                rows[i] = (byte) (2 * b - 1);
+            }
+        }
+        done += count;
+        return count;
+    }
+
+    private BadInputException badValue(int i, byte b, long firstByte) {
+        long read = done + i / n;
+        int column = i % n;
+        return BadInputException.at(file(), "read " + read + ", column " + column + " (byte offset " + (firstByte + i) + ")",
+                "holds " + b + "; " + coding.rule(), coding == SampleCoding.SPIN
+                        ? "write spins as int8 -1/+1 (0/1 files need the binary coding)"
+                        : "write binary values as int8 0/1");
+    }
+
+    @Override
+    public void close() throws IOException {
+        npy.close();
+    }
+}
