@@ -24,6 +24,7 @@ import picocli.CommandLine.Command;
             DecodeCommand.class,
             ScoreCommand.class,
             ReportCommand.class,
+            SpectrumCommand.class,
         })
 public final class Main implements Runnable {
     public static final int DONE = 0;
