@@ -4,6 +4,8 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 import org.junit.jupiter.api.Test;
+import org.obverse.gauge.Gauge;
+import org.obverse.gauge.GaugeTransform;
 import org.obverse.model.IsingProblem;
 import org.obverse.spectrum.SectorBasis.Sector;
 import org.obverse.testsupport.QuietTest;
@@ -37,6 +39,21 @@ class SpectrumPropertyTest extends QuietTest {
                     settings, s, TOL);
             assertThat(c.same()).as("%s worst %s", c.reason(), c.worstDifference()).isTrue();
             assertThat(c.worstDifference()).isLessThan(TOL);
+        });
+    }
+
+    /* The project's own gauge transform gives the problem built by definition, and passes the default check. */
+    @Test
+    void theGaugePackagesTransformPassesTheDefaultCheck() {
+        Seeds.forEachCase(5, 7400, (rng, seed) -> {
+            int n = 3 + rng.nextInt(6);
+            IsingProblem p = TestProblems.random(rng, n, 0.4, true);
+            int[] g = TestProblems.randomGauge(rng, n);
+            IsingProblem viaGauge = GaugeTransform.apply(p, Gauge.ofSigns(g));
+            assertThat(viaGauge).isEqualTo(TestProblems.gauged(p, g));
+            assertThat(SpectrumCheck.fits(p, SpectrumSettings.defaults())).isTrue();
+            SpectrumCheck.Comparison c = SpectrumCheck.sameSpectrum(p, viaGauge);
+            assertThat(c.same()).as(c.reason()).isTrue();
         });
     }
 
