@@ -25,6 +25,7 @@ import picocli.CommandLine.Command;
             ScoreCommand.class,
             ReportCommand.class,
             SampleCommand.class,
+            SpectrumCommand.class,
         })
 public final class Main implements Runnable {
     public static final int DONE = 0;

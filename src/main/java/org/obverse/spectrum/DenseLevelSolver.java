@@ -8,7 +8,8 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 /**
  * Lowest levels by forming H(s) on the sector as a dense symmetric matrix and taking EJML's
  * symmetric eigendecomposition (Householder tridiagonalisation and implicit QR), eigenvalues
- * only. Exact to rounding: the oracle for the Lanczos solver. Cost O(d³) time and 8·d² bytes
+ * only, falling back to EJML's general eigendecomposition where the symmetric one reports no
+ * convergence. Exact to rounding: the oracle for the Lanczos solver. Cost O(d³) time and 8·d² bytes
  * for d = 2^m; refused above {@link #MAX_STORED_SPINS}. Stateless.
  */
 public final class DenseLevelSolver implements LevelSolver {
@@ -53,8 +54,14 @@ public final class DenseLevelSolver implements LevelSolver {
         DMatrixRMaj h = matrix(operator);
         int d = h.numRows;
         EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(d, false, true);
-        if (!eig.decompose(h)) {
-            throw new IllegalStateException("the dense eigendecomposition did not converge (dimension " + d + ")");
+        if (!eig.decompose(h.copy())) {
+            // EJML's symmetric QR gives up on some massively degenerate matrices (the pure driver
+            // at s = 0 has binomial multiplicities); the general Hessenberg QR is backward
+            // stable too, and a symmetric matrix's eigenvalues are perfectly conditioned.
+            eig = DecompositionFactory_DDRM.eig(d, false, false);
+            if (!eig.decompose(h)) {
+                throw new IllegalStateException("the dense eigendecomposition did not converge (dimension " + d + ")");
+            }
         }
         double[] values = new double[d];
         for (int i = 0; i < d; i++) {

@@ -22,10 +22,10 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
  * its eigenvalue is within that bound of a true one (Kahan; see Parlett, The Symmetric
  * Eigenvalue Problem, SIAM 1998, §11.5). The lowest converged pairs are locked (later rounds
  * work orthogonally to them: deflation); the next round restarts from the lowest unconverged
- * Ritz vectors plus a small random part, so a level whose partner was absent from one Krylov
- * space (an exact degeneracy) is found later. It stops when at least the wanted number are
- * locked and a round's converged lowest Ritz value is no lower than the last wanted locked
- * one. Blocks of p ≥ 2 resolve near-degenerate pairs that a single vector converges to only
+ * Ritz vectors and one fresh random vector, so a level whose partner was absent from one
+ * Krylov space (an exact degeneracy) is found later. It stops when at least the wanted number
+ * are locked and a round's lowest Ritz value less its residual is no lower than the last wanted
+ * locked one. Blocks of p ≥ 2 resolve near-degenerate pairs that a single vector converges to only
  * slowly.
  *
  * <p>Memory: (basis + p + locked) vectors of 2^m doubles; the basis is capped by
@@ -40,10 +40,10 @@ public final class LanczosLevelSolver implements LevelSolver {
     /** Memory budget of the Krylov basis. */
     public static final long BASIS_BYTES = 256L << 20;
     /** Most basis vectors per round. */
-    public static final int MAX_BASIS = 96;
-    private static final int MAX_ROUNDS = 400;
+    public static final int MAX_BASIS = 40;
+    private static final int MAX_RESTARTS = 400;
+    private static final double REORTHOGONALISE_BELOW = 0.7071;
     private static final long SEED = 0x5EC7_2A11_0B5E_77E1L;
-    private static final double RESTART_NOISE = 1e-3;
 
     private final double tolerance;
     private final int blockSize;
@@ -53,9 +53,9 @@ public final class LanczosLevelSolver implements LevelSolver {
         this.blockSize = blockSize;
     }
 
-    /** The solver with the default tolerance and block size 4. */
+    /** The solver with the default tolerance and block size 1. */
     public static LanczosLevelSolver create() {
-        return new LanczosLevelSolver(DEFAULT_TOLERANCE, 4);
+        return new LanczosLevelSolver(DEFAULT_TOLERANCE, 1);
     }
 
     /**
@@ -111,40 +111,50 @@ public final class LanczosLevelSolver implements LevelSolver {
         int p = Math.max(1, Math.min(blockSize, k));
         int basisMax = basisVectors(dim, p);
         double[][] q = new double[basisMax][];
+        double[][] t = new double[basisMax][basisMax];
         double[] w = new double[dim];
         List<double[]> locked = new ArrayList<>();
         double[] lockedValues = new double[0];
-        double[][] restart = null;
-        for (int round = 0; round < MAX_ROUNDS; round++) {
+        double[][] lockedArr = new double[0][];
+        int size = 0;
+        int done = 0;
+        // Whether the basis holds a random vector added after the last lock (needed to trust
+        // that no unlocked level lies below the wanted ones).
+        boolean generic = true;
+        for (int c = 0; c < Math.min(p, dim); c++) {
+            q[c] = new double[dim];
+            newDirection(q[c], rng, lockedArr, q, c, dim);
+            size++;
+        }
+        for (int restart = 0; restart <= MAX_RESTARTS; restart++) {
             int nLocked = locked.size();
             int avail = dim - nLocked;
-            if (avail <= 0) {
-                break;
-            }
-            double[][] lockedArr = locked.toArray(new double[0][]);
-            int pb = Math.min(p, avail);
             int maxSize = Math.min(basisMax, avail);
-            double[][] t = new double[maxSize][maxSize];
-            int size = 0;
-            for (int c = 0; c < pb; c++) {
-                q[c] = q[c] == null ? new double[dim] : q[c];
-                double[] start = restart != null && c < restart.length ? restart[c] : null;
-                newDirection(q[c], start, rng, lockedArr, q, c, dim, tiny);
-                size++;
-            }
             int need = nLocked >= k ? 1 : k - nLocked;
             double kth = nLocked >= k ? sortedCopy(lockedValues)[k - 1] : Double.NaN;
-            int done = 0;
+            int checkEvery = Math.max(p, 6);
+            boolean confirming = nLocked >= k;
+            boolean genericRound = generic;
             Ritz ritz = null;
+            // Expand the basis: apply H to the next unapplied vector, orthogonalise, append.
             while (done < size) {
                 boolean grow = size < maxSize;
-                boolean exhausted = size == avail;
-                if (!grow && !exhausted) {
+                if (!grow && size < avail) {
                     break;
                 }
                 op.apply(q[done], w);
                 double[] column = new double[size];
-                for (int pass = 0; pass < 2; pass++) {
+                // The large component along q[done] first, then classical Gram–Schmidt against
+                // everything, repeated only where it cancelled much (Daniel, Gragg, Kaufman and
+                // Stewart, Math. Comp. 30, 772, 1976: the "twice is enough" test).
+                double own = Vectors.dot(q[done], w, dim);
+                Vectors.axpy(-own, q[done], w, dim);
+                column[done] += own;
+                double before = Vectors.norm(w, dim);
+                Vectors.projectOut(lockedArr, lockedArr.length, w, dim, null);
+                Vectors.projectOut(q, size, w, dim, column);
+                double after = Vectors.norm(w, dim);
+                if (after < REORTHOGONALISE_BELOW * before) {
                     Vectors.projectOut(lockedArr, lockedArr.length, w, dim, null);
                     Vectors.projectOut(q, size, w, dim, column);
                 }
@@ -159,14 +169,17 @@ public final class LanczosLevelSolver implements LevelSolver {
                         Vectors.scale(q[size], dim, 1.0 / nu);
                         t[size][done] = nu;
                     } else {
-                        // An invariant subspace: continue with a fresh direction.
-                        newDirection(q[size], null, rng, lockedArr, q, size, dim, tiny);
+                        // An invariant subspace: continue with a fresh direction (coupling 0).
+                        newDirection(q[size], rng, lockedArr, q, size, dim);
                         t[size][done] = 0.0;
+                    }
+                    for (int j = 0; j < done; j++) {
+                        t[size][j] = 0.0;
                     }
                     size++;
                 }
                 done++;
-                if (done >= need && (done % pb == 0 || done == size)) {
+                if (!confirming && done >= need && (done % checkEvery == 0 || done == size)) {
                     ritz = Ritz.of(t, done, size);
                     if (ritz.converged(need, tol)) {
                         break;
@@ -176,7 +189,9 @@ public final class LanczosLevelSolver implements LevelSolver {
             if (ritz == null || ritz.columns != done) {
                 ritz = Ritz.of(t, done, size);
             }
-            if (nLocked >= k && ritz.residual[0] <= tol && ritz.value[0] >= kth - tol) {
+            // Nothing unlocked lies below the last wanted level: the lowest Ritz value, less its
+            // residual, is at or above it (Ritz values bound the eigenvalues from above).
+            if (confirming && genericRound && ritz.value[0] - ritz.residual[0] >= kth - tol) {
                 break;
             }
             int accepted = 0;
@@ -192,33 +207,101 @@ public final class LanczosLevelSolver implements LevelSolver {
                 lockedValues = Arrays.copyOf(lockedValues, lockedValues.length + 1);
                 lockedValues[lockedValues.length - 1] = ritz.value[i];
                 accepted++;
+                generic = false;
             }
-            int restartCount = Math.min(pb, done - accepted);
-            restart = new double[Math.max(0, restartCount)][];
-            for (int c = 0; c < restartCount; c++) {
-                restart[c] = new double[dim];
-                Vectors.combine(q, ritz.vector(accepted + c), done, restart[c], dim);
-            }
+            lockedArr = locked.toArray(new double[0][]);
             if (locked.size() >= dim) {
                 break;
             }
-            if (round == MAX_ROUNDS - 1) {
+            if (restart == MAX_RESTARTS) {
                 throw new IllegalStateException("the Lanczos solver did not reach residual " + tol + " in "
-                        + MAX_ROUNDS + " rounds (dimension " + dim + ", " + locked.size() + " of " + k
+                        + MAX_RESTARTS + " restarts (dimension " + dim + ", " + locked.size() + " of " + k
                         + " levels locked); use --solver dense for a small problem or a looser --tolerance");
+            }
+            // Thick restart: keep the lowest unconverged Ritz vectors (applied, with T diagonal),
+            // the residual vectors beyond them (unapplied), and one fresh random vector, so a
+            // partner missing from this Krylov space (an exact degeneracy) can still appear.
+            int residualCount = size - done;
+            boolean inject = !generic && locked.size() >= k;
+            int room = Math.min(basisMax, dim - locked.size()) - residualCount - (inject ? 1 : 0);
+            int keep = Math.min(done - accepted, Math.max(need + p, room / 2));
+            keep = Math.max(0, Math.min(keep, room - p));
+            double[][] coupling = new double[residualCount][keep];
+            for (int c = 0; c < keep; c++) {
+                double[] sv = ritz.vector(accepted + c);
+                for (int i = 0; i < residualCount; i++) {
+                    double sum = 0.0;
+                    for (int j = 0; j < done; j++) {
+                        sum += t[done + i][j] * sv[j];
+                    }
+                    coupling[i][c] = sum;
+                }
+            }
+            rotateInPlace(q, done, ritz, accepted, keep, dim);
+            for (int i = 0; i < residualCount; i++) {
+                double[] tmp = q[keep + i];
+                q[keep + i] = q[done + i];
+                q[done + i] = tmp;
+            }
+            for (double[] row : t) {
+                Arrays.fill(row, 0.0);
+            }
+            for (int c = 0; c < keep; c++) {
+                t[c][c] = ritz.value[accepted + c];
+                for (int i = 0; i < residualCount; i++) {
+                    t[keep + i][c] = coupling[i][c];
+                    t[c][keep + i] = coupling[i][c];
+                }
+            }
+            done = keep;
+            size = keep + residualCount;
+            if (inject || size == 0) {
+                q[size] = q[size] == null ? new double[dim] : q[size];
+                newDirection(q[size], rng, lockedArr, q, size, dim);
+                size++;
+                generic = true;
             }
         }
         double[] values = sortedCopy(lockedValues);
         return Arrays.copyOf(values, Math.min(k, values.length));
     }
 
-    // Fills v with start (if any) plus noise, orthonormal to the locked vectors and q[0..count).
-    private static void newDirection(double[] v, double[] start, UniformRandomProvider rng, double[][] locked,
-                                     double[][] q, int count, int dim, double tiny) {
+    // q[c] ← Σ_j S[j][from + c] q[j] for c < keep, row by row in place (q[keep..done) is left as scratch).
+    private static void rotateInPlace(double[][] q, int done, Ritz ritz, int from, int keep, int dim) {
+        if (keep == 0) {
+            return;
+        }
+        double[][] s = new double[keep][];
+        for (int c = 0; c < keep; c++) {
+            s[c] = ritz.vector(from + c);
+        }
+        int chunk = 1 << 12;
+        int chunks = (dim + chunk - 1) / chunk;
+        java.util.stream.IntStream.range(0, chunks).parallel().forEach(part -> {
+            double[] old = new double[done];
+            int end = Math.min(dim, (part + 1) * chunk);
+            for (int i = part * chunk; i < end; i++) {
+                for (int j = 0; j < done; j++) {
+                    old[j] = q[j][i];
+                }
+                for (int c = 0; c < keep; c++) {
+                    double sum = 0.0;
+                    double[] sc = s[c];
+                    for (int j = 0; j < done; j++) {
+                        sum += sc[j] * old[j];
+                    }
+                    q[c][i] = sum;
+                }
+            }
+        });
+    }
+
+    // Fills v with a random vector orthonormal to the locked vectors and q[0..count).
+    private static void newDirection(double[] v, UniformRandomProvider rng, double[][] locked,
+                                     double[][] q, int count, int dim) {
         for (int attempt = 0; attempt < 8; attempt++) {
-            double noise = start == null ? 1.0 : RESTART_NOISE / Math.sqrt(dim);
             for (int i = 0; i < dim; i++) {
-                v[i] = noise * (rng.nextDouble() - 0.5) + (start == null ? 0.0 : start[i]);
+                v[i] = rng.nextDouble() - 0.5;
             }
             for (int pass = 0; pass < 2; pass++) {
                 Vectors.projectOut(locked, locked.length, v, dim, null);
@@ -229,7 +312,6 @@ public final class LanczosLevelSolver implements LevelSolver {
                 Vectors.scale(v, dim, 1.0 / norm);
                 return;
             }
-            start = null;
         }
         throw new IllegalStateException("could not find a direction orthogonal to " + (locked.length + count)
                 + " vectors in dimension " + dim);

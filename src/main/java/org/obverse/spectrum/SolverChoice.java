@@ -18,10 +18,10 @@ public enum SolverChoice {
             case DENSE:
                 return DenseLevelSolver.create();
             case LANCZOS:
-                return LanczosLevelSolver.of(lanczosTolerance, 4);
+                return LanczosLevelSolver.of(lanczosTolerance, 1);
             default:
                 return storedSpins <= AUTO_DENSE_STORED_SPINS ? DenseLevelSolver.create()
-                        : LanczosLevelSolver.of(lanczosTolerance, 4);
+                        : LanczosLevelSolver.of(lanczosTolerance, 1);
         }
     }
 }

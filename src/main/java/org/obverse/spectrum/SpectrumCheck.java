@@ -22,6 +22,22 @@ public final class SpectrumCheck {
     public record Comparison(boolean same, double worstDifference, double worstS, int worstLevel, String reason) {
     }
 
+    /** The s values of {@link #sameSpectrum(IsingProblem, IsingProblem)}. */
+    public static final double[] DEFAULT_S = {0.0, 0.1, 0.3, 0.5, 0.7, 0.9, 1.0};
+    /** The tolerance of {@link #sameSpectrum(IsingProblem, IsingProblem)}, relative to max(1, energy scale). */
+    public static final double DEFAULT_TOLERANCE = 1e-9;
+
+    /**
+     * The check with defaults, for an audit: the illustrative schedule, the four lowest levels
+     * of the reachable sector at {@link #DEFAULT_S}, the AUTO solver, {@link #DEFAULT_TOLERANCE}.
+     * Use {@link #fits(IsingProblem, SpectrumSettings)} with {@link SpectrumSettings#defaults()}
+     * first to skip problems too large.
+     */
+    public static Comparison sameSpectrum(IsingProblem a, IsingProblem b) {
+        return sameSpectrum(a, b, AnnealSchedule.illustrative(), SpectrumSettings.defaults(), DEFAULT_S,
+                DEFAULT_TOLERANCE);
+    }
+
     /**
      * Compares the lowest levels of a and b at each s (in [0, 1]) in the given sector.
      *

@@ -93,6 +93,16 @@ final class Vectors {
         }
     }
 
+    /** y ← y + a·x over the first n entries. */
+    static void axpy(double a, double[] x, double[] y, int n) {
+        if (n < PARALLEL_FROM) {
+            axpyRange(a, x, y, 0, n);
+            return;
+        }
+        int chunks = (n + CHUNK - 1) / CHUNK;
+        IntStream.range(0, chunks).parallel().forEach(q -> axpyRange(a, x, y, q * CHUNK, Math.min(n, (q + 1) * CHUNK)));
+    }
+
     private static void axpyRange(double a, double[] x, double[] y, int from, int to) {
         for (int i = from; i < to; i++) {
             y[i] += a * x[i];
