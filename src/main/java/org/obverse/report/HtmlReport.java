@@ -25,12 +25,14 @@ public final class HtmlReport {
     }
 
     /** What the page is about. */
-    public record Inputs(String results, String ground, SuccessRule rule, String sweepName, String magnetisation) {
+    public record Inputs(String results, String ground, SuccessRule rule, String sweepName, String magnetisation,
+            String correlations) {
     }
 
     /** The page. */
     public static String page(CampaignSummary summary, ScoreFiles.Tables tables, Inputs inputs, List<Figure> figures,
-            BiasDiagnostics.Result bias, List<Integer> qubitIds) {
+            BiasDiagnostics.Result bias, List<Integer> qubitIds, BiasDiagnostics.Result couplerBias,
+            List<int[]> couplers) {
         Campaign c = summary.campaign();
         var o = summary.options();
         StringBuilder h = new StringBuilder(1 << 16);
@@ -177,6 +179,25 @@ public final class HtmlReport {
             for (BiasDiagnostics.Item it : top) {
                 h.append("<tr><td>").append(rank++).append("</td><td>").append(qubitIds.get(it.item())).append("</td><td>")
                         .append(it.gauges()).append("</td><td>").append(it.reads()).append("</td><td>")
+                        .append(num(it.bias())).append("</td><td>").append(num(it.stdError())).append("</td><td>")
+                        .append(num(it.z())).append("</td><td class=\"l\">")
+                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : "no").append("</td></tr>\n");
+            }
+            h.append("</table>\n");
+        }
+        if (couplerBias != null) {
+            h.append("<h2>Bias of the couplers</h2>\n<p>From <code>").append(esc(inputs.correlations()))
+                    .append("</code>: ").append(couplerBias.items().size()).append(" couplers; ")
+                    .append(couplerBias.flagged().size()).append(" flagged at |z| &gt; ").append(num(couplerBias.threshold()))
+                    .append(" (family-wise false-positive rate ").append(num(couplerBias.alpha())).append(").</p>\n");
+            figure(h, figures, "coupler-bias");
+            h.append("<table>\n<tr><th>rank</th><th>coupler</th><th>gauges</th><th>reads</th><th>bias</th>")
+                    .append("<th>standard error</th><th>z</th><th class=\"l\">flagged</th></tr>\n");
+            int rank = 1;
+            for (BiasDiagnostics.Item it : couplerBias.items().subList(0, Math.min(20, couplerBias.items().size()))) {
+                int[] pair = couplers.get(it.item());
+                h.append("<tr><td>").append(rank++).append("</td><td>").append(pair[0]).append("–").append(pair[1])
+                        .append("</td><td>").append(it.gauges()).append("</td><td>").append(it.reads()).append("</td><td>")
                         .append(num(it.bias())).append("</td><td>").append(num(it.stdError())).append("</td><td>")
                         .append(num(it.z())).append("</td><td class=\"l\">")
                         .append(it.flagged() ? "<span class=\"flag\">yes</span>" : "no").append("</td></tr>\n");
