@@ -66,7 +66,9 @@ public final class HtmlReport {
         h.append("<li>Over instances: the ").append(o.quantile() == 0.5 ? "median" : num(o.quantile()) + " quantile")
                 .append(" (Hyndman–Fan type 7; ∞ sorts above every finite value and a positive interpolation weight on")
                 .append(" ∞ gives ∞).</li>\n");
-        h.append("<li>Bands: hierarchical bootstrap (instances, then gauges, then reads as binomial draws), ")
+        String scheme = o.resampleReads() && o.resampleGauges() ? "instances, then gauges, then reads as binomial draws"
+                : o.resampleGauges() ? "instances, then gauges" : o.resampleReads() ? "instances, then reads" : "instances only";
+        h.append("<li>Bands: hierarchical bootstrap (").append(scheme).append("), ")
                 .append(o.replicates()).append(" replicates, seed ").append(o.seed()).append(", percentiles ")
                 .append(num(100 * o.band()[0])).append("–").append(num(100 * o.band()[1])).append(" and ")
                 .append(num(100 * o.outerBand()[0])).append("–").append(num(100 * o.outerBand()[1]))
