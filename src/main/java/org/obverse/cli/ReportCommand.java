@@ -46,6 +46,11 @@ public final class ReportCommand implements Callable<Integer> {
             description = "family-wise false-positive rate of the bias flags (default ${DEFAULT-VALUE})")
     double alpha;
 
+    @Option(names = "--balanced-gauges",
+            description = "the gauges flip every qubit (coupler) in exactly half of them: without a sign column, use "
+                    + "the read-based error alone (more power); otherwise the gauge scatter is allowed for")
+    boolean balanced;
+
     @Option(names = "--force", description = "replace an existing output directory")
     boolean force;
 
@@ -61,7 +66,7 @@ public final class ReportCommand implements Callable<Integer> {
         if (magnetisation != null) {
             MagnetisationTable.Loaded m = MagnetisationTable.read(magnetisation);
             try {
-                bias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha);
+                bias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha, balanced);
             } catch (IllegalArgumentException e) {
                 throw BadInputException.at(magnetisation, "", e.getMessage(), "check the sums against the reads");
             }
@@ -72,7 +77,7 @@ public final class ReportCommand implements Callable<Integer> {
         if (correlations != null) {
             MagnetisationTable.Couplers m = MagnetisationTable.readCouplers(correlations);
             try {
-                couplerBias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha);
+                couplerBias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha, balanced);
             } catch (IllegalArgumentException e) {
                 throw BadInputException.at(correlations, "", e.getMessage(), "check the sums against the reads");
             }
