@@ -19,6 +19,9 @@ import picocli.CommandLine.Command;
             UngaugeCommand.class,
             AuditCommand.class,
             EnergyCommand.class,
+            DeviceCommand.class,
+            EmbedCommand.class,
+            DecodeCommand.class,
             ScoreCommand.class,
             ReportCommand.class,
         })
