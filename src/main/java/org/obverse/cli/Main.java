@@ -22,6 +22,11 @@ import picocli.CommandLine.Command;
             DeviceCommand.class,
             EmbedCommand.class,
             DecodeCommand.class,
+            ScoreCommand.class,
+            ReportCommand.class,
+            SampleCommand.class,
+            SpectrumCommand.class,
+            DemoCommand.class,
         })
 public final class Main implements Runnable {
     public static final int DONE = 0;

@@ -1,0 +1,221 @@
+package org.obverse.bench;
+
+import java.util.Collection;
+import java.util.HashMap;
+import java.util.Map;
+import java.util.concurrent.TimeUnit;
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.simple.RandomSource;
+import org.obverse.anneal.BetaRange;
+import org.obverse.anneal.MetropolisKernels;
+import org.obverse.anneal.MultiSpinCoding;
+import org.obverse.anneal.SamplerSettings;
+import org.obverse.model.IsingProblem;
+import org.obverse.problems.SpinGlasses;
+import java.lang.management.ManagementFactory;
+import java.lang.management.ThreadMXBean;
+import org.openjdk.jmh.annotations.AuxCounters;
+import org.openjdk.jmh.annotations.Benchmark;
+import org.openjdk.jmh.annotations.BenchmarkMode;
+import org.openjdk.jmh.annotations.Fork;
+import org.openjdk.jmh.annotations.Level;
+import org.openjdk.jmh.annotations.Measurement;
+import org.openjdk.jmh.annotations.Mode;
+import org.openjdk.jmh.annotations.OperationsPerInvocation;
+import org.openjdk.jmh.annotations.OutputTimeUnit;
+import org.openjdk.jmh.annotations.Scope;
+import org.openjdk.jmh.annotations.Setup;
+import org.openjdk.jmh.annotations.State;
+import org.openjdk.jmh.annotations.Threads;
+import org.openjdk.jmh.annotations.Warmup;
+import org.openjdk.jmh.results.RunResult;
+import org.openjdk.jmh.runner.Runner;
+import org.openjdk.jmh.runner.RunnerException;
+import org.openjdk.jmh.runner.options.Options;
+import org.openjdk.jmh.runner.options.OptionsBuilder;
+
+/**
+ * Spin-update attempts per nanosecond of the reference sampler's kernels on a ±J spin glass of
+ * 16 × 16 K4,4 cells (2,048 qubits), one sweep per invocation, with β cycling through a
+ * default 1,000-sweep anneal so the accept mix is that of a real run:
+ * <ul>
+ * <li>{@code baseline}: local field recomputed and Math.exp on every attempt;</li>
+ * <li>{@code exact} (1 and 2 threads): maintained local fields and the bracketing table;</li>
+ * <li>{@code multiSpin} (1 and 2 threads): 64 reads a word (64 attempts per spin visit).</li>
+ * </ul>
+ * Scores are attempts/ns of wall time (JMH sums the threads). The machine these run on is
+ * shared, so each benchmark also counts the attempts and the thread CPU time it used
+ * ({@link CpuCounters}): attempts per CPU-nanosecond is the per-core speed with other
+ * people's load taken out. Run the ratios table with
+ * {@code java -cp target/obverse-bench.jar org.obverse.bench.SamplerBench}.
+ */
+@BenchmarkMode(Mode.Throughput)
+@OutputTimeUnit(TimeUnit.NANOSECONDS)
+@Warmup(iterations = 2, time = 2)
+@Measurement(iterations = 3, time = 2)
+@Fork(1)
+public class SamplerBench {
+    static final int ROWS = 16;
+    static final int N = ROWS * ROWS * 8;
+
+    /** The problem, shared read-only. */
+    @State(Scope.Benchmark)
+    public static class Problem {
+        IsingProblem problem;
+        int[] start;
+        int[] neighbour;
+        double[] coupling;
+        double[] fields;
+        double[] betas;
+        MultiSpinCoding coding;
+        long[][] thresholds;
+
+        @Setup
+        public void setUp() {
+            problem = SpinGlasses.cellGrid(ROWS, ROWS, SpinGlasses.Couplings.PLUS_MINUS_ONE,
+                    RandomSource.XO_RO_SHI_RO_128_PP.create(2026L));
+            start = problem.adjacencyStarts();
+            neighbour = problem.adjacencyVariables();
+            int[] edge = problem.adjacencyEdges();
+            coupling = new double[edge.length];
+            for (int q = 0; q < edge.length; q++) {
+                coupling[q] = problem.coupling(edge[q]);
+            }
+            fields = problem.fields();
+            double[] range = BetaRange.automatic(problem);
+            betas = BetaRange.perSweep(SamplerSettings.defaults(), range[0], range[1]);
+            coding = MultiSpinCoding.of(problem);
+            thresholds = new long[betas.length][MultiSpinCoding.thresholdLength()];
+            for (int k = 0; k < betas.length; k++) {
+                coding.thresholds(betas[k], thresholds[k]);
+            }
+        }
+    }
+
+    /** One thread's replica: spins, fields, its own generator, the sweep counter. */
+    @State(Scope.Thread)
+    public static class Replica {
+        byte[] spins;
+        double[] localField;
+        long[] words;
+        UniformRandomProvider rng;
+        int sweep;
+        private static int nextSeed;
+
+        @Setup(Level.Trial)
+        public void setUp(Problem p) {
+            int seed;
+            synchronized (Replica.class) {
+                seed = nextSeed++;
+            }
+            rng = RandomSource.XO_RO_SHI_RO_128_PP.create(new long[] {7L, seed});
+            spins = new byte[N];
+            words = new long[N];
+            for (int k = 0; k < N; k++) {
+                spins[k] = (byte) (rng.nextBoolean() ? 1 : -1);
+                words[k] = rng.nextLong();
+            }
+            localField = new double[N];
+            MetropolisKernels.localFields(N, p.start, p.neighbour, p.coupling, p.fields, spins, localField);
+        }
+
+        int nextSweep(int sweeps) {
+            int s = sweep;
+            sweep = s + 1 == sweeps ? 0 : s + 1;
+            return s;
+        }
+    }
+
+    /** Attempts made and thread CPU time used, summed over an iteration (secondary results). */
+    @State(Scope.Thread)
+    @AuxCounters(AuxCounters.Type.EVENTS)
+    public static class CpuCounters {
+        private static final ThreadMXBean BEAN = ManagementFactory.getThreadMXBean();
+        public long attempts;
+        public long cpuNanos;
+
+        @Setup(Level.Iteration)
+        public void clear() {
+            attempts = 0;
+            cpuNanos = 0;
+        }
+
+        long now() {
+            return BEAN.getCurrentThreadCpuTime();
+        }
+    }
+
+    @Benchmark
+    @OperationsPerInvocation(N)
+    public byte baseline(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        double beta = p.betas[r.nextSweep(p.betas.length)];
+        MetropolisKernels.sweepBaseline(N, p.start, p.neighbour, p.coupling, p.fields, r.spins, beta, r.rng);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += N;
+        return r.spins[0];
+    }
+
+    @Benchmark
+    @OperationsPerInvocation(N)
+    public byte exact(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        double beta = p.betas[r.nextSweep(p.betas.length)];
+        MetropolisKernels.sweep(N, p.start, p.neighbour, p.coupling, r.spins, r.localField, beta, r.rng);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += N;
+        return r.spins[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(N)
+    public byte exactTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return exact(p, r, c);
+    }
+
+    @Benchmark
+    @OperationsPerInvocation(64 * N)
+    public long multiSpin(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        p.coding.sweep(r.words, p.thresholds[r.nextSweep(p.betas.length)], r.rng);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += 64 * N;
+        return r.words[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(64 * N)
+    public long multiSpinTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return multiSpin(p, r, c);
+    }
+
+    /** Runs the five benchmarks briefly and prints attempts/ns and the ratios to the baseline. */
+    public static void main(String[] args) throws RunnerException {
+        Options opt = new OptionsBuilder().include(SamplerBench.class.getName() + "\\.").forks(1)
+                .warmupIterations(2).warmupTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2))
+                .measurementIterations(3).measurementTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2)).build();
+        Collection<RunResult> results = new Runner(opt).run();
+        Map<String, Double> score = new HashMap<>();
+        Map<String, Double> perCpu = new HashMap<>();
+        for (RunResult r : results) {
+            String name = r.getParams().getBenchmark();
+            String k = name.substring(name.lastIndexOf('.') + 1);
+            score.put(k, r.getPrimaryResult().getScore());
+            double attempts = r.getSecondaryResults().get("attempts").getScore();
+            double cpu = r.getSecondaryResults().get("cpuNanos").getScore();
+            perCpu.put(k, attempts / cpu);
+        }
+        double base = score.get("baseline");
+        double baseCpu = perCpu.get("baseline");
+        System.out.printf("%-22s %12s %10s %16s %10s%n", "kernel", "attempts/ns", "x baseline", "attempts/cpu-ns",
+                "x baseline");
+        for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "multiSpin", "multiSpinTwoThreads"}) {
+            System.out.printf("%-22s %12.4f %10.2f %16.4f %10.2f%n", k, score.get(k), score.get(k) / base,
+                    perCpu.get(k), perCpu.get(k) / baseCpu);
+        }
+        System.out.printf("wall-clock, two threads / one: exact %.2f, multi-spin %.2f%n",
+                score.get("exactTwoThreads") / score.get("exact"), score.get("multiSpinTwoThreads") / score.get("multiSpin"));
+    }
+}

@@ -1,0 +1,67 @@
+package org.obverse.anneal;
+
+/**
+ * A table that decides Metropolis acceptance u &lt; exp(−x) (x = β·ΔE &gt; 0, u uniform in
+ * [0, 1)) mostly without calling the exponential, and always with the same answer as the
+ * exact comparison. Entry k holds e_k = exp(−k·δ) with δ = 2⁻⁵; for x in [kδ, (k+1)δ) the
+ * exact value lies in [e_{k+1}, e_k] because the exponential is monotone (StrictMath.exp is
+ * the correctly specified fdlibm function, hence semi-monotonic). So u &lt; e_{k+1} accepts,
+ * u ≥ e_k rejects, and only u inside the bracket (probability ≈ δ·exp(−x)) computes
+ * StrictMath.exp(−x) itself. The index is exact: δ is a power of two. Past x = 32 the table's
+ * last entry bounds the value (and 0 below it). Immutable, shared by all threads.
+ */
+public final class ExponentialBracket {
+    /** Table step δ = 2⁻⁵. */
+    public static final double STEP = 0x1p-5;
+    private static final double INVERSE_STEP = 0x1p5;
+    /** Largest tabulated x. */
+    public static final double LIMIT = 32.0;
+    private static final int SIZE = (int) (LIMIT * INVERSE_STEP) + 1;
+    // TABLE[k] = exp(-k δ) for k <= SIZE; one more entry, 0, closes the overflow bracket.
+    private static final double[] TABLE = new double[SIZE + 2];
+    private static final double LAST_BIN = SIZE;
+
+    static {
+        for (int k = 0; k <= SIZE; k++) {
+            TABLE[k] = StrictMath.exp(-k * STEP);
+        }
+        TABLE[SIZE + 1] = 0.0;
+    }
+
+    private ExponentialBracket() {
+    }
+
+    /**
+     * Whether u &lt; StrictMath.exp(−x), for x &gt; 0 and u in [0, 1); equal to the exact
+     * comparison for every input.
+     */
+    public static boolean accepts(double x, double u) {
+        if (x < LIMIT) {
+            int k = (int) (x * INVERSE_STEP);
+            if (u < TABLE[k + 1]) {
+                return true;
+            }
+            if (u >= TABLE[k]) {
+                return false;
+            }
+        } else if (u >= TABLE[SIZE - 1]) {
+            return false;
+        }
+        return u < StrictMath.exp(-x);
+    }
+
+    /**
+     * Whether u &lt; StrictMath.exp(−x) for any finite x (x ≤ 0 always accepts) and u in
+     * [0, 1); equal to the exact comparison for every input. Written with one rarely taken
+     * branch (the bracket), so that the caller's accept branch is the only unpredictable one.
+     */
+    public static boolean acceptsAny(double x, double u) {
+        double clamped = Math.max(x, 0.0);
+        int k = (int) Math.min(clamped * INVERSE_STEP, LAST_BIN);
+        boolean accept = (u < TABLE[k + 1]) | (x <= 0.0);
+        if (!accept & (u < TABLE[k])) {
+            accept = u < StrictMath.exp(-x);
+        }
+        return accept;
+    }
+}

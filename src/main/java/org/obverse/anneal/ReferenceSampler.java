@@ -1,0 +1,315 @@
+package org.obverse.anneal;
+
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.concurrent.atomic.AtomicReference;
+import org.apache.commons.rng.UniformRandomProvider;
+import org.obverse.model.BinaryProblem;
+import org.obverse.model.IsingProblem;
+import org.obverse.samples.SampleBlock;
+
+/**
+ * The reference sampler: simulated annealing with single-spin Metropolis sweeps, standing in
+ * for an imperfect analog machine. It runs the problem as the device would (plus the static
+ * control errors of {@link ControlErrors}, plus per-read noise where set), follows the anneal
+ * schedule through {@link BetaRange} (a pause is held as extra sweeps at the pause point: an
+ * emulation, not a model of quantum dynamics) and reports energies under the problem as
+ * submitted.
+ *
+ * <p>Reproducible: read r (exact kernel) draws its start state, its noise and every
+ * Metropolis number from its own generator {@code StreamSeeds.generator(seed, READS, r)}; with
+ * the multi-spin kernel, 64-read word w uses {@code generator(seed, WORDS, w)}. Work is split
+ * into 64-read blocks over the worker threads, so the output never depends on the thread
+ * count. Reads start from uniformly random spins.
+ *
+ * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
+ * problem's arrays per thread.
+ */
+public final class ReferenceSampler {
+    private final SamplerSettings settings;
+
+    private ReferenceSampler(SamplerSettings settings) {
+        this.settings = settings;
+    }
+
+    /** A sampler with these settings. */
+    public static ReferenceSampler of(SamplerSettings settings) {
+        if (settings == null) {
+            throw new IllegalArgumentException("settings must not be null");
+        }
+        return new ReferenceSampler(settings);
+    }
+
+    /** A sampler with the defaults. */
+    public static ReferenceSampler withDefaults() {
+        return of(SamplerSettings.defaults());
+    }
+
+    public SamplerSettings settings() {
+        return settings;
+    }
+
+    /**
+     * Samples a binary problem through its spin form; set bits are x = 1 and the energies are
+     * the binary problem's own.
+     */
+    public SampleSet sample(BinaryProblem problem, int reads, long seed) {
+        SampleSet spin = sample(problem.toIsing(), reads, seed);
+        double[] energies = new double[reads];
+        byte[] row = new byte[problem.size()];
+        SampleBlock block = spin.samples();
+        for (int r = 0; r < reads; r++) {
+            for (int k = 0; k < row.length; k++) {
+                row[k] = (byte) ((block.spin(r, k) + 1) >> 1);
+            }
+            energies[r] = problem.energy(row);
+        }
+        return new SampleSet(spin.variables(), block, energies, spin.sweeps(), spin.runTimeMicros());
+    }
+
+    /**
+     * Samples a spin problem: reads ≥ 0 reads from the seed.
+     *
+     * @throws IllegalArgumentException for a negative read count, or a problem the chosen
+     *                                  kernel cannot run (the message says why)
+     */
+    public SampleSet sample(IsingProblem problem, int reads, long seed) {
+        if (reads < 0) {
+            throw new IllegalArgumentException("reads " + reads + " must be >= 0");
+        }
+        double hot = settings.betaHot();
+        double cold = settings.betaCold();
+        if (settings.automaticBeta()) {
+            double[] range = BetaRange.automatic(problem);
+            hot = range[0];
+            cold = range[1];
+        }
+        double[] betas = BetaRange.perSweep(settings, hot, cold);
+        SampleBlock block = SampleBlock.allDown(reads, problem.size());
+        double[] energies = new double[reads];
+        IsingProblem device = settings.errors().applyStatic(problem);
+        Task task;
+        if (settings.kernel() == SamplerSettings.Kernel.MULTI_SPIN) {
+            if (!settings.errors().isNone()) {
+                throw new IllegalArgumentException("the multi-spin kernel runs without control errors; "
+                        + "use the exact kernel to sample with errors");
+            }
+            MultiSpinCoding coding = MultiSpinCoding.of(problem);
+            task = new MultiSpinTask(problem, coding, betas, block, energies, seed);
+        } else {
+            task = new ExactTask(problem, device, settings.errors(), betas, block, energies, seed);
+        }
+        runBlocks(task, block.blockCount(), settings.threads());
+        return new SampleSet(problem.variables(), block, energies, betas.length, settings.schedule().runTimeMicros());
+    }
+
+    /** Work on one 64-read block with a thread's own workspace. */
+    private interface Task {
+        Object workspace();
+
+        void block(int b, Object workspace);
+    }
+
+    private static void runBlocks(Task task, int blocks, int threads) {
+        int workers = Math.min(threads, blocks);
+        if (workers <= 1) {
+            Object ws = task.workspace();
+            for (int b = 0; b < blocks; b++) {
+                task.block(b, ws);
+            }
+            return;
+        }
+        AtomicInteger next = new AtomicInteger();
+        AtomicReference<Throwable> failure = new AtomicReference<>();
+        Thread[] pool = new Thread[workers];
+        for (int w = 0; w < workers; w++) {
+            pool[w] = new Thread(() -> {
+                try {
+                    Object ws = task.workspace();
+                    for (int b = next.getAndIncrement(); b < blocks && failure.get() == null; b = next.getAndIncrement()) {
+                        task.block(b, ws);
+                    }
+                } catch (Throwable t) {
+                    failure.compareAndSet(null, t);
+                }
+            }, "obverse-sampler-" + w);
+            pool[w].setDaemon(true);
+            pool[w].start();
+        }
+        for (Thread t : pool) {
+            try {
+                t.join();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new IllegalStateException("sampling was interrupted", e);
+            }
+        }
+        Throwable t = failure.get();
+        if (t instanceof RuntimeException) {
+            throw (RuntimeException) t;
+        }
+        if (t instanceof Error) {
+            throw (Error) t;
+        }
+    }
+
+    /** The exact kernel: one read at a time. */
+    private static final class ExactTask implements Task {
+        private final IsingProblem nominal;
+        private final ControlErrors errors;
+        private final double[] betas;
+        private final SampleBlock block;
+        private final double[] energies;
+        private final long seed;
+        private final int n;
+        private final int[] start;
+        private final int[] neighbour;
+        private final int[] edgeOf;
+        private final double[] fields;
+        private final double[] couplings;
+        private final double[] csrCoupling;
+
+        ExactTask(IsingProblem nominal, IsingProblem device, ControlErrors errors, double[] betas, SampleBlock block,
+                  double[] energies, long seed) {
+            this.nominal = nominal;
+            this.errors = errors;
+            this.betas = betas;
+            this.block = block;
+            this.energies = energies;
+            this.seed = seed;
+            this.n = device.size();
+            this.start = device.adjacencyStarts();
+            this.neighbour = device.adjacencyVariables();
+            this.edgeOf = device.adjacencyEdges();
+            this.fields = device.fields();
+            this.couplings = device.couplings();
+            this.csrCoupling = new double[neighbour.length];
+            for (int q = 0; q < neighbour.length; q++) {
+                csrCoupling[q] = couplings[edgeOf[q]];
+            }
+        }
+
+        private static final class Workspace {
+            final byte[] spins;
+            final double[] localField;
+            final double[] fields;
+            final double[] couplings;
+            final double[] csr;
+
+            Workspace(int n, int e, int csr) {
+                spins = new byte[n];
+                localField = new double[n];
+                fields = new double[n];
+                couplings = new double[e];
+                this.csr = new double[csr];
+            }
+        }
+
+        @Override
+        public Object workspace() {
+            return new Workspace(n, couplings.length, neighbour.length);
+        }
+
+        @Override
+        public void block(int b, Object workspace) {
+            Workspace ws = (Workspace) workspace;
+            int first = b << 6;
+            int last = Math.min(block.reads(), first + 64);
+            for (int r = first; r < last; r++) {
+                read(r, ws);
+            }
+        }
+
+        private void read(int r, Workspace ws) {
+            UniformRandomProvider rng = StreamSeeds.generator(seed, StreamSeeds.READS, r);
+            byte[] s = ws.spins;
+            for (int k = 0; k < n; k += 64) {
+                long bits = rng.nextLong();
+                for (int i = k; i < Math.min(n, k + 64); i++) {
+                    s[i] = (byte) ((((bits >>> (i - k)) & 1L) << 1) - 1);
+                }
+            }
+            double[] h = fields;
+            double[] csr = csrCoupling;
+            if (errors.hasReadNoise()) {
+                System.arraycopy(fields, 0, ws.fields, 0, n);
+                System.arraycopy(couplings, 0, ws.couplings, 0, couplings.length);
+                errors.addReadNoise(rng, ws.fields, ws.couplings);
+                for (int q = 0; q < csr.length; q++) {
+                    ws.csr[q] = ws.couplings[edgeOf[q]];
+                }
+                h = ws.fields;
+                csr = ws.csr;
+            }
+            MetropolisKernels.localFields(n, start, neighbour, csr, h, s, ws.localField);
+            for (double beta : betas) {
+                MetropolisKernels.sweep(n, start, neighbour, csr, s, ws.localField, beta, rng);
+            }
+            // Each block is written by one thread only, so these bit writes never race.
+            for (int k = 0; k < n; k++) {
+                block.setSpin(r, k, s[k]);
+            }
+            energies[r] = nominal.energy(s);
+        }
+    }
+
+    /** The multi-spin kernel: 64 reads a word. */
+    private static final class MultiSpinTask implements Task {
+        private final IsingProblem nominal;
+        private final MultiSpinCoding coding;
+        private final double[] betas;
+        private final SampleBlock block;
+        private final double[] energies;
+        private final long seed;
+
+        MultiSpinTask(IsingProblem nominal, MultiSpinCoding coding, double[] betas, SampleBlock block,
+                      double[] energies, long seed) {
+            this.nominal = nominal;
+            this.coding = coding;
+            this.betas = betas;
+            this.block = block;
+            this.energies = energies;
+            this.seed = seed;
+        }
+
+        private static final class Workspace {
+            final long[] bits;
+            final long[] thresholds = new long[MultiSpinCoding.thresholdLength()];
+            final byte[] row;
+
+            Workspace(int n) {
+                bits = new long[n];
+                row = new byte[n];
+            }
+        }
+
+        @Override
+        public Object workspace() {
+            return new Workspace(coding.size());
+        }
+
+        @Override
+        public void block(int b, Object workspace) {
+            Workspace ws = (Workspace) workspace;
+            int n = coding.size();
+            UniformRandomProvider rng = StreamSeeds.generator(seed, StreamSeeds.WORDS, b);
+            for (int k = 0; k < n; k++) {
+                ws.bits[k] = rng.nextLong();
+            }
+            for (double beta : betas) {
+                coding.thresholds(beta, ws.thresholds);
+                coding.sweep(ws.bits, ws.thresholds, rng);
+            }
+            long mask = block.validMask(b);
+            long[] words = block.words();
+            for (int k = 0; k < n; k++) {
+                words[b * n + k] = ws.bits[k] & mask;
+            }
+            int first = b << 6;
+            int last = Math.min(block.reads(), first + 64);
+            for (int r = first; r < last; r++) {
+                block.unpackRows(r, 1, ws.row);
+                energies[r] = nominal.energy(ws.row);
+            }
+        }
+    }
+}
