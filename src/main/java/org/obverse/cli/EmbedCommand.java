@@ -83,8 +83,12 @@ public final class EmbedCommand implements Callable<Integer> {
     @Option(names = "--rounds", defaultValue = "2000", paramLabel = "R", description = "most search rounds (default ${DEFAULT-VALUE})")
     int rounds;
 
+    @Option(names = "--tries", defaultValue = "4", paramLabel = "K",
+            description = "independent searches; the one with the shortest longest chain is kept (default ${DEFAULT-VALUE})")
+    int tries;
+
     @Option(names = "--time-limit", defaultValue = "60", paramLabel = "SECONDS",
-            description = "search time limit, 0 for none (default ${DEFAULT-VALUE})")
+            description = "search time limit of each try, 0 for none (default ${DEFAULT-VALUE})")
     double timeLimit;
 
     @Option(names = "--force", description = "replace existing output files")
@@ -169,9 +173,10 @@ public final class EmbedCommand implements Callable<Integer> {
         long s = seed != null ? seed : new SecureRandom().nextLong();
         long start = System.nanoTime();
         try {
-            Chains c = RerouteEmbeddingFinder.find(q, g, new FinderLimits(rounds, (long) (timeLimit * 1000)),
+            Chains c = RerouteEmbeddingFinder.findBest(q, g, new FinderLimits(rounds, (long) (timeLimit * 1000)), tries,
                     RandomSource.XO_RO_SHI_RO_128_PP.create(s));
-            w.printf("found chains (rip-up and reroute, seed %d) in %.1f s%n", s, (System.nanoTime() - start) / 1e9);
+            w.printf("found chains (rip-up and reroute, seed %d, best of %d tries) in %.1f s%n", s, tries,
+                    (System.nanoTime() - start) / 1e9);
             return c;
         } catch (EmbeddingNotFoundException e) {
             throw BadInputException.at(logical, "", e.getMessage() + " (seed " + s + ")", "");

@@ -159,6 +159,39 @@ public final class RerouteEmbeddingFinder {
         return chains;
     }
 
+    /**
+     * Runs {@link #find} {@code tries} times, each from its own generator seeded from
+     * {@code rng}, and keeps the best embedding: the shortest longest chain, then the fewest
+     * qubits, then the earliest try. Tries that find nothing are skipped; the limits apply to
+     * each try.
+     *
+     * @throws EmbeddingNotFoundException where no try finds one (the last try's message)
+     */
+    public static Chains findBest(IsingProblem logical, QubitGraph graph, FinderLimits limits, int tries,
+                                  UniformRandomProvider rng) {
+        if (tries < 1) {
+            throw new IllegalArgumentException("tries " + tries + " must be >= 1");
+        }
+        Chains best = null;
+        EmbeddingNotFoundException last = null;
+        for (int t = 0; t < tries; t++) {
+            UniformRandomProvider own = org.apache.commons.rng.simple.RandomSource.XO_RO_SHI_RO_128_PP.create(rng.nextLong());
+            try {
+                Chains c = find(logical, graph, limits, own);
+                if (best == null || c.maxLength() < best.maxLength()
+                        || (c.maxLength() == best.maxLength() && c.qubitCount() < best.qubitCount())) {
+                    best = c;
+                }
+            } catch (EmbeddingNotFoundException e) {
+                last = e;
+            }
+        }
+        if (best == null) {
+            throw new EmbeddingNotFoundException(last.getMessage() + " (in each of " + tries + " tries)");
+        }
+        return best;
+    }
+
     private int[][] search(FinderLimits limits) {
         long deadline = limits.timeLimitMillis() == 0 ? Long.MAX_VALUE
                 : System.nanoTime() + limits.timeLimitMillis() * 1_000_000L;
