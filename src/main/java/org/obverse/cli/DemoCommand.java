@@ -194,7 +194,7 @@ public final class DemoCommand implements Callable<Integer> {
         // The bias map: device-frame moments tallied by ungauge at the middle chain coupling.
         String middle = String.format(Locale.ROOT, "V%+.1f", CHAIN_COUPLINGS[CHAIN_COUPLINGS.length / 2]) + "/layout-a";
         r1.addAll(List.of("--magnetisation", p(middle + "/source/magnetisation.csv"), "--correlations",
-                p(middle + "/source/correlations.csv"), "--balanced-gauges", "--out", p("report")));
+                p(middle + "/source/correlations.csv"), "--balanced-gauges", "--series", "gauged", "--out", p("report")));
         verb(r1.toArray(new String[0]));
         say.println("  wrote report/report.html");
     }
