@@ -199,6 +199,21 @@ class ChainCommandsTest extends CommandTestSupport {
         assertThat(e[0]).isEqualTo(logical.energy(new byte[] {1, 1, 1, 1, 1}));
         assertThat(Files.readString(out.resolve("chains.csv"))).startsWith("logical_id,length,broken_reads,broken_fraction\n0,4,1,");
 
+        // The same reads as 0/1 in CSV give the same logical reads, written as 0/1 CSV.
+        Path csv = tmp.resolve("samples.csv");
+        try (org.obverse.io.SampleWriter sw = SampleFiles.create(csv, qubits, false, org.obverse.io.SampleCoding.BINARY)) {
+            sw.writeBlock(SampleBlock.fromSpins(flat, 3, n));
+            sw.commit();
+        }
+        Path bin = tmp.resolve("bin");
+        assertThat(obverse("decode", "--problem", p.toString(), "--logical", q.toString(), "--chains", cf.toString(),
+                "--samples", csv.toString(), "--rule", "majority", "--binary", "--out", bin.toString()).code()).isZero();
+        try (org.obverse.io.SampleReader in = SampleFiles.open(bin.resolve("logical.csv"), logical.variables(),
+                org.obverse.io.SampleCoding.BINARY)) {
+            assertThat(in.readRemaining().toSpins()).isEqualTo(x.toSpins());
+        }
+        assertThat(Files.readString(bin.resolve("logical.csv"))).contains("0,1").doesNotContain("-1");
+
         Path disc = tmp.resolve("disc");
         assertThat(obverse("decode", "--problem", p.toString(), "--logical", q.toString(), "--chains", cf.toString(),
                 "--samples", s.toString(), "--rule", "discard", "--out", disc.toString()).code()).isZero();
