@@ -83,12 +83,13 @@ public final class EmbedCommand implements Callable<Integer> {
     @Option(names = "--rounds", defaultValue = "2000", paramLabel = "R", description = "most search rounds (default ${DEFAULT-VALUE})")
     int rounds;
 
-    @Option(names = "--tries", defaultValue = "4", paramLabel = "K",
-            description = "independent searches; the one with the shortest longest chain is kept (default ${DEFAULT-VALUE})")
+    @Option(names = "--tries", defaultValue = "16", paramLabel = "K",
+            description = "independent searches (within the time limit); the one with the shortest longest chain is kept "
+                    + "(default ${DEFAULT-VALUE})")
     int tries;
 
     @Option(names = "--time-limit", defaultValue = "60", paramLabel = "SECONDS",
-            description = "search time limit of each try, 0 for none (default ${DEFAULT-VALUE})")
+            description = "time limit of the whole search, 0 for none; no new try starts after it (default ${DEFAULT-VALUE})")
     double timeLimit;
 
     @Option(names = "--force", description = "replace existing output files")
@@ -175,7 +176,7 @@ public final class EmbedCommand implements Callable<Integer> {
         try {
             Chains c = RerouteEmbeddingFinder.findBest(q, g, new FinderLimits(rounds, (long) (timeLimit * 1000)), tries,
                     RandomSource.XO_RO_SHI_RO_128_PP.create(s));
-            w.printf("found chains (rip-up and reroute, seed %d, best of %d tries) in %.1f s%n", s, tries,
+            w.printf("found chains (rip-up and reroute, seed %d, best of up to %d tries) in %.1f s%n", s, tries,
                     (System.nanoTime() - start) / 1e9);
             return c;
         } catch (EmbeddingNotFoundException e) {

@@ -160,10 +160,11 @@ public final class RerouteEmbeddingFinder {
     }
 
     /**
-     * Runs {@link #find} {@code tries} times, each from its own generator seeded from
+     * Runs {@link #find} up to {@code tries} times, each from its own generator seeded from
      * {@code rng}, and keeps the best embedding: the shortest longest chain, then the fewest
-     * qubits, then the earliest try. Tries that find nothing are skipped; the limits apply to
-     * each try.
+     * qubits, then the earliest try. Tries that find nothing are skipped. The round limit
+     * applies to each try, the time limit to all of them together: once it has passed, no
+     * further try starts (so with a time limit the number of tries made may vary).
      *
      * @throws EmbeddingNotFoundException where no try finds one (the last try's message)
      */
@@ -174,10 +175,16 @@ public final class RerouteEmbeddingFinder {
         }
         Chains best = null;
         EmbeddingNotFoundException last = null;
+        long deadline = System.nanoTime() + limits.timeLimitMillis() * 1_000_000L;
         for (int t = 0; t < tries; t++) {
-            UniformRandomProvider own = org.apache.commons.rng.simple.RandomSource.XO_RO_SHI_RO_128_PP.create(rng.nextLong());
+            long left = (deadline - System.nanoTime()) / 1_000_000L;
+            if (limits.timeLimitMillis() > 0 && t > 0 && left <= 0) {
+                break;
+            }
+            FinderLimits own = limits.timeLimitMillis() == 0 ? limits : new FinderLimits(limits.rounds(), Math.max(1, left));
+            UniformRandomProvider stream = org.apache.commons.rng.simple.RandomSource.XO_RO_SHI_RO_128_PP.create(rng.nextLong());
             try {
-                Chains c = find(logical, graph, limits, own);
+                Chains c = find(logical, graph, own, stream);
                 if (best == null || c.maxLength() < best.maxLength()
                         || (c.maxLength() == best.maxLength() && c.qubitCount() < best.qubitCount())) {
                     best = c;
@@ -187,7 +194,7 @@ public final class RerouteEmbeddingFinder {
             }
         }
         if (best == null) {
-            throw new EmbeddingNotFoundException(last.getMessage() + " (in each of " + tries + " tries)");
+            throw new EmbeddingNotFoundException(last.getMessage() + " (in every try)");
         }
         return best;
     }
