@@ -105,6 +105,27 @@ class ChainCommandsTest extends CommandTestSupport {
             assertThat(phys.energy(physical)).isCloseTo(scale * logical.energy(s) + couplers * -1.5, within(1e-12));
         }
 
+        // Per-chain coupling proportional to length: the longest chain gets V, V_c / L_c is constant.
+        Path p3 = tmp.resolve("bylength.json");
+        Run byLength = obverse("embed", "--logical", q.toString(), "--chains", chainsFile.toString(), "--device",
+                d.toString(), "--chain-coupling", "-2", "--chain-coupling-mode", "length", "--out", p3.toString());
+        assertThat(byLength.code()).as(byLength.err()).isZero();
+        ProblemFile lengthFile = ProblemCodec.read(p3);
+        assertThat(lengthFile.meta().get("chain_coupling_mode").asText()).isEqualTo("length");
+        IsingProblem lp = lengthFile.spin();
+        int longest = c.maxLength();
+        for (int k = 0; k < 5; k++) {
+            int[] chain = c.chainOf(k);
+            for (int a = 0; a < chain.length; a++) {
+                for (int b = a + 1; b < chain.length; b++) {
+                    int e = lp.edgeBetween(lp.variables().indexOf(chain[a]), lp.variables().indexOf(chain[b]));
+                    if (e >= 0) {
+                        assertThat(lp.coupling(e)).isCloseTo(-2.0 * chain.length / longest, within(1e-15));
+                    }
+                }
+            }
+        }
+
         Path p2 = tmp.resolve("clique.json");
         Run clique = obverse("embed", "--logical", q.toString(), "--device", lattice("full.json").toString(),
                 "--chain-coupling", "-2", "--finder", "clique", "--out", p2.toString());
