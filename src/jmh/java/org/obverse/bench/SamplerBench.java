@@ -12,6 +12,9 @@ import org.obverse.anneal.MultiSpinCoding;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.model.IsingProblem;
 import org.obverse.problems.SpinGlasses;
+import java.lang.management.ManagementFactory;
+import java.lang.management.ThreadMXBean;
+import org.openjdk.jmh.annotations.AuxCounters;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Fork;
@@ -40,7 +43,10 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * <li>{@code exact} (1 and 2 threads): maintained local fields and the bracketing table;</li>
  * <li>{@code multiSpin} (1 and 2 threads): 64 reads a word (64 attempts per spin visit).</li>
  * </ul>
- * Scores are attempts/ns (JMH sums the threads). Run the ratios table with
+ * Scores are attempts/ns of wall time (JMH sums the threads). The machine these run on is
+ * shared, so each benchmark also counts the attempts and the thread CPU time it used
+ * ({@link CpuCounters}): attempts per CPU-nanosecond is the per-core speed with other
+ * people's load taken out. Run the ratios table with
  * {@code java -cp target/obverse-bench.jar org.obverse.bench.SamplerBench}.
  */
 @BenchmarkMode(Mode.Throughput)
@@ -120,41 +126,69 @@ public class SamplerBench {
         }
     }
 
+    /** Attempts made and thread CPU time used, summed over an iteration (secondary results). */
+    @State(Scope.Thread)
+    @AuxCounters(AuxCounters.Type.EVENTS)
+    public static class CpuCounters {
+        private static final ThreadMXBean BEAN = ManagementFactory.getThreadMXBean();
+        public long attempts;
+        public long cpuNanos;
+
+        @Setup(Level.Iteration)
+        public void clear() {
+            attempts = 0;
+            cpuNanos = 0;
+        }
+
+        long now() {
+            return BEAN.getCurrentThreadCpuTime();
+        }
+    }
+
     @Benchmark
     @OperationsPerInvocation(N)
-    public byte baseline(Problem p, Replica r) {
+    public byte baseline(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
         double beta = p.betas[r.nextSweep(p.betas.length)];
         MetropolisKernels.sweepBaseline(N, p.start, p.neighbour, p.coupling, p.fields, r.spins, beta, r.rng);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += N;
         return r.spins[0];
     }
 
     @Benchmark
     @OperationsPerInvocation(N)
-    public byte exact(Problem p, Replica r) {
+    public byte exact(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
         double beta = p.betas[r.nextSweep(p.betas.length)];
         MetropolisKernels.sweep(N, p.start, p.neighbour, p.coupling, r.spins, r.localField, beta, r.rng);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += N;
         return r.spins[0];
     }
 
     @Benchmark
     @Threads(2)
     @OperationsPerInvocation(N)
-    public byte exactTwoThreads(Problem p, Replica r) {
-        return exact(p, r);
+    public byte exactTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return exact(p, r, c);
     }
 
     @Benchmark
     @OperationsPerInvocation(64 * N)
-    public long multiSpin(Problem p, Replica r) {
+    public long multiSpin(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
         p.coding.sweep(r.words, p.thresholds[r.nextSweep(p.betas.length)], r.rng);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += 64 * N;
         return r.words[0];
     }
 
     @Benchmark
     @Threads(2)
     @OperationsPerInvocation(64 * N)
-    public long multiSpinTwoThreads(Problem p, Replica r) {
-        return multiSpin(p, r);
+    public long multiSpinTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return multiSpin(p, r, c);
     }
 
     /** Runs the five benchmarks briefly and prints attempts/ns and the ratios to the baseline. */
@@ -164,16 +198,24 @@ public class SamplerBench {
                 .measurementIterations(3).measurementTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2)).build();
         Collection<RunResult> results = new Runner(opt).run();
         Map<String, Double> score = new HashMap<>();
+        Map<String, Double> perCpu = new HashMap<>();
         for (RunResult r : results) {
             String name = r.getParams().getBenchmark();
-            score.put(name.substring(name.lastIndexOf('.') + 1), r.getPrimaryResult().getScore());
+            String k = name.substring(name.lastIndexOf('.') + 1);
+            score.put(k, r.getPrimaryResult().getScore());
+            double attempts = r.getSecondaryResults().get("attempts").getScore();
+            double cpu = r.getSecondaryResults().get("cpuNanos").getScore();
+            perCpu.put(k, attempts / cpu);
         }
         double base = score.get("baseline");
-        System.out.printf("%-22s %14s %10s%n", "kernel", "attempts/ns", "x baseline");
+        double baseCpu = perCpu.get("baseline");
+        System.out.printf("%-22s %12s %10s %16s %10s%n", "kernel", "attempts/ns", "x baseline", "attempts/cpu-ns",
+                "x baseline");
         for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "multiSpin", "multiSpinTwoThreads"}) {
-            System.out.printf("%-22s %14.4f %10.2f%n", k, score.get(k), score.get(k) / base);
+            System.out.printf("%-22s %12.4f %10.2f %16.4f %10.2f%n", k, score.get(k), score.get(k) / base,
+                    perCpu.get(k), perCpu.get(k) / baseCpu);
         }
-        System.out.printf("two threads / one: exact %.2f, multi-spin %.2f%n",
+        System.out.printf("wall-clock, two threads / one: exact %.2f, multi-spin %.2f%n",
                 score.get("exactTwoThreads") / score.get("exact"), score.get("multiSpinTwoThreads") / score.get("multiSpin"));
     }
 }

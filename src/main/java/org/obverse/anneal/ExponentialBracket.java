@@ -8,7 +8,7 @@ package org.obverse.anneal;
  * the correctly specified fdlibm function, hence semi-monotonic). So u &lt; e_{k+1} accepts,
  * u ≥ e_k rejects, and only u inside the bracket (probability ≈ δ·exp(−x)) computes
  * StrictMath.exp(−x) itself. The index is exact: δ is a power of two. Past x = 32 the table's
- * last entry bounds the value. Immutable, shared by all threads.
+ * last entry bounds the value (and 0 below it). Immutable, shared by all threads.
  */
 public final class ExponentialBracket {
     /** Table step δ = 2⁻⁵. */
@@ -17,12 +17,15 @@ public final class ExponentialBracket {
     /** Largest tabulated x. */
     public static final double LIMIT = 32.0;
     private static final int SIZE = (int) (LIMIT * INVERSE_STEP) + 1;
-    private static final double[] TABLE = new double[SIZE + 1];
+    // TABLE[k] = exp(-k δ) for k <= SIZE; one more entry, 0, closes the overflow bracket.
+    private static final double[] TABLE = new double[SIZE + 2];
+    private static final double LAST_BIN = SIZE;
 
     static {
         for (int k = 0; k <= SIZE; k++) {
             TABLE[k] = StrictMath.exp(-k * STEP);
         }
+        TABLE[SIZE + 1] = 0.0;
     }
 
     private ExponentialBracket() {
@@ -45,5 +48,20 @@ public final class ExponentialBracket {
             return false;
         }
         return u < StrictMath.exp(-x);
+    }
+
+    /**
+     * Whether u &lt; StrictMath.exp(−x) for any finite x (x ≤ 0 always accepts) and u in
+     * [0, 1); equal to the exact comparison for every input. Written with one rarely taken
+     * branch (the bracket), so that the caller's accept branch is the only unpredictable one.
+     */
+    public static boolean acceptsAny(double x, double u) {
+        double clamped = Math.max(x, 0.0);
+        int k = (int) Math.min(clamped * INVERSE_STEP, LAST_BIN);
+        boolean accept = (u < TABLE[k + 1]) | (x <= 0.0);
+        if (!accept & (u < TABLE[k])) {
+            accept = u < StrictMath.exp(-x);
+        }
+        return accept;
     }
 }

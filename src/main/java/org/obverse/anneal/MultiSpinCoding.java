@@ -238,9 +238,14 @@ public final class MultiSpinCoding {
     private static long decide(long undecided, long e0, long p0, long e1, long p1, long e2, long p2, long e3, long p3,
                                UniformRandomProvider rng) {
         long below = 0;
-        for (int bit = 63; bit >= 0 && undecided != 0; bit--) {
-            long pb = (e0 & -((p0 >>> bit) & 1L)) | (e1 & -((p1 >>> bit) & 1L))
-                    | (e2 & -((p2 >>> bit) & 1L)) | (e3 & -((p3 >>> bit) & 1L));
+        // The threshold bits are taken from the top: p >> 63 (arithmetic) is all ones where
+        // the top bit is set; then each threshold shifts left by one.
+        for (int bit = 0; bit < 64 && undecided != 0; bit++) {
+            long pb = (e0 & (p0 >> 63)) | (e1 & (p1 >> 63)) | (e2 & (p2 >> 63)) | (e3 & (p3 >> 63));
+            p0 <<= 1;
+            p1 <<= 1;
+            p2 <<= 1;
+            p3 <<= 1;
             long r = rng.nextLong();
             below |= undecided & ~r & pb;
             undecided &= ~(r ^ pb);

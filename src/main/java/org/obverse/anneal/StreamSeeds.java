@@ -23,6 +23,9 @@ public final class StreamSeeds {
     /** Stream of the static per-coupler offsets of a simulated device. */
     public static final long COUPLER_OFFSETS = 4;
 
+    /** Stream of the per-gauge seeds when one call samples every gauge of a manifest. */
+    public static final long GAUGES = 5;
+
     private static final long GOLDEN = 0x9E3779B97F4A7C15L;
 
     private StreamSeeds() {
@@ -33,6 +36,14 @@ public final class StreamSeeds {
         z = (z ^ (z >>> 30)) * 0xBF58476D1CE4E5B9L;
         z = (z ^ (z >>> 27)) * 0x94D049BB133111EBL;
         return z ^ (z >>> 31);
+    }
+
+    /**
+     * A seed for item {@code index} of stream {@code tag} under {@code seed}: the first state
+     * word of {@link #generator}, so that nearby seeds and indices give unrelated seeds.
+     */
+    public static long derive(long seed, long tag, long index) {
+        return mix(seed ^ mix(tag * GOLDEN + index));
     }
 
     /** The generator of item {@code index} of stream {@code tag} under {@code seed}. */

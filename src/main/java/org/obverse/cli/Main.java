@@ -24,7 +24,9 @@ import picocli.CommandLine.Command;
             DecodeCommand.class,
             ScoreCommand.class,
             ReportCommand.class,
+            SampleCommand.class,
             SpectrumCommand.class,
+            DemoCommand.class,
         })
 public final class Main implements Runnable {
     public static final int DONE = 0;

@@ -23,7 +23,7 @@ import picocli.CommandLine.Option;
         description = {"Scores a campaign as 'score' does and writes DIR/report.html (self-contained: plots embedded "
                 + "as PNG) with DIR/plots/*.png and *.svg, and the score CSV files: TTS and success against the "
                 + "setting with bootstrap bands, per-gauge success, comparisons, and the bias map of the qubits "
-                + "when --magnetisation is given."})
+                + "when --magnetisation is given (and of the couplers with --correlations)."})
 public final class ReportCommand implements Callable<Integer> {
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
@@ -38,9 +38,18 @@ public final class ReportCommand implements Callable<Integer> {
             description = "device-frame magnetisation per qubit and gauge (CSV qubit,gauge,reads,sum_spin[,sign])")
     Path magnetisation;
 
+    @Option(names = "--correlations", paramLabel = "C",
+            description = "device-frame coupler correlations per gauge (CSV qubit_a,qubit_b,gauge,reads,sum_product[,sign])")
+    Path correlations;
+
     @Option(names = "--alpha", defaultValue = "0.01",
             description = "family-wise false-positive rate of the bias flags (default ${DEFAULT-VALUE})")
     double alpha;
+
+    @Option(names = "--balanced-gauges",
+            description = "the gauges flip every qubit (coupler) in exactly half of them: without a sign column, use "
+                    + "the read-based error alone (more power); otherwise the gauge scatter is allowed for")
+    boolean balanced;
 
     @Option(names = "--force", description = "replace an existing output directory")
     boolean force;
@@ -57,11 +66,22 @@ public final class ReportCommand implements Callable<Integer> {
         if (magnetisation != null) {
             MagnetisationTable.Loaded m = MagnetisationTable.read(magnetisation);
             try {
-                bias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha);
+                bias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha, balanced);
             } catch (IllegalArgumentException e) {
                 throw BadInputException.at(magnetisation, "", e.getMessage(), "check the sums against the reads");
             }
             qubits = m.qubits();
+        }
+        BiasDiagnostics.Result couplerBias = null;
+        List<int[]> couplers = List.of();
+        if (correlations != null) {
+            MagnetisationTable.Couplers m = MagnetisationTable.readCouplers(correlations);
+            try {
+                couplerBias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha, balanced);
+            } catch (IllegalArgumentException e) {
+                throw BadInputException.at(correlations, "", e.getMessage(), "check the sums against the reads");
+            }
+            couplers = m.couplers();
         }
         ScoringOptions.Scored scored = scoring.score(spec.commandLine().getErr());
         ScoreFiles.Tables tables = ScoreFiles.tables(scored.summary(), scored.sweepName());
@@ -76,9 +96,13 @@ public final class ReportCommand implements Callable<Integer> {
         if (bias != null) {
             figures.add(ReportPlots.biasMap(bias, qubits));
         }
+        if (couplerBias != null) {
+            figures.add(ReportPlots.couplerMap(couplerBias, couplers.size()));
+        }
         String html = HtmlReport.page(scored.summary(), tables, new HtmlReport.Inputs(scoring.results.toString(),
                 scoring.ground == null ? null : scoring.ground.toString(), scored.rule(), scored.sweepName(),
-                magnetisation == null ? null : magnetisation.toString()), figures, bias, qubits);
+                magnetisation == null ? null : magnetisation.toString(),
+                correlations == null ? null : correlations.toString()), figures, bias, qubits, couplerBias, couplers);
         String json = ScoreFiles.json(scored.summary(), tables, scored.rule(), scoring.results.toString(),
                 scoring.ground == null ? null : scoring.ground.toString(), scored.sweepName());
         AtomicOutput.writeDirectory(out, force, dir -> {
@@ -92,7 +116,8 @@ public final class ReportCommand implements Callable<Integer> {
             Files.writeString(dir.resolve("scores.json"), json);
         });
         spec.commandLine().getOut().println("wrote " + out.resolve("report.html") + " (" + figures.size() + " plots"
-                + (bias == null ? "" : ", " + bias.flagged().size() + " qubit(s) flagged") + ")");
+                + (bias == null ? "" : ", " + bias.flagged().size() + " qubit(s) flagged")
+                + (couplerBias == null ? "" : ", " + couplerBias.flagged().size() + " coupler(s) flagged") + ")");
         return Main.DONE;
     }
 }

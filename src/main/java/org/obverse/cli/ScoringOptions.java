@@ -66,6 +66,14 @@ final class ScoringOptions {
     @Option(names = "--rel-tol", defaultValue = "1e-9", description = "relative success tolerance (default ${DEFAULT-VALUE})")
     double relativeTolerance;
 
+    /** How deep the bootstrap resamples. */
+    enum Depth { instances, gauges, reads }
+
+    @Option(names = "--resample", defaultValue = "reads",
+            description = "deepest level the bootstrap resamples: instances, gauges (and instances) or reads "
+                    + "(and gauges and instances; the default)")
+    Depth resample;
+
     @Option(names = "--quiet", description = "no progress lines")
     boolean quiet;
 
@@ -105,7 +113,7 @@ final class ScoringOptions {
         SummaryOptions options;
         try {
             options = new SummaryOptions(target, confidence, quantile, band, outerBand, seed, replicates, threads,
-                    pairs, order, values);
+                    resample != Depth.instances, resample == Depth.reads, pairs, order, values);
             options.plan();
         } catch (IllegalArgumentException e) {
             throw new BadInputException("options: " + e.getMessage() + " (see --help)");

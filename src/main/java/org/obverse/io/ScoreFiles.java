@@ -241,7 +241,9 @@ public final class ScoreFiles {
         tol.put("absolute", rule.absolute());
         tol.put("relative", rule.relative());
         ObjectNode boot = root.putObject("bootstrap");
-        boot.put("scheme", "instances, then gauges within an instance, then reads within a gauge (binomial)");
+        boot.put("scheme", !o.resampleGauges() && !o.resampleReads() ? "instances"
+                : o.resampleReads() && o.resampleGauges() ? "instances, then gauges within an instance, then reads within a gauge (binomial)"
+                : o.resampleGauges() ? "instances, then gauges within an instance" : "instances, then reads within a gauge (binomial)");
         boot.put("generator", "XO_RO_SHI_RO_128_PP");
         boot.put("seed", o.seed());
         boot.put("replicates", o.replicates());

@@ -451,6 +451,18 @@ public final class DegreeBoundedSpanningTree {
     }
 
     /**
+     * As {@link #decode(byte[])} for a read given as spins (−1 for x = 0, +1 for x = 1), the
+     * way samples of the QUBO's spin form come back.
+     */
+    public Optional<int[]> decodeSpins(byte[] spins) {
+        byte[] x = new byte[spins.length];
+        for (int k = 0; k < x.length; k++) {
+            x[k] = (byte) (spins[k] > 0 ? 1 : 0);
+        }
+        return decode(x);
+    }
+
+    /**
      * Whether a set of edges is a spanning tree that keeps every degree bound and the depth
      * bound (measured from the root).
      */

@@ -60,6 +60,18 @@ public record WindArray(List<String> sites, double[] x, double[] y, int[][] cabl
         return DegreeBoundedSpanningTree.of(sites.size(), 0, cables, cableLengths(), bays, maxString);
     }
 
+    /** A layout for a person: "S-T1, S-T2, T1-T3 (3.268 km)". */
+    public String describe(int[] cableNumbers) {
+        StringBuilder b = new StringBuilder();
+        double km = 0;
+        double[] len = cableLengths();
+        for (int e : cableNumbers) {
+            b.append(b.length() == 0 ? "" : ", ").append(cableName(e));
+            km += len[e];
+        }
+        return b.append(String.format(java.util.Locale.ROOT, " (%.3f km)", km)).toString();
+    }
+
     /** A cable by name, e.g. "S-T1". */
     public String cableName(int e) {
         return sites.get(cables[e][0]) + "-" + sites.get(cables[e][1]);

@@ -25,12 +25,14 @@ public final class HtmlReport {
     }
 
     /** What the page is about. */
-    public record Inputs(String results, String ground, SuccessRule rule, String sweepName, String magnetisation) {
+    public record Inputs(String results, String ground, SuccessRule rule, String sweepName, String magnetisation,
+            String correlations) {
     }
 
     /** The page. */
     public static String page(CampaignSummary summary, ScoreFiles.Tables tables, Inputs inputs, List<Figure> figures,
-            BiasDiagnostics.Result bias, List<Integer> qubitIds) {
+            BiasDiagnostics.Result bias, List<Integer> qubitIds, BiasDiagnostics.Result couplerBias,
+            List<int[]> couplers) {
         Campaign c = summary.campaign();
         var o = summary.options();
         StringBuilder h = new StringBuilder(1 << 16);
@@ -64,7 +66,9 @@ public final class HtmlReport {
         h.append("<li>Over instances: the ").append(o.quantile() == 0.5 ? "median" : num(o.quantile()) + " quantile")
                 .append(" (Hyndman–Fan type 7; ∞ sorts above every finite value and a positive interpolation weight on")
                 .append(" ∞ gives ∞).</li>\n");
-        h.append("<li>Bands: hierarchical bootstrap (instances, then gauges, then reads as binomial draws), ")
+        String scheme = o.resampleReads() && o.resampleGauges() ? "instances, then gauges, then reads as binomial draws"
+                : o.resampleGauges() ? "instances, then gauges" : o.resampleReads() ? "instances, then reads" : "instances only";
+        h.append("<li>Bands: hierarchical bootstrap (").append(scheme).append("), ")
                 .append(o.replicates()).append(" replicates, seed ").append(o.seed()).append(", percentiles ")
                 .append(num(100 * o.band()[0])).append("–").append(num(100 * o.band()[1])).append(" and ")
                 .append(num(100 * o.outerBand()[0])).append("–").append(num(100 * o.outerBand()[1]))
@@ -177,6 +181,25 @@ public final class HtmlReport {
             for (BiasDiagnostics.Item it : top) {
                 h.append("<tr><td>").append(rank++).append("</td><td>").append(qubitIds.get(it.item())).append("</td><td>")
                         .append(it.gauges()).append("</td><td>").append(it.reads()).append("</td><td>")
+                        .append(num(it.bias())).append("</td><td>").append(num(it.stdError())).append("</td><td>")
+                        .append(num(it.z())).append("</td><td class=\"l\">")
+                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : "no").append("</td></tr>\n");
+            }
+            h.append("</table>\n");
+        }
+        if (couplerBias != null) {
+            h.append("<h2>Bias of the couplers</h2>\n<p>From <code>").append(esc(inputs.correlations()))
+                    .append("</code>: ").append(couplerBias.items().size()).append(" couplers; ")
+                    .append(couplerBias.flagged().size()).append(" flagged at |z| &gt; ").append(num(couplerBias.threshold()))
+                    .append(" (family-wise false-positive rate ").append(num(couplerBias.alpha())).append(").</p>\n");
+            figure(h, figures, "coupler-bias");
+            h.append("<table>\n<tr><th>rank</th><th>coupler</th><th>gauges</th><th>reads</th><th>bias</th>")
+                    .append("<th>standard error</th><th>z</th><th class=\"l\">flagged</th></tr>\n");
+            int rank = 1;
+            for (BiasDiagnostics.Item it : couplerBias.items().subList(0, Math.min(20, couplerBias.items().size()))) {
+                int[] pair = couplers.get(it.item());
+                h.append("<tr><td>").append(rank++).append("</td><td>").append(pair[0]).append("–").append(pair[1])
+                        .append("</td><td>").append(it.gauges()).append("</td><td>").append(it.reads()).append("</td><td>")
                         .append(num(it.bias())).append("</td><td>").append(num(it.stdError())).append("</td><td>")
                         .append(num(it.z())).append("</td><td class=\"l\">")
                         .append(it.flagged() ? "<span class=\"flag\">yes</span>" : "no").append("</td></tr>\n");

@@ -197,9 +197,25 @@ public final class ReportPlots {
 
     /** The bias map: z-score of each qubit's gauge-averaged device-frame magnetisation. */
     public static Figure biasMap(BiasDiagnostics.Result result, List<Integer> qubitIds) throws IOException {
+        return biasMap(result, qubitIds, false);
+    }
+
+    /** The coupler map: z-score of each coupler's gauge-averaged device-frame correlation (x: coupler number). */
+    public static Figure couplerMap(BiasDiagnostics.Result result, int couplers) throws IOException {
+        List<Integer> x = new ArrayList<>();
+        for (int k = 0; k < couplers; k++) {
+            x.add(k + 1);
+        }
+        return biasMap(result, x, true);
+    }
+
+    private static Figure biasMap(BiasDiagnostics.Result result, List<Integer> qubitIds, boolean couplers)
+            throws IOException {
         XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT)
-                .title("Device-frame magnetisation averaged over gauges: z-score per qubit")
-                .xAxisTitle("qubit id").yAxisTitle("z = bias / standard error").build();
+                .title(couplers ? "Device-frame correlation averaged over gauges: z-score per coupler"
+                        : "Device-frame magnetisation averaged over gauges: z-score per qubit")
+                .xAxisTitle(couplers ? "coupler (numbered in order of its qubit ids)" : "qubit id")
+                .yAxisTitle("z = bias / standard error").build();
         style(chart);
         chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
         List<Double> qx = new ArrayList<>();
@@ -225,7 +241,7 @@ public final class ReportPlots {
             t.setShowInLegend(sign > 0);
         }
         if (!qx.isEmpty()) {
-            XYSeries s = chart.addSeries("qubits", qx, qz);
+            XYSeries s = chart.addSeries(couplers ? "couplers" : "qubits", qx, qz);
             s.setMarker(SeriesMarkers.CIRCLE);
             s.setMarkerColor(MAIN);
         }
@@ -236,11 +252,12 @@ public final class ReportPlots {
         }
         chart.getStyler().setYAxisMin(-zMax * 1.1);
         chart.getStyler().setYAxisMax(zMax * 1.1);
-        return Figure.render("bias", "Each point is a qubit: its device-frame magnetisation averaged over gauges "
+        String what = couplers ? "a coupler: its device-frame correlation s_a s_b" : "a qubit: its device-frame magnetisation";
+        return Figure.render(couplers ? "coupler-bias" : "bias", "Each point is " + what + " averaged over gauges "
                 + "(the logical part flips sign with the gauge and cancels, a device bias does not), divided by its "
                 + "standard error. Dashed lines: |z| = " + String.format(Locale.ROOT, "%.2f", result.threshold())
                 + ", the Bonferroni threshold for a family-wise false-positive rate of " + result.alpha() + ". "
-                + result.flagged().size() + " qubit(s) flagged.", chart);
+                + result.flagged().size() + (couplers ? " coupler(s)" : " qubit(s)") + " flagged.", chart);
     }
 
     private interface Value {

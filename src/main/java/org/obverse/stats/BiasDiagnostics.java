@@ -17,12 +17,13 @@ import java.util.List;
  * g_i·g_j for a coupler) it is the intercept of the least-squares fit m_ig = a_i σ_ig + b_i,
  * which separates the logical part a_i from the bias whatever the gauges. b_i = Σ_g c_g m_ig
  * for fixed weights c_g, so its standard error from the reads is √(Σ c_g² (1 − m_ig²) /
- * reads_ig) (a ±1 variable with mean m has variance 1 − m²); with signs, from the scatter of
- * the gauges about the fit it is √(Σ c_g² · RSS / (G − 2)), and the z-score divides b_i by
- * the larger of the two, so extra gauge-to-gauge variation (drift) never inflates it. Without
- * signs only the read-based error is used: the scatter then holds the flipping logical part,
- * and the estimate assumes balanced gauges (with unbalanced random gauges and no signs a
- * qubit with a large logical magnetisation can be flagged: pass the signs).
+ * reads_ig) (a ±1 variable with mean m has variance 1 − m²); from the scatter of the gauges
+ * (about the fit with signs, about the mean without) it is √(Σ c_g² · RSS / dof). The z-score
+ * divides b_i by the larger of the two, so gauge-to-gauge variation never inflates it. Without
+ * signs the scatter also holds the flipping logical part: with random gauges its leftover in
+ * the mean, μ_i · mean(σ_ig), has about that spread, so the larger error keeps the
+ * false-positive rate; a caller that knows its gauges are balanced (the logical part cancels
+ * exactly) may ask for the read-based error alone, which detects much smaller biases.
  *
  * <p>Flags: |z| above Φ⁻¹(1 − α / (2 m)) for m tested items (Bonferroni), so with no bias
  * the chance that any item is flagged is at most about α (normal approximation, many reads).
@@ -69,6 +70,16 @@ public final class BiasDiagnostics {
      * {@code signs[g][i]} ∈ {−1, +1} the gauge's sign of the item (null: assume balanced).
      */
     public static Result diagnose(double[][] sums, long[][] reads, byte[][] signs, double alpha) {
+        return diagnose(sums, reads, signs, alpha, false);
+    }
+
+    /**
+     * As {@link #diagnose(double[][], long[][], byte[][], double)}; with {@code balancedGauges}
+     * and no signs, the standard error is the read-based one alone (valid only when every
+     * item is flipped in exactly half of the gauges).
+     */
+    public static Result diagnose(double[][] sums, long[][] reads, byte[][] signs, double alpha,
+            boolean balancedGauges) {
         if (!(alpha > 0) || !(alpha < 1)) {
             throw new IllegalArgumentException("alpha must be in (0, 1), got " + alpha);
         }
@@ -108,7 +119,7 @@ public final class BiasDiagnostics {
             if (n == 0) {
                 continue;
             }
-            found.add(item(i, n, total, m, var, x, signs != null));
+            found.add(item(i, n, total, m, var, x, signs != null, balancedGauges && signs == null));
         }
         int tested = Math.max(1, found.size());
         double threshold = SpecialFunctions.normalQuantile(1 - alpha / (2.0 * tested));
@@ -121,7 +132,8 @@ public final class BiasDiagnostics {
         return new Result(List.copyOf(ranked), threshold, alpha);
     }
 
-    private static Item item(int index, int n, long total, double[] m, double[] var, double[] x, boolean withSigns) {
+    private static Item item(int index, int n, long total, double[] m, double[] var, double[] x, boolean withSigns,
+            boolean readsOnly) {
         double xMean = 0;
         for (int g = 0; g < n; g++) {
             xMean += x[g];
@@ -163,10 +175,8 @@ public final class BiasDiagnostics {
             double resid = m[g] - bias - slope * (fit ? x[g] : 0);
             rss += resid * resid;
         }
-        // Without signs the gauge scatter holds the flipping logical part, not noise: only the
-        // read-based error applies (valid for balanced gauges).
-        int dof = n - 2;
-        double gaugeVar = fit && dof > 0 ? sumC2 * rss / dof : 0;
+        int dof = n - (fit ? 2 : 1);
+        double gaugeVar = !readsOnly && dof > 0 ? sumC2 * rss / dof : 0;
         double se = Math.sqrt(Math.max(readVar, gaugeVar));
         double z = se > 0 ? bias / se : (bias == 0 ? 0 : Math.copySign(Double.POSITIVE_INFINITY, bias));
         return new Item(index, n, total, bias, se, z, false);

@@ -16,12 +16,15 @@ import java.util.List;
  * @param seed        bootstrap seed
  * @param replicates  bootstrap replicates
  * @param threads     worker threads
+ * @param resampleGauges whether the bootstrap resamples gauges within an instance
+ * @param resampleReads  whether it redraws reads within a gauge
  * @param pairs       compared setting pairs (indices into the campaign's settings)
  * @param sweepOrder  swept settings in ascending swept value (null: no sweep)
  * @param sweepValues the swept values in the same order (null: no sweep)
  */
 public record SummaryOptions(double target, double confidence, double quantile, double[] band, double[] outerBand,
-        long seed, int replicates, int threads, List<int[]> pairs, int[] sweepOrder, double[] sweepValues) {
+        long seed, int replicates, int threads, boolean resampleGauges, boolean resampleReads, List<int[]> pairs,
+        int[] sweepOrder, double[] sweepValues) {
 
     /** Validates once. */
     public SummaryOptions {
@@ -48,11 +51,11 @@ public record SummaryOptions(double target, double confidence, double quantile, 
     public static SummaryOptions defaults(long seed) {
         return new SummaryOptions(TimeToSolution.DEFAULT_TARGET, 0.95, 0.5, new double[] {0.35, 0.65},
                 new double[] {0.05, 0.95}, seed, 1000, Math.max(1, Math.min(2, Runtime.getRuntime().availableProcessors())),
-                List.of(), null, null);
+                true, true, List.of(), null, null);
     }
 
     /** The bootstrap plan these options imply. */
     public BootstrapPlan plan() {
-        return new BootstrapPlan(seed, replicates, quantile, target, true, true, threads, pairs);
+        return new BootstrapPlan(seed, replicates, quantile, target, resampleGauges, resampleReads, threads, pairs);
     }
 }

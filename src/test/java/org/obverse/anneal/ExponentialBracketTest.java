@@ -17,6 +17,7 @@ class ExponentialBracketTest extends QuietTest {
         Seeds.forEachCase(5, 9100, (rng, seed) -> {
             for (int t = 0; t < 200_000; t++) {
                 double x = rng.nextInt(4) == 0 ? rng.nextInt(1100) * ExponentialBracket.STEP : 40.0 * rng.nextDouble();
+                x = rng.nextInt(50) == 0 ? 0.0 : x;
                 double exact = StrictMath.exp(-x);
                 double u;
                 switch (rng.nextInt(4)) {
@@ -35,6 +36,11 @@ class ExponentialBracketTest extends QuietTest {
                 }
                 if (x > 0 && u < 1.0) {
                     assertThat(ExponentialBracket.accepts(x, u)).as("x %s, u %s", x, u).isEqualTo(u < exact);
+                }
+                double any = rng.nextInt(8) == 0 ? -x : x;
+                if (u < 1.0) {
+                    assertThat(ExponentialBracket.acceptsAny(any, u)).as("x %s, u %s", any, u)
+                            .isEqualTo(u < StrictMath.exp(-any));
                 }
             }
         });

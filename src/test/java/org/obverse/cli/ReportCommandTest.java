@@ -42,10 +42,13 @@ class ReportCommandTest extends QuietTest {
         }
         Path mag = dir.resolve("mag.csv");
         Files.writeString(mag, m);
+        Path cor = dir.resolve("cor.csv");
+        Files.writeString(cor, "qubit_a,qubit_b,gauge,reads,sum_product,sign\n100,101,0,400,10,1\n101,100,1,400,-12,-1\n"
+                + "101,102,0,400,380,1\n101,102,1,400,390,-1\n");
         Path out = dir.resolve("report");
         ScoreCommandTest.Run r = ScoreCommandTest.run("report", "--results", res.toString(), "--ground", gr.toString(),
                 "--out", out.toString(), "--replicates", "100", "--compare", "anneal=40", "anneal=10",
-                "--sweep", "anneal_us", "--magnetisation", mag.toString());
+                "--sweep", "anneal_us", "--magnetisation", mag.toString(), "--correlations", cor.toString());
         assertThat(r.code()).as(r.err()).isZero();
         assertThat(r.out()).contains("1 qubit(s) flagged");
         String html = Files.readString(out.resolve("report.html"));
@@ -57,8 +60,11 @@ class ReportCommandTest extends QuietTest {
             assertThat(b.getWidth()).isGreaterThanOrEqualTo(600);
             images++;
         }
-        assertThat(images).isEqualTo(5);
-        for (String name : new String[] {"tts", "success", "gauges", "compare-1", "bias"}) {
+        assertThat(images).isEqualTo(6);
+        // Coupler 101-102 stays correlated (+0.95, +0.975) whatever its gauge sign: a device bias.
+        assertThat(r.out()).contains("1 coupler(s) flagged");
+        assertThat(html).contains("<td>101–102</td>");
+        for (String name : new String[] {"tts", "success", "gauges", "compare-1", "bias", "coupler-bias"}) {
             assertThat(out.resolve("plots/" + name + ".png")).exists();
             assertThat(Files.readString(out.resolve("plots/" + name + ".svg"))).contains("<svg");
         }

@@ -179,6 +179,13 @@ class DegreeBoundedSpanningTreeTest extends QuietTest {
             names.add(w.cableName(e));
         }
         assertThat(names).containsExactlyInAnyOrder("S-T1", "S-T2", "T1-T3");
+        // Lengths by Pythagoras from the invented coordinates: 1.0440 + 1.2042 + 1.0198.
+        assertThat(w.describe(best.edges())).isEqualTo("S-T1, S-T2, T1-T3 (3.268 km)");
+        byte[] spins = new byte[best.assignment().length];
+        for (int k = 0; k < spins.length; k++) {
+            spins[k] = (byte) (2 * best.assignment()[k] - 1);
+        }
+        assertThat(t.decodeSpins(spins)).hasValueSatisfying(e -> assertThat(e).isEqualTo(best.edges()));
         // Without bays the shortest tree puts three cables into T1 (Kruskal by hand on the five
         // candidate lengths): the bound changes the answer.
         int[] free = {9, 9, 9, 9};

@@ -39,6 +39,22 @@ class HierarchicalBootstrapTest extends QuietTest {
     }
 
     @Test
+    void goldenReplicates() {
+        // Golden vector: replicate medians for a fixed three-instance campaign and seed 2026.
+        // Any change in the stream derivation, the draw order or the sampler changes these digits.
+        Campaign c = Campaign.builder().ground("a", 0, true).ground("b", 0, true).ground("c", 0, true)
+                .add("a", "s", 0, 100, 10, 0, 2000, 0, 0).add("a", "s", 1, 100, 30, 0, 2000, 0, 0)
+                .add("b", "s", 0, 100, 50, 0, 2000, 0, 0).add("b", "s", 1, 100, 0, 0, 2000, 0, 0)
+                .add("c", "s", 0, 100, 5, 0, 2000, 0, 0).add("c", "s", 1, 100, 7, 0, 2000, 0, 0).build();
+        for (int threads = 1; threads <= 2; threads++) {
+            BootstrapResult r = HierarchicalBootstrap.run(c, BootstrapPlan.of(2026, 5).withThreads(threads), null);
+            assertThat(r.ttsReplicates(0)).containsExactly(238.81867773563218, 1370.407932595983, 450.2355174449124,
+                    380.48006656911275, 370.69508103716623);
+            assertThat(r.pReplicates(0)).containsExactly(0.32, 0.065, 0.185, 0.215, 0.22);
+        }
+    }
+
+    @Test
     void pointEstimateIsTheMedianOverInstances() {
         Campaign c = campaign(4);
         BootstrapResult res = HierarchicalBootstrap.run(c, BootstrapPlan.of(1, 4), null);

@@ -1,0 +1,198 @@
+package org.obverse.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.obverse.anneal.AnnealSchedule;
+import org.obverse.anneal.ControlErrors;
+import org.obverse.anneal.ReferenceSampler;
+import org.obverse.anneal.SampleSet;
+import org.obverse.anneal.SamplerSettings;
+import org.obverse.anneal.StreamSeeds;
+import org.obverse.io.AtomicOutput;
+import org.obverse.io.BadInputException;
+import org.obverse.io.ControlErrorsCodec;
+import org.obverse.io.GaugeManifest;
+import org.obverse.io.ManifestCodec;
+import org.obverse.io.NpyVectors;
+import org.obverse.io.ProblemCodec;
+import org.obverse.io.ProblemFile;
+import org.obverse.io.SampleCoding;
+import org.obverse.io.SampleFiles;
+import org.obverse.io.SampleFormat;
+import org.obverse.io.SampleWriter;
+import org.obverse.io.ScheduleCodec;
+import picocli.CommandLine.ArgGroup;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code obverse sample}: reads from the reference sampler (simulated annealing emulating an
+ * imperfect analog machine) for one problem, or for every gauged problem of a manifest.
+ */
+@Command(name = "sample", mixinStandardHelpOptions = true,
+        description = "Samples a problem with the reference sampler (simulated annealing with an anneal schedule and "
+                + "a control-error model; seeded, the same output whatever the thread count). With --problem writes "
+                + "OUT (.npy or .csv) and OUT's stem + .energies.npy; with --manifest writes OUT/<stem>.npy and "
+                + "OUT/<stem>.energies.npy for every gauge.")
+public final class SampleCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    static final class Input {
+        @Option(names = "--problem", required = true, paramLabel = "P", description = "the problem (obverse.problem/1)")
+        Path problem;
+
+        @Option(names = "--manifest", required = true, paramLabel = "M",
+                description = "a gauges manifest: sample every gauged problem it lists")
+        Path manifest;
+    }
+
+    @ArgGroup(exclusive = true, multiplicity = "1")
+    Input input;
+
+    @Option(names = "--reads", required = true, paramLabel = "N", description = "reads per problem (>= 1)")
+    int reads;
+
+    @Option(names = "--seed", required = true, paramLabel = "S",
+            description = "seed; with --manifest gauge i is sampled with a seed derived from S and i")
+    long seed;
+
+    @Option(names = "--schedule", paramLabel = "F", description = "anneal schedule (obverse.schedule/1); default linear 1 us")
+    Path schedule;
+
+    @Option(names = "--errors", paramLabel = "F", description = "control-error model (obverse.errors/1); default none")
+    Path errors;
+
+    @Option(names = "--out", required = true, paramLabel = "OUT",
+            description = "samples file (.npy or .csv) with --problem; a folder (must not exist) with --manifest")
+    Path out;
+
+    @Option(names = "--kernel", paramLabel = "K", description = "exact (default) or multi-spin (one coupling magnitude, no errors)")
+    String kernel = "exact";
+
+    @Option(names = "--sweeps-per-us", paramLabel = "X", description = "Metropolis sweeps per microsecond of schedule (default 1000)")
+    double sweepsPerMicrosecond = SamplerSettings.DEFAULT_SWEEPS_PER_MICROSECOND;
+
+    @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
+    Integer threads;
+
+    @Option(names = "--binary", description = "store samples as 0/1 (x = (1 + s) / 2) instead of -1/+1")
+    boolean binary;
+
+    @Option(names = "--force", description = "replace existing outputs")
+    boolean force;
+
+    @Override
+    public Integer call() throws Exception {
+        if (reads < 1) {
+            throw new BadInputException("--reads " + reads + ": need at least 1 read");
+        }
+        SamplerSettings settings = settings();
+        ReferenceSampler sampler = ReferenceSampler.of(settings);
+        PrintWriter w = spec.commandLine().getOut();
+        SampleCoding coding = binary ? SampleCoding.BINARY : SampleCoding.SPIN;
+        if (input.problem != null) {
+            ProblemFile pf = ProblemCodec.read(input.problem);
+            Path energiesFile = energiesBeside(out);
+            AtomicOutput.checkTarget(out, force);
+            AtomicOutput.checkTarget(energiesFile, force);
+            SampleSet s = sample(sampler, pf, seed);
+            writeSamples(out, s, force, coding);
+            NpyVectors.writeFloat64(energiesFile, force, s.energies());
+            w.printf("sampled %d reads of %d variables (%d sweeps, %s us a read), minimum energy %s%n", s.reads(),
+                    s.variables().size(), s.sweeps(), s.runTimeMicros(), s.minimumEnergy());
+            w.printf("wrote %s and %s%n", out, energiesFile);
+            return Main.DONE;
+        }
+        GaugeManifest m = ManifestCodec.read(input.manifest);
+        Path folder = input.manifest.toAbsolutePath().getParent();
+        List<String> lines = new ArrayList<>();
+        AtomicOutput.writeDirectory(out, force, dir -> {
+            for (GaugeManifest.Entry e : m.gauges()) {
+                Path file = folder.resolve(e.problem()).normalize();
+                ProblemFile pf = ProblemCodec.read(file);
+                String hash = ProblemCodec.contentHash(pf);
+                if (!hash.equals(e.sha256())) {
+                    throw BadInputException.at(file, "", "the gauged problem of gauge " + e.index()
+                            + " changed since the gauges were made (content hash " + hash.substring(0, 12)
+                            + "…, the manifest records " + e.sha256().substring(0, 12) + "…)",
+                            "restore the file or draw the gauges again");
+                }
+                SampleSet s = sample(sampler, pf, StreamSeeds.derive(seed, StreamSeeds.GAUGES, e.index()));
+                writeSamples(dir.resolve(SampleFormat.NPY.fileName(e.stem())), s, false, coding);
+                NpyVectors.writeFloat64(dir.resolve(e.stem() + ".energies.npy"), false, s.energies());
+                lines.add(String.format("%s: %d reads, minimum energy %s", e.stem(), s.reads(), s.minimumEnergy()));
+            }
+        });
+        w.printf("sampled %d gauges, %d reads each (%d sweeps, %s us a read), into %s%n", m.gauges().size(), reads,
+                settings.sweeps(), settings.schedule().runTimeMicros(), out);
+        for (String line : lines) {
+            w.println(line);
+        }
+        return Main.DONE;
+    }
+
+    private SamplerSettings settings() {
+        SamplerSettings s = SamplerSettings.defaults();
+        if (schedule != null) {
+            AnnealSchedule a = ScheduleCodec.read(schedule);
+            s = s.withSchedule(a);
+        }
+        if (errors != null) {
+            ControlErrors e = ControlErrorsCodec.read(errors);
+            s = s.withErrors(e);
+        }
+        switch (kernel) {
+            case "exact":
+                break;
+            case "multi-spin":
+                s = s.withKernel(SamplerSettings.Kernel.MULTI_SPIN);
+                break;
+            default:
+                throw new BadInputException("--kernel " + kernel + ": unknown kernel; use exact or multi-spin");
+        }
+        if (!(sweepsPerMicrosecond > 0) || !Double.isFinite(sweepsPerMicrosecond)) {
+            throw new BadInputException("--sweeps-per-us " + sweepsPerMicrosecond + ": need a finite number > 0");
+        }
+        s = s.withSweepsPerMicrosecond(sweepsPerMicrosecond);
+        if (threads != null) {
+            if (threads < 1) {
+                throw new BadInputException("--threads " + threads + ": need at least 1");
+            }
+            s = s.withThreads(threads);
+        }
+        return s;
+    }
+
+    /**
+     * Samples the problem's spin form, so the energies are bit for bit those {@code obverse
+     * energy} computes for the same file and samples.
+     */
+    private SampleSet sample(ReferenceSampler sampler, ProblemFile pf, long s) {
+        return sampler.sample(pf.spin(), reads, s);
+    }
+
+    private static void writeSamples(Path target, SampleSet s, boolean force, SampleCoding coding) throws IOException {
+        try (SampleWriter writer = SampleFiles.create(target, s.variables(), force, coding)) {
+            writer.writeBlock(s.samples());
+            writer.commit();
+        }
+    }
+
+    /** {@code dir/run.npy} → {@code dir/run.energies.npy}. */
+    static Path energiesBeside(Path samples) {
+        SampleFormat.of(samples);
+        String name = samples.getFileName().toString();
+        int dot = name.lastIndexOf('.');
+        String stem = dot > 0 ? name.substring(0, dot) : name;
+        Path parent = samples.getParent();
+        Path e = Path.of(stem + ".energies.npy");
+        return parent == null ? e : parent.resolve(e);
+    }
+}

@@ -1,0 +1,72 @@
+package org.obverse.io;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.Iterator;
+import org.obverse.anneal.AnnealSchedule;
+
+/**
+ * Reads and writes {@code obverse.schedule/1}: an anneal schedule as points
+ * {@code [[t_us, s], …]} and an optional {@code max_slope_per_us} (default
+ * {@link AnnealSchedule#DEFAULT_MAX_SLOPE_PER_MICROSECOND}). The schedule's own rules (see
+ * {@link AnnealSchedule#of}) are checked and a broken one is reported with the file's name.
+ */
+public final class ScheduleCodec {
+    public static final String KIND = "schedule";
+
+    private ScheduleCodec() {
+    }
+
+    /** Reads and validates a schedule file. */
+    public static AnnealSchedule read(Path file) {
+        return fromJson(file, JsonFiles.read(file, KIND));
+    }
+
+    /** Parses a schedule from a JSON object (file names the source in messages). */
+    public static AnnealSchedule fromJson(Path file, ObjectNode root) {
+        JsonFields f = new JsonFields(file);
+        for (Iterator<String> it = root.fieldNames(); it.hasNext(); ) {
+            String k = it.next();
+            if (!k.equals("format") && !k.equals("points") && !k.equals("max_slope_per_us")) {
+                throw f.bad("\"" + k + "\"", "is not a field of " + KIND + " files",
+                        "use \"points\" and optionally \"max_slope_per_us\"");
+            }
+        }
+        JsonNode points = f.array(f.required(root, "points", "give \"points\": [[t_us, s], ...]"), "\"points\"");
+        double[] t = new double[points.size()];
+        double[] s = new double[points.size()];
+        for (int k = 0; k < points.size(); k++) {
+            String place = "points[" + k + "]";
+            JsonNode p = f.tuple(points.get(k), place, 2, "[t_us, s]");
+            t[k] = f.number(p.get(0), place + "[0]");
+            s[k] = f.number(p.get(1), place + "[1]");
+        }
+        double slope = root.has("max_slope_per_us")
+                ? f.number(root.get("max_slope_per_us"), "\"max_slope_per_us\"")
+                : AnnealSchedule.DEFAULT_MAX_SLOPE_PER_MICROSECOND;
+        try {
+            return AnnealSchedule.of(t, s, slope);
+        } catch (IllegalArgumentException e) {
+            throw f.bad("\"points\"", e.getMessage(), "fix the schedule");
+        }
+    }
+
+    /** The JSON object of a schedule (default slope limit, so it is left out). */
+    public static ObjectNode toJson(AnnealSchedule schedule) {
+        ObjectNode root = JsonFiles.MAPPER.createObjectNode();
+        root.put("format", "obverse." + KIND + "/1");
+        ArrayNode points = root.putArray("points");
+        for (int k = 0; k < schedule.pointCount(); k++) {
+            points.addArray().add(schedule.time(k)).add(schedule.fraction(k));
+        }
+        return root;
+    }
+
+    /** Writes a schedule file atomically. */
+    public static void write(Path file, boolean force, AnnealSchedule schedule) throws IOException {
+        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(schedule)));
+    }
+}
