@@ -19,7 +19,14 @@ import picocli.CommandLine.Command;
             UngaugeCommand.class,
             AuditCommand.class,
             EnergyCommand.class,
+            DeviceCommand.class,
+            EmbedCommand.class,
+            DecodeCommand.class,
+            ScoreCommand.class,
+            ReportCommand.class,
             SampleCommand.class,
+            SpectrumCommand.class,
+            DemoCommand.class,
         })
 public final class Main implements Runnable {
     public static final int DONE = 0;

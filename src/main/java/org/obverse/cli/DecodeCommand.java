@@ -1,0 +1,118 @@
+package org.obverse.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import org.obverse.embed.ChainBreakRule;
+import org.obverse.embed.ChainDecoder;
+import org.obverse.embed.Chains;
+import org.obverse.embed.DecodedSamples;
+import org.obverse.io.AtomicOutput;
+import org.obverse.io.BadInputException;
+import org.obverse.io.ChainList;
+import org.obverse.io.ChainsCodec;
+import org.obverse.io.NpyVectors;
+import org.obverse.io.ProblemCodec;
+import org.obverse.io.SampleFiles;
+import org.obverse.io.SampleFormat;
+import org.obverse.model.IsingProblem;
+import org.obverse.model.VariableIndex;
+import org.obverse.samples.SampleBlock;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code obverse decode}: physical reads to logical reads under a chain-break rule. */
+@Command(name = "decode", mixinStandardHelpOptions = true,
+        description = {"Reads physical samples of P in the source frame (columns = ascending qubit ids of P) and writes "
+                + "logical samples under a chain-break rule: DIR/logical.npy (or .csv, as the input; kept reads, columns = "
+                + "ascending logical ids), DIR/kept.npy (bool per read), DIR/broken.npy (int32 broken chains per read), "
+                + "DIR/energies.npy (logical energies of the kept reads), DIR/chains.csv (breaks per chain).",
+            "discard drops every read with a broken chain (it still counts as a read when scoring); majority takes each "
+                + "chain's majority (a tie: the value with the lower energy given the other chains, then the spin of one of "
+                + "the chain's qubits drawn with --seed); descend is majority then greedy single flips on the logical "
+                + "problem until none lowers the energy."})
+public final class DecodeCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--problem", required = true, paramLabel = "P", description = "the physical problem the samples answer")
+    Path problem;
+
+    @Option(names = "--logical", required = true, paramLabel = "Q", description = "the logical problem")
+    Path logical;
+
+    @Option(names = "--chains", required = true, paramLabel = "C", description = "the chains (obverse.chains/1)")
+    Path chains;
+
+    @Option(names = "--samples", required = true, paramLabel = "S", description = "physical samples (.npy int8 or .csv, -1/+1)")
+    Path samples;
+
+    @Option(names = "--rule", required = true, paramLabel = "discard|majority|descend", description = "the chain-break rule")
+    String rule;
+
+    @Option(names = "--seed", defaultValue = "0", paramLabel = "S", description = "seed of the tie coin (default ${DEFAULT-VALUE})")
+    long seed;
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "output folder")
+    Path out;
+
+    @Option(names = "--force", description = "replace an existing output folder")
+    boolean force;
+
+    @Override
+    public Integer call() throws Exception {
+        ChainBreakRule r = ChainBreakRule.named(rule);
+        AtomicOutput.checkTarget(out, force);
+        VariableIndex qubits = ProblemCodec.read(problem).variables();
+        IsingProblem q = ProblemCodec.read(logical).spin();
+        ChainList list = ChainsCodec.read(chains);
+        Chains c = Chains.of(list.logicalIds(), list.qubitGroups());
+        ChainDecoder decoder;
+        try {
+            decoder = ChainDecoder.of(q, c, qubits, r, seed);
+        } catch (IllegalArgumentException e) {
+            throw BadInputException.at(chains, "", e.getMessage(), "give the chains that " + problem + " was embedded with");
+        }
+        SampleBlock physical = SampleFiles.readAll(samples, qubits);
+        DecodedSamples d;
+        try {
+            d = decoder.decode(physical);
+        } catch (IllegalArgumentException e) {
+            throw BadInputException.at(samples, "", e.getMessage(), "");
+        }
+        Path logicalName = Path.of(SampleFormat.of(samples).fileName("logical"));
+        AtomicOutput.writeDirectory(out, force, dir -> {
+            SampleFiles.writeAll(dir.resolve(logicalName), q.variables(), false, d.logical());
+            NpyVectors.writeBool(dir.resolve("kept.npy"), false, d.kept());
+            NpyVectors.writeInt32(dir.resolve("broken.npy"), false, d.brokenChains());
+            NpyVectors.writeFloat64(dir.resolve("energies.npy"), false, d.energies());
+            StringBuilder csv = new StringBuilder("logical_id,length,broken_reads,broken_fraction\n");
+            long[] breaks = d.breaksPerChain();
+            Chains used = c.restrictedTo(q.variables());
+            for (int k = 0; k < breaks.length; k++) {
+                csv.append(used.logicalId(k)).append(',').append(used.length(k)).append(',').append(breaks[k]).append(',')
+                        .append(d.reads() == 0 ? 0.0 : (double) breaks[k] / d.reads()).append('\n');
+            }
+            Files.writeString(dir.resolve("chains.csv"), csv);
+        });
+        PrintWriter w = spec.commandLine().getOut();
+        w.printf("%d reads, %d kept (%s); broken chains: %.6f of all chain readings, %.6f of reads have one%n", d.reads(),
+                d.keptReads(), r.label(), d.brokenFraction(), d.brokenReadFraction());
+        long[] breaks = d.breaksPerChain();
+        int worst = -1;
+        for (int k = 0; k < breaks.length; k++) {
+            if (worst < 0 || breaks[k] > breaks[worst]) {
+                worst = k;
+            }
+        }
+        if (worst >= 0 && breaks[worst] > 0) {
+            w.printf("most broken: chain of logical %d (length %d), broken in %d reads%n",
+                    q.variables().id(worst), c.chainOf(q.variables().id(worst)).length, breaks[worst]);
+        }
+        w.printf("wrote %s%n", out);
+        return Main.DONE;
+    }
+}

@@ -1,0 +1,265 @@
+package org.obverse.io;
+
+import java.io.IOException;
+import java.io.Writer;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.obverse.stats.Campaign;
+import org.obverse.stats.SuccessRule;
+
+/**
+ * The tidy results table of a campaign (CSV, spec/results.md): one row per read, or per
+ * distinct outcome with a count. Columns {@code instance, setting, gauge, energy, count,
+ * broken, run_us}; extra columns are allowed and kept for the caller (a swept parameter).
+ *
+ * <p>Reading streams the file and sums each (instance, setting, gauge) into a
+ * {@link Campaign}, so a table never sits in memory row by row. Ground energies come from a
+ * file; without one, an instance's least energy seen over the whole table is used and marked
+ * as such (the file is then read twice).
+ */
+public final class ResultsTable {
+    /** The columns every results table has. */
+    public static final List<String> COLUMNS = List.of("instance", "setting", "gauge", "energy", "count", "broken",
+            "run_us");
+
+    private static final java.util.regex.Pattern DECIMAL =
+            java.util.regex.Pattern.compile("[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?");
+
+    private ResultsTable() {
+    }
+
+    /**
+     * A campaign read from a results table, with the values of extra columns per setting.
+     *
+     * @param campaign     the counts
+     * @param rows         data rows read
+     * @param extraColumns names of the extra columns, in header order
+     * @param settingValues per extra column, per setting label: its value when the same on every
+     *                     row of that setting (null when it varies)
+     */
+    public record Loaded(Campaign campaign, long rows, List<String> extraColumns,
+            Map<String, Map<String, String>> settingValues) {
+    }
+
+    /**
+     * Reads a ground-energy file ({@code instance,ground_energy}).
+     *
+     * @throws BadInputException for missing columns, a non-finite value, a repeated instance
+     */
+    public static Map<String, Double> readGround(Path file) throws IOException {
+        Map<String, Double> out = new LinkedHashMap<>();
+        try (CsvReader csv = CsvReader.open(file)) {
+            int[] col = csv.require("a ground-energy file", "instance", "ground_energy");
+            String[] r;
+            while ((r = csv.record()) != null) {
+                String inst = r[col[0]];
+                if (inst.isEmpty()) {
+                    throw csv.error(col[0], inst, "is empty", "name the instance");
+                }
+                double e = number(csv, col[1], r[col[1]]);
+                if (out.put(inst, e) != null) {
+                    throw csv.error(col[0], inst, "appears twice", "give each instance one ground energy");
+                }
+            }
+        }
+        return out;
+    }
+
+    /**
+     * Reads a results table into counts. ground may be null (best seen is used then).
+     *
+     * @throws BadInputException at the first bad row, or naming an instance with no ground energy
+     */
+    public static Loaded read(Path file, Map<String, Double> ground, Path groundFile, SuccessRule rule)
+            throws IOException {
+        Map<String, Double> best = null;
+        if (ground == null) {
+            best = new HashMap<>();
+            try (CsvReader csv = CsvReader.open(file)) {
+                int[] col = csv.require("a results table", COLUMNS.toArray(new String[0]));
+                String[] r;
+                while ((r = csv.record()) != null) {
+                    Row row = parse(csv, col, r);
+                    best.merge(row.instance, row.energy, Math::min);
+                }
+            }
+        }
+        Campaign.Builder b = Campaign.builder();
+        long rows = 0;
+        List<String> extras = new ArrayList<>();
+        Map<String, Map<String, String>> values = new LinkedHashMap<>();
+        Map<String, Map<String, Boolean>> varies = new HashMap<>();
+        Map<String, Double> groundSeen = new HashMap<>();
+        try (CsvReader csv = CsvReader.open(file)) {
+            int[] col = csv.require("a results table", COLUMNS.toArray(new String[0]));
+            List<String> header = csv.header();
+            List<Integer> extraIdx = new ArrayList<>();
+            for (int i = 0; i < header.size(); i++) {
+                if (!COLUMNS.contains(header.get(i))) {
+                    extras.add(header.get(i));
+                    extraIdx.add(i);
+                    values.put(header.get(i), new LinkedHashMap<>());
+                    varies.put(header.get(i), new HashMap<>());
+                }
+            }
+            String[] r;
+            while ((r = csv.record()) != null) {
+                Row row = parse(csv, col, r);
+                Double g = groundSeen.get(row.instance);
+                if (g == null) {
+                    if (ground != null) {
+                        g = ground.get(row.instance);
+                        if (g == null) {
+                            throw BadInputException.at(groundFile, "", "has no ground energy for instance '"
+                                    + row.instance + "' (" + file + ", line " + csv.line() + ")",
+                                    "add a row '" + row.instance + ",<energy>' or leave out --ground to use the best energy seen");
+                        }
+                        b.ground(row.instance, g, true);
+                    } else {
+                        g = best.get(row.instance);
+                        b.ground(row.instance, g, false);
+                    }
+                    groundSeen.put(row.instance, g);
+                }
+                long succ = rule.isSuccess(row.energy, g) ? row.count : 0;
+                b.add(row.instance, row.setting, row.gauge, row.count, succ, (row.energy - g) * row.count,
+                        row.runUs * row.count, row.broken * row.count, row.energy);
+                for (int k = 0; k < extras.size(); k++) {
+                    String name = extras.get(k);
+                    String v = r[extraIdx.get(k)];
+                    String prev = values.get(name).putIfAbsent(row.setting, v);
+                    if (prev != null && !prev.equals(v)) {
+                        varies.get(name).put(row.setting, true);
+                    }
+                }
+                rows++;
+            }
+        }
+        if (rows == 0) {
+            throw BadInputException.at(file, "", "has a header but no rows", "score a table with at least one read");
+        }
+        for (String name : extras) {
+            for (String s : varies.get(name).keySet()) {
+                values.get(name).put(s, null);
+            }
+        }
+        return new Loaded(b.build(), rows, extras, values);
+    }
+
+    private record Row(String instance, String setting, int gauge, double energy, long count, long broken,
+            double runUs) {
+    }
+
+    private static Row parse(CsvReader csv, int[] col, String[] r) {
+        String inst = r[col[0]];
+        if (inst.isEmpty()) {
+            throw csv.error(col[0], inst, "is empty", "name the instance on every row");
+        }
+        String gaugeText = r[col[2]].trim();
+        int gauge = Campaign.NO_GAUGE;
+        if (!gaugeText.isEmpty()) {
+            long gv = integer(csv, col[2], gaugeText);
+            if (gv < 0 || gv > Integer.MAX_VALUE) {
+                throw csv.error(col[2], gaugeText, "is not a gauge index >= 0", "use the gauge's index, or leave it empty");
+            }
+            gauge = (int) gv;
+        }
+        double energy = number(csv, col[3], r[col[3]]);
+        long count = integer(csv, col[4], r[col[4]]);
+        if (count < 1) {
+            throw csv.error(col[4], r[col[4]], "is not a count >= 1", "count the reads that gave this row (at least 1)");
+        }
+        String brokenText = r[col[5]].trim();
+        long broken = brokenText.isEmpty() ? 0 : integer(csv, col[5], brokenText);
+        if (broken < 0) {
+            throw csv.error(col[5], brokenText, "is negative", "count broken chains (0 or more)");
+        }
+        double run = number(csv, col[6], r[col[6]]);
+        if (!(run > 0)) {
+            throw csv.error(col[6], r[col[6]], "is not a run time > 0", "give the time of one anneal in microseconds");
+        }
+        return new Row(inst, r[col[1]], gauge, energy, count, broken, run);
+    }
+
+    private static double number(CsvReader csv, int column, String text) {
+        String t = text.trim();
+        if (!DECIMAL.matcher(t).matches()) {
+            throw csv.error(column, text, "is not a finite decimal number", "write a number such as -12.5 or 3e-2");
+        }
+        double v = Double.parseDouble(t);
+        if (!Double.isFinite(v)) {
+            throw csv.error(column, text, "is out of range", "write a finite number");
+        }
+        return v;
+    }
+
+    private static long integer(CsvReader csv, int column, String text) {
+        try {
+            return Long.parseLong(text.trim());
+        } catch (NumberFormatException e) {
+            throw csv.error(column, text, "is not an integer", "write a whole number");
+        }
+    }
+
+    /**
+     * Writes results-table rows: the fixed columns then the given extra columns. Not
+     * thread-safe; the caller owns and closes the underlying writer.
+     */
+    public static final class RowWriter {
+        private final Writer out;
+        private final int extras;
+
+        private RowWriter(Writer out, List<String> extraColumns) throws IOException {
+            this.out = out;
+            this.extras = extraColumns.size();
+            StringBuilder h = new StringBuilder(String.join(",", COLUMNS));
+            for (String e : extraColumns) {
+                if (COLUMNS.contains(e)) {
+                    throw new IllegalArgumentException("extra column " + e + " clashes with a fixed column");
+                }
+                h.append(',').append(CsvReader.quote(e));
+            }
+            out.write(h.append('\n').toString());
+        }
+
+        /** Starts a table with the header. */
+        public static RowWriter start(Writer out, List<String> extraColumns) throws IOException {
+            return new RowWriter(out, extraColumns);
+        }
+
+        /** One row; gauge −1 writes an empty gauge field; count ≥ 1. */
+        public void row(String instance, String setting, int gauge, double energy, long count, long broken,
+                double runUs, String... extraValues) throws IOException {
+            if (extraValues.length != extras) {
+                throw new IllegalArgumentException("expected " + extras + " extra values, got " + extraValues.length);
+            }
+            if (count < 1) {
+                throw new IllegalArgumentException("count must be >= 1, got " + count);
+            }
+            StringBuilder s = new StringBuilder();
+            s.append(CsvReader.quote(instance)).append(',').append(CsvReader.quote(setting)).append(',');
+            if (gauge >= 0) {
+                s.append(gauge);
+            }
+            s.append(',').append(format(energy)).append(',').append(count).append(',').append(broken).append(',')
+                    .append(format(runUs));
+            for (String v : extraValues) {
+                s.append(',').append(CsvReader.quote(v));
+            }
+            out.write(s.append('\n').toString());
+        }
+    }
+
+    /** Shortest decimal that reads back to the same double. */
+    static String format(double v) {
+        if (v == Math.rint(v) && Math.abs(v) < 1e15) {
+            return String.format(Locale.ROOT, "%d", (long) v);
+        }
+        return Double.toString(v);
+    }
+}

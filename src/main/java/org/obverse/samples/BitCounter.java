@@ -1,0 +1,125 @@
+package org.obverse.samples;
+
+/**
+ * Carry-save bit counting: for each of the 64 bit lanes, how many of a list of words have
+ * that bit set. Sixteen words at a time pass through a tree of carry-save adders
+ * (full adders on whole words: three words in, a sum and a carry word out), which keeps the
+ * low four bits of every lane's count in the words ones, twos, fours and eights; each
+ * carry out of the tree (worth 16) ripples into a vertical counter of higher bits. This is
+ * the Harley–Seal scheme (Warren, Hacker's Delight, 2nd ed., Addison-Wesley 2012, §5-1;
+ * Muła, Kurz and Lemire, The Computer Journal 61(1), 2018). Cost: about six word
+ * operations per input word.
+ */
+final class BitCounter {
+    private BitCounter() {
+    }
+
+    /**
+     * counts[r] = number of words x[0 … size) with bit r set.
+     *
+     * @param planes Workspace of at least 32 words; overwritten
+     * @param counts Output of 64 entries
+     */
+    static void count(long[] x, int size, long[] planes, int[] counts) {
+        long ones = 0;
+        long twos = 0;
+        long fours = 0;
+        long eights = 0;
+        int used = 0;
+        int i = 0;
+        for (; i + 16 <= size; i += 16) {
+            long u;
+            long twosA;
+            long twosB;
+            long foursA;
+            long foursB;
+            long eightsA;
+            long eightsB;
+            // Each step is a carry-save adder: (high, low) = a + b + c on every lane.
+            u = ones ^ x[i];
+            twosA = (ones & x[i]) | (u & x[i + 1]);
+            ones = u ^ x[i + 1];
+            u = ones ^ x[i + 2];
+            twosB = (ones & x[i + 2]) | (u & x[i + 3]);
+            ones = u ^ x[i + 3];
+            u = twos ^ twosA;
+            foursA = (twos & twosA) | (u & twosB);
+            twos = u ^ twosB;
+            u = ones ^ x[i + 4];
+            twosA = (ones & x[i + 4]) | (u & x[i + 5]);
+            ones = u ^ x[i + 5];
+            u = ones ^ x[i + 6];
+            twosB = (ones & x[i + 6]) | (u & x[i + 7]);
+            ones = u ^ x[i + 7];
+            u = twos ^ twosA;
+            foursB = (twos & twosA) | (u & twosB);
+            twos = u ^ twosB;
+            u = fours ^ foursA;
+            eightsA = (fours & foursA) | (u & foursB);
+            fours = u ^ foursB;
+            u = ones ^ x[i + 8];
+            twosA = (ones & x[i + 8]) | (u & x[i + 9]);
+            ones = u ^ x[i + 9];
+            u = ones ^ x[i + 10];
+            twosB = (ones & x[i + 10]) | (u & x[i + 11]);
+            ones = u ^ x[i + 11];
+            u = twos ^ twosA;
+            foursA = (twos & twosA) | (u & twosB);
+            twos = u ^ twosB;
+            u = ones ^ x[i + 12];
+            twosA = (ones & x[i + 12]) | (u & x[i + 13]);
+            ones = u ^ x[i + 13];
+            u = ones ^ x[i + 14];
+            twosB = (ones & x[i + 14]) | (u & x[i + 15]);
+            ones = u ^ x[i + 15];
+            u = twos ^ twosA;
+            foursB = (twos & twosA) | (u & twosB);
+            twos = u ^ twosB;
+            u = fours ^ foursA;
+            eightsB = (fours & foursA) | (u & foursB);
+            fours = u ^ foursB;
+            u = eights ^ eightsA;
+            long sixteens = (eights & eightsA) | (u & eightsB);
+            eights = u ^ eightsB;
+            used = ripple(planes, used, sixteens);
+        }
+        for (; i < size; i++) {
+            long c = x[i];
+            long t = ones & c;
+            ones ^= c;
+            c = t;
+            t = twos & c;
+            twos ^= c;
+            c = t;
+            t = fours & c;
+            fours ^= c;
+            c = t;
+            t = eights & c;
+            eights ^= c;
+            used = ripple(planes, used, t);
+        }
+        for (int r = 0; r < 64; r++) {
+            int c = (int) ((ones >>> r) & 1) | (int) ((twos >>> r) & 1) << 1 | (int) ((fours >>> r) & 1) << 2
+                    | (int) ((eights >>> r) & 1) << 3;
+            for (int p = 0; p < used; p++) {
+                c |= (int) ((planes[p] >>> r) & 1) << (4 + p);
+            }
+            counts[r] = c;
+        }
+    }
+
+    /** Adds one word of carries (each worth 16) into the vertical counter planes[0 … used). */
+    private static int ripple(long[] planes, int used, long carry) {
+        int p = 0;
+        while (carry != 0) {
+            if (p == used) {
+                planes[used++] = 0;
+            }
+            long t = planes[p] & carry;
+            planes[p] ^= carry;
+            carry = t;
+            p++;
+        }
+        return used;
+    }
+}

@@ -1,0 +1,222 @@
+package org.obverse.spectrum;
+
+import org.obverse.model.IsingProblem;
+
+/**
+ * The low spectrum of the anneal Hamiltonian H(s) = -(A(s)/2) Σ σˣ_i + (B(s)/2) H_P(σᶻ) of one
+ * problem under one schedule, in the sector the anneal can reach ({@link SectorBasis}).
+ *
+ * <p><b>The relevant gap.</b> Let g be the number of sector states whose problem energy equals
+ * the ground energy (within {@link SectorBasis#DEGENERACY_TOLERANCE}): the levels E_0 … E_{g−1}
+ * merge into the ground manifold at s = 1, and ending in any of them solves the problem. The
+ * relevant gap is Δ(s) = E_g(s) − E_0(s): from the ground level to the first level that lies in
+ * the reachable sector and does not end in the ground manifold. Levels of one symmetry sector
+ * do not cross generically (avoided crossings; von Neumann and Wigner, Phys. Z. 30, 467,
+ * 1929), so index order follows each level along s.
+ *
+ * <p>Immutable; each call solves afresh (cost: one eigensolve per value of s).
+ */
+public final class AnnealSpectrum {
+    /** Most levels the Lanczos solver is asked for (ground manifold included). */
+    public static final int MAX_LANCZOS_LEVELS = 64;
+
+    private final SectorBasis basis;
+    private final AnnealSchedule schedule;
+    private final LevelSolver solver;
+    private final int levelCount;
+    private final int relevant;
+
+    private AnnealSpectrum(SectorBasis basis, AnnealSchedule schedule, LevelSolver solver, int levelCount,
+                           int relevant) {
+        this.basis = basis;
+        this.schedule = schedule;
+        this.solver = solver;
+        this.levelCount = levelCount;
+        this.relevant = relevant;
+    }
+
+    /**
+     * The spectrum of a problem under a schedule.
+     *
+     * @throws SpectrumLimitException when the sector is too large for the chosen solver (the
+     *         message names the limit and the memory it would need)
+     * @throws IllegalArgumentException when the sector has no level above the ground manifold
+     */
+    public static AnnealSpectrum of(IsingProblem problem, AnnealSchedule schedule, SpectrumSettings settings) {
+        int m = SectorBasis.storedSpins(problem, settings.sector());
+        LevelSolver solver = settings.solver().solverFor(m, settings.tolerance());
+        if (m > solver.maxStoredSpins()) {
+            throw SpectrumLimitException.of(solver.name(), problem.size(), m, solver.maxStoredSpins(),
+                    solver.memoryBytes(m, settings.levels()));
+        }
+        SectorBasis basis = SectorBasis.of(problem, settings.sector());
+        int g = basis.groundDegeneracy();
+        if (g >= basis.dimension()) {
+            throw new IllegalArgumentException("every one of the " + basis.dimension() + " states of the sector has"
+                    + " the ground energy: the problem has no excited level and so no gap");
+        }
+        int count = Math.min(basis.dimension(), Math.max(settings.levels(), g + 1));
+        if (solver instanceof LanczosLevelSolver && count > MAX_LANCZOS_LEVELS) {
+            throw new IllegalArgumentException("the ground manifold holds " + g + " sector states, so " + count
+                    + " levels are needed; the Lanczos solver is limited to " + MAX_LANCZOS_LEVELS);
+        }
+        return new AnnealSpectrum(basis, schedule, solver, count, g);
+    }
+
+    /** The sector basis. */
+    public SectorBasis basis() {
+        return basis;
+    }
+
+    /** The schedule. */
+    public AnnealSchedule schedule() {
+        return schedule;
+    }
+
+    /** The solver in use. */
+    public LevelSolver solver() {
+        return solver;
+    }
+
+    /** Levels computed at each s: the requested count, raised to g + 1 where needed. */
+    public int levelCount() {
+        return levelCount;
+    }
+
+    /** Index g of the relevant level (the ground manifold's size in the sector). */
+    public int relevantLevel() {
+        return relevant;
+    }
+
+    /** The operator H(s). */
+    public AnnealOperator operator(double s) {
+        return AnnealOperator.of(basis, schedule.a(s), schedule.b(s));
+    }
+
+    /** The lowest {@link #levelCount()} levels at s, ascending. */
+    public double[] levels(double s) {
+        return solver.lowest(operator(s), levelCount);
+    }
+
+    /** The relevant gap E_g(s) − E_0(s). */
+    public double gap(double s) {
+        double[] e = levels(s);
+        return e[relevant] - e[0];
+    }
+
+    /** Levels and gaps on a grid (values in [0, 1], ascending). */
+    public GapScan scan(double[] grid) {
+        double[][] levels = new double[grid.length][];
+        double[] gap = new double[grid.length];
+        for (int r = 0; r < grid.length; r++) {
+            if (r > 0 && !(grid[r] > grid[r - 1])) {
+                throw new IllegalArgumentException("s grid must increase strictly; s[" + r + "] = " + grid[r]);
+            }
+            levels[r] = levels(grid[r]);
+            gap[r] = levels[r][relevant] - levels[r][0];
+        }
+        return new GapScan(grid.clone(), levels, gap);
+    }
+
+    /**
+     * Refines the scan's smallest gap by golden-section search over the bracket of its two grid
+     * neighbours (the gap is taken to have one minimum there) until the bracket is at most
+     * 2·sTolerance wide.
+     */
+    public MinimumGap minimumGap(GapScan scan, double sTolerance) {
+        int r = scan.minimumRow();
+        int last = scan.points() - 1;
+        double lo = scan.s(Math.max(0, r - 1));
+        double hi = scan.s(Math.min(last, r + 1));
+        double bestS = scan.s(r);
+        double bestGap = scan.gap(r);
+        double invPhi = (Math.sqrt(5.0) - 1.0) / 2.0;
+        double a = lo;
+        double b = hi;
+        double c = b - invPhi * (b - a);
+        double d = a + invPhi * (b - a);
+        double fc = gap(c);
+        double fd = gap(d);
+        double[] best = {bestS, bestGap};
+        keep(best, c, fc);
+        keep(best, d, fd);
+        while (b - a > 2 * sTolerance) {
+            if (fc < fd) {
+                b = d;
+                d = c;
+                fd = fc;
+                c = b - invPhi * (b - a);
+                fc = gap(c);
+                keep(best, c, fc);
+            } else {
+                a = c;
+                c = d;
+                fc = fd;
+                d = a + invPhi * (b - a);
+                fd = gap(d);
+                keep(best, d, fd);
+            }
+        }
+        double spread = Math.max(Math.abs(fc - best[1]), Math.abs(fd - best[1]));
+        double solverError = 2 * solver.tolerance() * Math.max(1.0, operator(best[0]).normBound());
+        double sTol = Math.max((b - a) / 2, Math.abs(best[0] - 0.5 * (a + b)));
+        boolean edge = best[0] <= scan.s(0) + 2 * sTolerance || best[0] >= scan.s(last) - 2 * sTolerance;
+        return new MinimumGap(best[0], sTol, best[1], spread + solverError, edge);
+    }
+
+    private static void keep(double[] best, double s, double gap) {
+        if (gap < best[1]) {
+            best[0] = s;
+            best[1] = gap;
+        }
+    }
+
+    /**
+     * The pause window after the minimum (see {@link PauseWindow}): each end is the first grid
+     * crossing of its ratio after s*, refined by bisection.
+     */
+    public PauseWindow pauseWindow(GapScan scan, MinimumGap minimum, ScanSettings settings) {
+        double[] from = crossing(scan, minimum.sStar(), settings.pauseFromRatio() * minimum.gapMin(),
+                settings.pauseTolerance());
+        double[] to = crossing(scan, from[0], settings.pauseToRatio() * minimum.gapMin(), settings.pauseTolerance());
+        return new PauseWindow(from[0], to[0], settings.pauseFromRatio(), settings.pauseToRatio(),
+                settings.pauseTolerance(), from[1] != 0, to[1] != 0);
+    }
+
+    // First s ≥ start where the gap reaches target: {s, capped ? 1 : 0}.
+    private double[] crossing(GapScan scan, double start, double target, double tolerance) {
+        double prev = start;
+        for (int r = 0; r < scan.points(); r++) {
+            double s = scan.s(r);
+            if (s <= start) {
+                continue;
+            }
+            if (scan.gap(r) >= target) {
+                double lo = prev;
+                double hi = s;
+                if (gap(lo) >= target) {
+                    return new double[] {lo, 0};
+                }
+                while (hi - lo > tolerance) {
+                    double mid = 0.5 * (lo + hi);
+                    if (gap(mid) >= target) {
+                        hi = mid;
+                    } else {
+                        lo = mid;
+                    }
+                }
+                return new double[] {hi, 0};
+            }
+            prev = s;
+        }
+        return new double[] {scan.s(scan.points() - 1), 1};
+    }
+
+    /** Scan, refine the minimum and suggest the pause window. */
+    public SpectrumAnalysis analyse(ScanSettings settings) {
+        GapScan scan = scan(settings.grid());
+        MinimumGap minimum = minimumGap(scan, settings.sTolerance());
+        PauseWindow pause = pauseWindow(scan, minimum, settings);
+        return new SpectrumAnalysis(scan, minimum, pause);
+    }
+}

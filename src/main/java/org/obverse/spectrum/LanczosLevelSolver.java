@@ -1,0 +1,396 @@
+package org.obverse.spectrum;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.simple.RandomSource;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+
+/**
+ * Lowest levels by a matrix-free block Lanczos method with full reorthogonalisation, locking
+ * and explicit restarts.
+ *
+ * <p>Each round grows an orthonormal block Krylov basis from a block of p vectors (H applied
+ * by {@link AnnealOperator#apply}, every new vector orthogonalised twice against the basis and
+ * the locked vectors by classical Gram–Schmidt), forms the projected banded matrix T = QᵀHQ
+ * and its Ritz pairs (EJML), and reads each Ritz pair's exact residual ‖Hy − θy‖ from the
+ * coupling of the basis to the vectors beyond it. A Ritz pair is converged when that residual
+ * is at most {@code tolerance · max(1, ‖H‖)} (‖H‖ bounded by |B/2|·max|H_P| + n·A/2); then
+ * its eigenvalue is within that bound of a true one (Kahan; see Parlett, The Symmetric
+ * Eigenvalue Problem, SIAM 1998, §11.5). The lowest converged pairs are locked (later rounds
+ * work orthogonally to them: deflation); the next round restarts from the lowest unconverged
+ * Ritz vectors and one fresh random vector, so a level whose partner was absent from one
+ * Krylov space (an exact degeneracy) is found later. It stops when at least the wanted number
+ * are locked and a round's lowest Ritz value less its residual is no lower than the last wanted
+ * locked one. Blocks of p ≥ 2 resolve near-degenerate pairs that a single vector converges to only
+ * slowly.
+ *
+ * <p>Memory: (basis + p + locked) vectors of 2^m doubles; the basis is capped by
+ * {@link #BASIS_BYTES}. Start vectors come from a fixed seed: results are reproducible.
+ * Immutable; safe to share.
+ */
+public final class LanczosLevelSolver implements LevelSolver {
+    /** Largest number of stored spins (a sector of 2^20 states). */
+    public static final int MAX_STORED_SPINS = 20;
+    /** Default residual tolerance relative to max(1, ‖H‖). */
+    public static final double DEFAULT_TOLERANCE = 1e-10;
+    /** Memory budget of the Krylov basis. */
+    public static final long BASIS_BYTES = 256L << 20;
+    /** Most basis vectors per round. */
+    public static final int MAX_BASIS = 40;
+    private static final int MAX_RESTARTS = 400;
+    private static final double REORTHOGONALISE_BELOW = 0.7071;
+    private static final long SEED = 0x5EC7_2A11_0B5E_77E1L;
+
+    private final double tolerance;
+    private final int blockSize;
+
+    private LanczosLevelSolver(double tolerance, int blockSize) {
+        this.tolerance = tolerance;
+        this.blockSize = blockSize;
+    }
+
+    /** The solver with the default tolerance and block size 1. */
+    public static LanczosLevelSolver create() {
+        return new LanczosLevelSolver(DEFAULT_TOLERANCE, 1);
+    }
+
+    /**
+     * A solver. Input: tolerance in [1e-14, 1e-2]; block size 1 to 8.
+     */
+    public static LanczosLevelSolver of(double tolerance, int blockSize) {
+        if (!(tolerance >= 1e-14 && tolerance <= 1e-2)) {
+            throw new IllegalArgumentException("Lanczos tolerance " + tolerance + " must lie in [1e-14, 1e-2]");
+        }
+        if (blockSize < 1 || blockSize > 8) {
+            throw new IllegalArgumentException("Lanczos block size " + blockSize + " must lie in 1..8");
+        }
+        return new LanczosLevelSolver(tolerance, blockSize);
+    }
+
+    @Override
+    public String name() {
+        return "lanczos";
+    }
+
+    @Override
+    public int maxStoredSpins() {
+        return MAX_STORED_SPINS;
+    }
+
+    @Override
+    public long memoryBytes(int storedSpins, int levels) {
+        long d = 1L << storedSpins;
+        return 8L * d * (basisVectors(d, blockSize) + 2L * blockSize + levels + 2L);
+    }
+
+    @Override
+    public double tolerance() {
+        return tolerance;
+    }
+
+    /** Basis vectors per round for a sector of dimension d. */
+    static int basisVectors(long d, int p) {
+        long byBudget = BASIS_BYTES / (8L * d);
+        long m = Math.max(6L * p, Math.min(MAX_BASIS, byBudget));
+        return (int) Math.min(d, m);
+    }
+
+    @Override
+    public double[] lowest(AnnealOperator op, int count) {
+        checkSize(op.basis(), count);
+        int dim = op.dimension();
+        int k = Math.min(count, dim);
+        double scale = Math.max(1.0, op.normBound());
+        double tol = tolerance * scale;
+        double tiny = 1e-14 * scale;
+        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED);
+        int p = Math.max(1, Math.min(blockSize, k));
+        int basisMax = basisVectors(dim, p);
+        double[][] q = new double[basisMax][];
+        double[][] t = new double[basisMax][basisMax];
+        double[] w = new double[dim];
+        List<double[]> locked = new ArrayList<>();
+        double[] lockedValues = new double[0];
+        double[][] lockedArr = new double[0][];
+        int size = 0;
+        int done = 0;
+        // Whether the basis holds a random vector added after the last lock (needed to trust
+        // that no unlocked level lies below the wanted ones).
+        boolean generic = true;
+        for (int c = 0; c < Math.min(p, dim); c++) {
+            q[c] = new double[dim];
+            newDirection(q[c], rng, lockedArr, q, c, dim);
+            size++;
+        }
+        for (int restart = 0; restart <= MAX_RESTARTS; restart++) {
+            int nLocked = locked.size();
+            int avail = dim - nLocked;
+            int maxSize = Math.min(basisMax, avail);
+            int need = nLocked >= k ? 1 : k - nLocked;
+            double kth = nLocked >= k ? sortedCopy(lockedValues)[k - 1] : Double.NaN;
+            int checkEvery = Math.max(p, 6);
+            boolean confirming = nLocked >= k;
+            boolean genericRound = generic;
+            Ritz ritz = null;
+            // Expand the basis: apply H to the next unapplied vector, orthogonalise, append.
+            while (done < size) {
+                boolean grow = size < maxSize;
+                if (!grow && size < avail) {
+                    break;
+                }
+                op.apply(q[done], w);
+                double[] column = new double[size];
+                // The large component along q[done] first, then classical Gram–Schmidt against
+                // everything, repeated only where it cancelled much (Daniel, Gragg, Kaufman and
+                // Stewart, Math. Comp. 30, 772, 1976: the "twice is enough" test).
+                double own = Vectors.dot(q[done], w, dim);
+                Vectors.axpy(-own, q[done], w, dim);
+                column[done] += own;
+                double before = Vectors.norm(w, dim);
+                Vectors.projectOut(lockedArr, lockedArr.length, w, dim, null);
+                Vectors.projectOut(q, size, w, dim, column);
+                double after = Vectors.norm(w, dim);
+                if (after < REORTHOGONALISE_BELOW * before) {
+                    Vectors.projectOut(lockedArr, lockedArr.length, w, dim, null);
+                    Vectors.projectOut(q, size, w, dim, column);
+                }
+                for (int i = 0; i < size; i++) {
+                    t[i][done] = column[i];
+                }
+                if (grow) {
+                    double nu = Vectors.norm(w, dim);
+                    q[size] = q[size] == null ? new double[dim] : q[size];
+                    if (nu > tiny) {
+                        System.arraycopy(w, 0, q[size], 0, dim);
+                        Vectors.scale(q[size], dim, 1.0 / nu);
+                        t[size][done] = nu;
+                    } else {
+                        // An invariant subspace: continue with a fresh direction (coupling 0).
+                        newDirection(q[size], rng, lockedArr, q, size, dim);
+                        t[size][done] = 0.0;
+                    }
+                    for (int j = 0; j < done; j++) {
+                        t[size][j] = 0.0;
+                    }
+                    size++;
+                }
+                done++;
+                if (!confirming && done >= need && (done % checkEvery == 0 || done == size)) {
+                    ritz = Ritz.of(t, done, size);
+                    if (ritz.converged(need, tol)) {
+                        break;
+                    }
+                }
+            }
+            if (ritz == null || ritz.columns != done) {
+                ritz = Ritz.of(t, done, size);
+            }
+            // Nothing unlocked lies below the last wanted level: the lowest Ritz value, less its
+            // residual, is at or above it (Ritz values bound the eigenvalues from above).
+            if (confirming && genericRound && ritz.value[0] - ritz.residual[0] >= kth - tol) {
+                break;
+            }
+            int accepted = 0;
+            for (int i = 0; i < Math.min(need, done); i++) {
+                if (ritz.residual[i] > tol || (nLocked >= k && ritz.value[i] >= kth - tol)) {
+                    break;
+                }
+                double[] y = new double[dim];
+                Vectors.combine(q, ritz.vector(i), done, y, dim);
+                Vectors.projectOut(lockedArr, lockedArr.length, y, dim, null);
+                Vectors.scale(y, dim, 1.0 / Vectors.norm(y, dim));
+                locked.add(y);
+                lockedValues = Arrays.copyOf(lockedValues, lockedValues.length + 1);
+                lockedValues[lockedValues.length - 1] = ritz.value[i];
+                accepted++;
+                generic = false;
+            }
+            lockedArr = locked.toArray(new double[0][]);
+            if (locked.size() >= dim) {
+                break;
+            }
+            if (restart == MAX_RESTARTS) {
+                throw new IllegalStateException("the Lanczos solver did not reach residual " + tol + " in "
+                        + MAX_RESTARTS + " restarts (dimension " + dim + ", " + locked.size() + " of " + k
+                        + " levels locked); use --solver dense for a small problem or a looser --tolerance");
+            }
+            // Thick restart: keep the lowest unconverged Ritz vectors (applied, with T diagonal),
+            // the residual vectors beyond them (unapplied), and one fresh random vector, so a
+            // partner missing from this Krylov space (an exact degeneracy) can still appear.
+            int residualCount = size - done;
+            boolean inject = !generic && locked.size() >= k;
+            int room = Math.min(basisMax, dim - locked.size()) - residualCount - (inject ? 1 : 0);
+            int keep = Math.min(done - accepted, Math.max(need + p, room / 2));
+            keep = Math.max(0, Math.min(keep, room - p));
+            double[][] coupling = new double[residualCount][keep];
+            for (int c = 0; c < keep; c++) {
+                double[] sv = ritz.vector(accepted + c);
+                for (int i = 0; i < residualCount; i++) {
+                    double sum = 0.0;
+                    for (int j = 0; j < done; j++) {
+                        sum += t[done + i][j] * sv[j];
+                    }
+                    coupling[i][c] = sum;
+                }
+            }
+            rotateInPlace(q, done, ritz, accepted, keep, dim);
+            for (int i = 0; i < residualCount; i++) {
+                double[] tmp = q[keep + i];
+                q[keep + i] = q[done + i];
+                q[done + i] = tmp;
+            }
+            for (double[] row : t) {
+                Arrays.fill(row, 0.0);
+            }
+            for (int c = 0; c < keep; c++) {
+                t[c][c] = ritz.value[accepted + c];
+                for (int i = 0; i < residualCount; i++) {
+                    t[keep + i][c] = coupling[i][c];
+                    t[c][keep + i] = coupling[i][c];
+                }
+            }
+            done = keep;
+            size = keep + residualCount;
+            if (inject || size == 0) {
+                q[size] = q[size] == null ? new double[dim] : q[size];
+                newDirection(q[size], rng, lockedArr, q, size, dim);
+                size++;
+                generic = true;
+            }
+        }
+        double[] values = sortedCopy(lockedValues);
+        return Arrays.copyOf(values, Math.min(k, values.length));
+    }
+
+    // q[c] ← Σ_j S[j][from + c] q[j] for c < keep, row by row in place (q[keep..done) is left as scratch).
+    private static void rotateInPlace(double[][] q, int done, Ritz ritz, int from, int keep, int dim) {
+        if (keep == 0) {
+            return;
+        }
+        double[][] s = new double[keep][];
+        for (int c = 0; c < keep; c++) {
+            s[c] = ritz.vector(from + c);
+        }
+        int chunk = 1 << 12;
+        int chunks = (dim + chunk - 1) / chunk;
+        java.util.stream.IntStream.range(0, chunks).parallel().forEach(part -> {
+            double[] old = new double[done];
+            int end = Math.min(dim, (part + 1) * chunk);
+            for (int i = part * chunk; i < end; i++) {
+                for (int j = 0; j < done; j++) {
+                    old[j] = q[j][i];
+                }
+                for (int c = 0; c < keep; c++) {
+                    double sum = 0.0;
+                    double[] sc = s[c];
+                    for (int j = 0; j < done; j++) {
+                        sum += sc[j] * old[j];
+                    }
+                    q[c][i] = sum;
+                }
+            }
+        });
+    }
+
+    // Fills v with a random vector orthonormal to the locked vectors and q[0..count).
+    private static void newDirection(double[] v, UniformRandomProvider rng, double[][] locked,
+                                     double[][] q, int count, int dim) {
+        for (int attempt = 0; attempt < 8; attempt++) {
+            for (int i = 0; i < dim; i++) {
+                v[i] = rng.nextDouble() - 0.5;
+            }
+            for (int pass = 0; pass < 2; pass++) {
+                Vectors.projectOut(locked, locked.length, v, dim, null);
+                Vectors.projectOut(q, count, v, dim, null);
+            }
+            double norm = Vectors.norm(v, dim);
+            if (norm > 1e-8) {
+                Vectors.scale(v, dim, 1.0 / norm);
+                return;
+            }
+        }
+        throw new IllegalStateException("could not find a direction orthogonal to " + (locked.length + count)
+                + " vectors in dimension " + dim);
+    }
+
+    private static double[] sortedCopy(double[] v) {
+        double[] s = v.clone();
+        Arrays.sort(s);
+        return s;
+    }
+
+    /** Ritz pairs of the leading block of T, ascending, with exact residual norms. */
+    private static final class Ritz {
+        final int columns;
+        final double[] value;
+        final double[] residual;
+        final double[][] vectors;
+
+        private Ritz(int columns, double[] value, double[] residual, double[][] vectors) {
+            this.columns = columns;
+            this.value = value;
+            this.residual = residual;
+            this.vectors = vectors;
+        }
+
+        static Ritz of(double[][] t, int columns, int size) {
+            DMatrixRMaj lead = new DMatrixRMaj(columns, columns);
+            for (int i = 0; i < columns; i++) {
+                for (int j = 0; j < columns; j++) {
+                    lead.set(i, j, 0.5 * (t[i][j] + t[j][i]));
+                }
+            }
+            EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(columns, true, true);
+            if (!eig.decompose(lead)) {
+                throw new IllegalStateException("the projected eigenproblem did not converge");
+            }
+            Integer[] order = new Integer[columns];
+            double[] raw = new double[columns];
+            for (int i = 0; i < columns; i++) {
+                order[i] = i;
+                raw[i] = eig.getEigenvalue(i).getReal();
+            }
+            Arrays.sort(order, (x, y) -> Double.compare(raw[x], raw[y]));
+            double[] value = new double[columns];
+            double[] residual = new double[columns];
+            double[][] vectors = new double[columns][];
+            for (int r = 0; r < columns; r++) {
+                DMatrixRMaj vec = eig.getEigenVector(order[r]);
+                double[] s = new double[columns];
+                for (int j = 0; j < columns; j++) {
+                    s[j] = vec.get(j, 0);
+                }
+                value[r] = raw[order[r]];
+                vectors[r] = s;
+                // H y − θ y lies in the span of q[columns..size): its coefficients are T[i][0..columns) · s.
+                double sum = 0.0;
+                for (int i = columns; i < size; i++) {
+                    double c = 0.0;
+                    for (int j = 0; j < columns; j++) {
+                        c += t[i][j] * s[j];
+                    }
+                    sum += c * c;
+                }
+                residual[r] = Math.sqrt(sum);
+            }
+            return new Ritz(columns, value, residual, vectors);
+        }
+
+        boolean converged(int need, double tol) {
+            for (int i = 0; i < Math.min(need, columns); i++) {
+                if (residual[i] > tol) {
+                    return false;
+                }
+            }
+            return need <= columns;
+        }
+
+        double[] vector(int i) {
+            return vectors[i];
+        }
+    }
+}

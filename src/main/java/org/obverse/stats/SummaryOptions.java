@@ -1,0 +1,61 @@
+package org.obverse.stats;
+
+import java.util.List;
+
+/**
+ * How a campaign is summarised: the TTS target, the confidence of the binomial intervals,
+ * the bootstrapped quantile over instances, the inner and outer percentile bands, the
+ * bootstrap's seed, replicates and threads, the setting pairs to compare (A against B), and
+ * an optional sweep (settings in the order of the swept value, with those values).
+ *
+ * @param target      TTS target (default 0.99)
+ * @param confidence  confidence level of the binomial intervals (default 0.95)
+ * @param quantile    quantile over instances (default 0.5, the median)
+ * @param band        inner band percentiles as fractions (default 0.35, 0.65)
+ * @param outerBand   outer band percentiles as fractions (default 0.05, 0.95)
+ * @param seed        bootstrap seed
+ * @param replicates  bootstrap replicates
+ * @param threads     worker threads
+ * @param resampleGauges whether the bootstrap resamples gauges within an instance
+ * @param resampleReads  whether it redraws reads within a gauge
+ * @param pairs       compared setting pairs (indices into the campaign's settings)
+ * @param sweepOrder  swept settings in ascending swept value (null: no sweep)
+ * @param sweepValues the swept values in the same order (null: no sweep)
+ */
+public record SummaryOptions(double target, double confidence, double quantile, double[] band, double[] outerBand,
+        long seed, int replicates, int threads, boolean resampleGauges, boolean resampleReads, List<int[]> pairs,
+        int[] sweepOrder, double[] sweepValues) {
+
+    /** Validates once. */
+    public SummaryOptions {
+        checkBand("band", band);
+        checkBand("outer band", outerBand);
+        if (!(confidence > 0) || !(confidence < 1)) {
+            throw new IllegalArgumentException("confidence must be in (0, 1), got " + confidence);
+        }
+        if ((sweepOrder == null) != (sweepValues == null)
+                || (sweepOrder != null && sweepOrder.length != sweepValues.length)) {
+            throw new IllegalArgumentException("a sweep needs one value per swept setting");
+        }
+        pairs = List.copyOf(pairs);
+    }
+
+    private static void checkBand(String name, double[] b) {
+        if (b.length != 2 || !(b[0] >= 0) || !(b[1] <= 1) || !(b[0] <= b[1])) {
+            throw new IllegalArgumentException(name + " must be two fractions 0 <= lo <= hi <= 1, got "
+                    + java.util.Arrays.toString(b));
+        }
+    }
+
+    /** The defaults: 99 % target, 95 % intervals, median, bands 35–65 and 5–95, 1000 replicates. */
+    public static SummaryOptions defaults(long seed) {
+        return new SummaryOptions(TimeToSolution.DEFAULT_TARGET, 0.95, 0.5, new double[] {0.35, 0.65},
+                new double[] {0.05, 0.95}, seed, 1000, Math.max(1, Math.min(2, Runtime.getRuntime().availableProcessors())),
+                true, true, List.of(), null, null);
+    }
+
+    /** The bootstrap plan these options imply. */
+    public BootstrapPlan plan() {
+        return new BootstrapPlan(seed, replicates, quantile, target, resampleGauges, resampleReads, threads, pairs);
+    }
+}

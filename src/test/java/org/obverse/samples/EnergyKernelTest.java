@@ -1,0 +1,148 @@
+package org.obverse.samples;
+
+import org.obverse.model.IsingProblem;
+import org.obverse.samples.GeneratedProblems.Values;
+import org.obverse.testsupport.QuietTest;
+import org.obverse.testsupport.Seeds;
+import org.junit.jupiter.api.Test;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+/**
+ * Energy kernels over bit-sliced blocks against the per-read definition
+ * E(s) = offset + Σ h_i s_i + Σ J_ij s_i s_j as {@link IsingProblem#energy(byte[])} computes it.
+ */
+class EnergyKernelTest extends QuietTest {
+    private static long bits(double d) {
+        return Double.doubleToRawLongBits(d);
+    }
+
+    @Test
+    void exactKernelEqualsTheDefinitionBitForBit() {
+        Seeds.forEachCase(150, 10_000, (rng, seed) -> {
+            Values kind = Values.values()[rng.nextInt(3)];
+            IsingProblem p = GeneratedProblems.problem(rng, kind, 90);
+            int reads = 1 + rng.nextInt(200);
+            byte[] s = GeneratedProblems.spins(rng, reads * p.size());
+            double[] e = EnergyKernel.exact(p).energies(SampleBlock.fromSpins(s, reads, p.size()));
+            for (int r = 0; r < reads; r++) {
+                assertThat(bits(e[r])).as("read %d", r).isEqualTo(bits(p.energy(GeneratedProblems.row(s, r, p.size()))));
+            }
+        });
+    }
+
+    @Test
+    void fastKernelsAgreeWithExactWithinTheStatedTolerance() {
+        Seeds.forEachCase(150, 20_000, (rng, seed) -> {
+            Values kind = rng.nextBoolean() ? Values.REAL : Values.FEW;
+            IsingProblem p = GeneratedProblems.problem(rng, kind, 120);
+            int reads = 1 + rng.nextInt(260);
+            SampleBlock block = SampleBlock.fromSpins(GeneratedProblems.spins(rng, reads * p.size()), reads, p.size());
+            double[] exact = EnergyKernel.exact(p).energies(block);
+            double sumAbs = Math.abs(p.offset());
+            for (int k = 0; k < p.size(); k++) {
+                sumAbs += Math.abs(p.field(k));
+            }
+            for (int e = 0; e < p.edgeCount(); e++) {
+                sumAbs += Math.abs(p.coupling(e));
+            }
+            for (EnergyKernel k : new EnergyKernel[] {EnergyKernel.of(p), EnergyKernel.tables(p), EnergyKernel.counters(p)}) {
+                double tol = k.tolerance();
+                // The bound must be meaningful: far below the scale of the energies themselves.
+                assertThat(tol).isLessThan(1e-9 * Math.max(sumAbs, Double.MIN_NORMAL));
+                double[] fast = k.energies(block);
+                for (int r = 0; r < reads; r++) {
+                    assertThat(Math.abs(fast[r] - exact[r])).as("%s read %d", k.method(), r).isLessThanOrEqualTo(tol);
+                }
+            }
+        });
+    }
+
+    @Test
+    void fastKernelsAreExactOnIntegerProblems() {
+        // Every term and partial sum is a small integer, exactly representable: no rounding anywhere.
+        Seeds.forEachCase(100, 30_000, (rng, seed) -> {
+            IsingProblem p = GeneratedProblems.problem(rng, Values.INTEGER, 100);
+            int reads = 1 + rng.nextInt(200);
+            SampleBlock block = SampleBlock.fromSpins(GeneratedProblems.spins(rng, reads * p.size()), reads, p.size());
+            double[] exact = EnergyKernel.exact(p).energies(block);
+            assertThat(EnergyKernel.of(p).energies(block)).containsExactly(exact);
+            assertThat(EnergyKernel.tables(p).energies(block)).containsExactly(exact);
+            assertThat(EnergyKernel.counters(p).energies(block)).containsExactly(exact);
+        });
+    }
+
+    @Test
+    void plannerCountsSharedValuesAndTablesTheRest() {
+        Seeds.forEachCase(20, 40_000, (rng, seed) -> {
+            int n = 40;
+            int[] ids = new int[n];
+            for (int k = 0; k < n; k++) {
+                ids[k] = 3 * k;
+            }
+            // All pairs: 780 couplers, ±1 values only: two counted groups, nothing tabled.
+            int m = n * (n - 1) / 2;
+            int[] u = new int[m];
+            int[] v = new int[m];
+            double[] j = new double[m];
+            double[] real = new double[m];
+            int e = 0;
+            for (int a = 0; a < n; a++) {
+                for (int b = a + 1; b < n; b++) {
+                    u[e] = a;
+                    v[e] = b;
+                    j[e] = rng.nextBoolean() ? 1 : -1;
+                    real[e++] = rng.nextDouble() - 0.5;
+                }
+            }
+            org.obverse.model.VariableIndex index = org.obverse.model.VariableIndex.of(ids);
+            IsingProblem pm = IsingProblem.of(index, new double[n], u, v, j, 0);
+            assertThat(EnergyKernel.of(pm).method()).isEqualTo(EnergyKernel.Method.COUNTERS);
+            assertThat(((FastEnergy) EnergyKernel.of(pm)).groupCount()).isEqualTo(2);
+            IsingProblem gauss = IsingProblem.of(index, new double[n], u, v, real, 0);
+            assertThat(EnergyKernel.of(gauss).method()).isEqualTo(EnergyKernel.Method.TABLES);
+            double[] h = new double[n];
+            for (int k = 0; k < n; k++) {
+                h[k] = rng.nextDouble();
+            }
+            IsingProblem mixed = IsingProblem.of(index, h, u, v, j, 0);
+            assertThat(EnergyKernel.of(mixed).method()).isEqualTo(EnergyKernel.Method.COUNTERS_AND_TABLES);
+            assertThat(EnergyKernel.exact(mixed).method()).isEqualTo(EnergyKernel.Method.EXACT);
+        });
+    }
+
+    @Test
+    void copiesHaveTheirOwnWorkspaceAndOffsetsPlaceResults() {
+        Seeds.forEachCase(20, 50_000, (rng, seed) -> {
+            IsingProblem p = GeneratedProblems.problem(rng, Values.REAL, 60);
+            SampleBlock a = SampleBlock.fromSpins(GeneratedProblems.spins(rng, 100 * p.size()), 100, p.size());
+            SampleBlock b = SampleBlock.fromSpins(GeneratedProblems.spins(rng, 70 * p.size()), 70, p.size());
+            EnergyKernel k = EnergyKernel.of(p);
+            EnergyKernel c = k.copy();
+            double[] out = new double[5 + 100 + 70];
+            k.energies(a, out, 5);
+            c.energies(b, out, 105);
+            double[] ea = EnergyKernel.exact(p).energies(a);
+            double[] eb = EnergyKernel.exact(p).energies(b);
+            for (int r = 0; r < 100; r++) {
+                assertThat(Math.abs(out[5 + r] - ea[r])).isLessThanOrEqualTo(k.tolerance());
+            }
+            for (int r = 0; r < 70; r++) {
+                assertThat(Math.abs(out[105 + r] - eb[r])).isLessThanOrEqualTo(k.tolerance());
+            }
+            assertThat(out[0]).isZero();
+        });
+    }
+
+    @Test
+    void refusesBlocksOfAnotherWidthAndShortOutputs() {
+        IsingProblem p = GeneratedProblems.problem(Seeds.rng(1), Values.REAL, 10);
+        SampleBlock wrong = SampleBlock.allDown(3, p.size() + 1);
+        assertThatThrownBy(() -> EnergyKernel.of(p).energies(wrong)).isInstanceOf(IllegalArgumentException.class)
+                .hasMessageContaining("spins per read");
+        SampleBlock right = SampleBlock.allDown(3, p.size());
+        assertThatThrownBy(() -> EnergyKernel.exact(p).energies(right, new double[3], 1))
+                .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("cannot hold 3");
+    }
+}

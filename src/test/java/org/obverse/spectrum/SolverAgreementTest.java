@@ -1,0 +1,98 @@
+package org.obverse.spectrum;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import org.junit.jupiter.api.Test;
+import org.obverse.model.IsingProblem;
+import org.obverse.spectrum.SectorBasis.Sector;
+import org.obverse.testsupport.QuietTest;
+import org.obverse.testsupport.Seeds;
+
+/**
+ * Differential checks: the matrix-free Lanczos solver against EJML's dense symmetric
+ * eigendecomposition (the oracle for the dense case), and both against an independent
+ * construction of H(s) diagonalised by commons-math3 ({@link ReferenceHamiltonian}).
+ */
+class SolverAgreementTest extends QuietTest {
+    private static final double TOL = 1e-10;
+
+    /* Random problems of 3..8 spins, with and without fields, at random s and at s = 0, 1 (degenerate). */
+    @Test
+    void lanczosAgreesWithDense() {
+        Seeds.forEachCase(40, 9100, (rng, seed) -> {
+            int n = 3 + rng.nextInt(6);
+            boolean fields = rng.nextBoolean();
+            IsingProblem p = TestProblems.random(rng, n, 0.4, fields);
+            Sector sector = rng.nextInt(4) == 0 ? Sector.FULL : Sector.REACHABLE;
+            SpectrumSettings base = SpectrumSettings.defaults().withLevels(2 + rng.nextInt(6)).withSector(sector);
+            AnnealSchedule schedule = AnnealSchedule.illustrative();
+            AnnealSpectrum dense = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.DENSE));
+            AnnealSpectrum lanczos = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.LANCZOS));
+            double[] sValues = {0.0, 1.0, rng.nextDouble(), rng.nextDouble()};
+            for (double s : sValues) {
+                double[] d = dense.levels(s);
+                double[] l = lanczos.levels(s);
+                assertThat(l).hasSameSizeAs(d);
+                for (int i = 0; i < d.length; i++) {
+                    assertThat(l[i]).as("n=%d fields=%s level %d at s=%s", n, fields, i, s)
+                            .isCloseTo(d[i], within(TOL));
+                }
+            }
+        });
+    }
+
+    /* Full-space levels equal the independent commons-math3 oracle's lowest ones. */
+    @Test
+    void fullSpectrumMatchesIndependentOracle() {
+        Seeds.forEachCase(20, 9200, (rng, seed) -> {
+            int n = 2 + rng.nextInt(6);
+            IsingProblem p = TestProblems.random(rng, n, 0.5, rng.nextBoolean());
+            double s = rng.nextDouble();
+            double[] oracle = ReferenceHamiltonian.eigenvalues(ReferenceHamiltonian.full(p, 1 - s, s));
+            SpectrumSettings settings = SpectrumSettings.defaults().withLevels(Math.min(6, 1 << n))
+                    .withSector(Sector.FULL).withSolver(SolverChoice.LANCZOS);
+            double[] e = AnnealSpectrum.of(p, AnnealSchedule.illustrative(), settings).levels(s);
+            for (int i = 0; i < e.length; i++) {
+                assertThat(e[i]).isCloseTo(oracle[i], within(TOL));
+            }
+        });
+    }
+
+    /* For connected problems without fields, the reachable sector is the oracle's even sector of the global flip. */
+    @Test
+    void reachableSectorMatchesOracleEvenSector() {
+        Seeds.forEachCase(20, 9300, (rng, seed) -> {
+            int n = 2 + rng.nextInt(6);
+            IsingProblem p = TestProblems.random(rng, n, 0.5, false);
+            double s = rng.nextDouble();
+            double[] oracle = ReferenceHamiltonian.eigenvalues(ReferenceHamiltonian.even(p, 1 - s, s));
+            for (SolverChoice solver : new SolverChoice[] {SolverChoice.DENSE, SolverChoice.LANCZOS}) {
+                SpectrumSettings settings = SpectrumSettings.defaults().withLevels(Math.min(5, oracle.length))
+                        .withSolver(solver);
+                AnnealSpectrum spectrum = AnnealSpectrum.of(p, AnnealSchedule.illustrative(), settings);
+                assertThat(spectrum.basis().dimension()).isEqualTo(1 << (n - 1));
+                double[] e = spectrum.levels(s);
+                for (int i = 0; i < e.length; i++) {
+                    assertThat(e[i]).isCloseTo(oracle[i], within(TOL));
+                }
+            }
+        });
+    }
+
+    /* A larger case: 10 spins with fields (dimension 1024), where the dense solve still takes about a second. */
+    @Test
+    void lanczosAgreesWithDenseAtTheDenseLimit() {
+        Seeds.forEachCase(1, 9400, (rng, seed) -> {
+            IsingProblem p = TestProblems.random(rng, 10, 0.3, true);
+            SpectrumSettings settings = SpectrumSettings.defaults().withLevels(4);
+            AnnealSchedule schedule = AnnealSchedule.illustrative();
+            double s = 0.4;
+            double[] d = AnnealSpectrum.of(p, schedule, settings.withSolver(SolverChoice.DENSE)).levels(s);
+            double[] l = AnnealSpectrum.of(p, schedule, settings.withSolver(SolverChoice.LANCZOS)).levels(s);
+            for (int i = 0; i < d.length; i++) {
+                assertThat(l[i]).isCloseTo(d[i], within(TOL));
+            }
+        });
+    }
+}
