@@ -198,8 +198,13 @@ public final class MultiSpinCoding {
             long accept = ~undecided;
             if (undecided != 0) {
                 int base = d * LEVELS;
-                if (uphillLevels <= 4) {
-                    // Up to 8 terms (the K4,4 cell grid has at most 6): four levels suffice.
+                if (uphillLevels <= 3) {
+                    // Up to 6 terms, as everywhere on the K4,4 cell grid: three levels.
+                    long p0 = thresholds[base];
+                    long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
+                    long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
+                    accept |= decide(undecided, e0, p0, e1, p1, e2, p2, rng);
+                } else if (uphillLevels == 4) {
                     long p0 = thresholds[base];
                     long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
                     long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
@@ -235,6 +240,22 @@ public final class MultiSpinCoding {
      * The reads of {@code undecided} whose uniform U is below their level's threshold: bit by
      * bit from the top, a fresh random word per bit, until every read is decided.
      */
+    /** As the four-level form, for three levels. */
+    private static long decide(long undecided, long e0, long p0, long e1, long p1, long e2, long p2,
+                               UniformRandomProvider rng) {
+        long below = 0;
+        for (int bit = 0; bit < 64 && undecided != 0; bit++) {
+            long pb = (e0 & (p0 >> 63)) | (e1 & (p1 >> 63)) | (e2 & (p2 >> 63));
+            p0 <<= 1;
+            p1 <<= 1;
+            p2 <<= 1;
+            long r = rng.nextLong();
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        return below;
+    }
+
     private static long decide(long undecided, long e0, long p0, long e1, long p1, long e2, long p2, long e3, long p3,
                                UniformRandomProvider rng) {
         long below = 0;

@@ -11,20 +11,14 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.TreeMap;
 import java.util.concurrent.Callable;
 import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
-import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.ProblemFile;
-import org.obverse.io.ResultsTable;
-import org.obverse.io.SampleFiles;
-import org.obverse.io.SampleReader;
 import org.obverse.model.BinaryProblem;
 import org.obverse.problems.DegreeBoundedSpanningTree;
 import org.obverse.problems.WindArray;
-import org.obverse.samples.SampleBlock;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -126,8 +120,8 @@ public final class DemoCommand implements Callable<Integer> {
         echo(found, "embedded");
 
         Path results = dir.resolve("results.csv");
-        try (Writer rw = Files.newBufferedWriter(results, StandardCharsets.UTF_8)) {
-            ResultsTable.RowWriter rows = ResultsTable.RowWriter.start(rw, List.of("chain_coupling", "gauged"));
+        try (Writer rows = Files.newBufferedWriter(results, StandardCharsets.UTF_8)) {
+            rows.write("instance,setting,gauge,energy,count,broken,run_us,chain_coupling,gauged\n");
             for (double v : CHAIN_COUPLINGS) {
                 String vs = String.format(Locale.ROOT, "%.1f", v);
                 headline("chain coupling " + vs + ": embed, gauge, sample, un-gauge, audit, decode");
@@ -161,8 +155,10 @@ public final class DemoCommand implements Callable<Integer> {
                         Path decoded = base.resolve("decoded/" + stem);
                         verb("decode", "--problem", physical, "--logical", logical, "--chains", p("chains.json"),
                                 "--samples", base.resolve("source/" + stem + ".npy").toString(), "--rule", "majority",
-                                "--out", decoded.toString());
-                        addRows(rows, name, decoded, gauged, g, vs, "yes");
+                                "--out", decoded.toString(), "--instance", name, "--setting", gauged, "--gauge",
+                                String.valueOf(g), "--run-us", String.valueOf(RUN_US), "--column", "chain_coupling=" + vs,
+                                "--column", "gauged=yes");
+                        appendRows(rows, decoded.resolve("results.csv"));
                     }
                     // The same number of reads on the problem as embedded, without any gauge.
                     Files.createDirectories(base.resolve("direct"));
@@ -171,8 +167,10 @@ public final class DemoCommand implements Callable<Integer> {
                             base.resolve("direct/raw.npy").toString());
                     verb("decode", "--problem", physical, "--logical", logical, "--chains", p("chains.json"),
                             "--samples", base.resolve("direct/raw.npy").toString(), "--rule", "majority",
-                            "--out", base.resolve("direct/decoded").toString());
-                    addRows(rows, name, base.resolve("direct/decoded"), direct, -1, vs, "no");
+                            "--out", base.resolve("direct/decoded").toString(), "--instance", name, "--setting", direct,
+                            "--run-us", String.valueOf(RUN_US), "--column", "chain_coupling=" + vs,
+                            "--column", "gauged=no");
+                    appendRows(rows, base.resolve("direct/decoded/results.csv"));
                 }
             }
         }
@@ -199,21 +197,11 @@ public final class DemoCommand implements Callable<Integer> {
         say.println("  wrote report/report.html");
     }
 
-    /** Aggregates a decoded folder into results rows: one row per distinct (energy, broken chains). */
-    private static void addRows(ResultsTable.RowWriter rows, String instance, Path decoded, String setting, int gauge,
-                                String v, String gauged) throws IOException {
-        double[] energies = NpyVectors.readFloat64(decoded.resolve("energies.npy"), NpyVectors.ANY_LENGTH);
-        int[] broken = NpyVectors.readInt32(decoded.resolve("broken.npy"), energies.length);
-        Map<String, long[]> counts = new TreeMap<>();
-        Map<String, double[]> keys = new TreeMap<>();
-        for (int r = 0; r < energies.length; r++) {
-            String k = Double.doubleToLongBits(energies[r]) + "/" + broken[r];
-            counts.computeIfAbsent(k, x -> new long[1])[0]++;
-            keys.putIfAbsent(k, new double[] {energies[r], broken[r]});
-        }
-        for (Map.Entry<String, long[]> e : counts.entrySet()) {
-            double[] k = keys.get(e.getKey());
-            rows.row(instance, setting, gauge, k[0], e.getValue()[0], (long) k[1], RUN_US, v, gauged);
+    /** Appends the rows of one decoded results table (its header is the campaign's) to the campaign's. */
+    private static void appendRows(Writer rows, Path table) throws IOException {
+        List<String> lines = Files.readAllLines(table, StandardCharsets.UTF_8);
+        for (String line : lines.subList(1, lines.size())) {
+            rows.write(line + "\n");
         }
     }
 

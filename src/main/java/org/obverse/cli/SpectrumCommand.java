@@ -141,10 +141,16 @@ public final class SpectrumCommand implements Callable<Integer> {
         ScanSettings scan = new ScanSettings(points, sTolerance, fromRatio, toRatio, 1e-4);
         PrintWriter w = spec.commandLine().getOut();
         w.printf("schedule: %s%s%n", sched.name(), sched.isIllustrative() ? "" : " (" + sched.units() + ")");
-        if (input.problem != null) {
-            return single(ProblemCodec.read(input.problem).spin(), sched, settings, scan, w);
+        try {
+            if (input.problem != null) {
+                return single(ProblemCodec.read(input.problem).spin(), sched, settings, scan, w);
+            }
+            return sweep(sched, settings, scan, w);
+        } catch (IllegalStateException e) {
+            // The eigensolver gave up (its message says what to change): a setting to fix, not a crash.
+            throw BadInputException.at(input.problem != null ? input.problem : input.sweep.logical, "",
+                    e.getMessage(), "");
         }
-        return sweep(sched, settings, scan, w);
     }
 
     private int single(IsingProblem p, AnnealSchedule sched, SpectrumSettings settings, ScanSettings scan,

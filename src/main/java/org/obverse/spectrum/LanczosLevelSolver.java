@@ -10,27 +10,33 @@ import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
 
 /**
- * Lowest levels by a matrix-free block Lanczos method with full reorthogonalisation, locking
- * and explicit restarts.
+ * Lowest levels by a matrix-free thick-restart Lanczos method with full reorthogonalisation,
+ * locking and deflation.
  *
- * <p>Each round grows an orthonormal block Krylov basis from a block of p vectors (H applied
- * by {@link AnnealOperator#apply}, every new vector orthogonalised twice against the basis and
- * the locked vectors by classical Gram–Schmidt), forms the projected banded matrix T = QᵀHQ
- * and its Ritz pairs (EJML), and reads each Ritz pair's exact residual ‖Hy − θy‖ from the
- * coupling of the basis to the vectors beyond it. A Ritz pair is converged when that residual
- * is at most {@code tolerance · max(1, ‖H‖)} (‖H‖ bounded by |B/2|·max|H_P| + n·A/2); then
- * its eigenvalue is within that bound of a true one (Kahan; see Parlett, The Symmetric
- * Eigenvalue Problem, SIAM 1998, §11.5). The lowest converged pairs are locked (later rounds
- * work orthogonally to them: deflation); the next round restarts from the lowest unconverged
- * Ritz vectors and one fresh random vector, so a level whose partner was absent from one
- * Krylov space (an exact degeneracy) is found later. It stops when at least the wanted number
- * are locked and a round's lowest Ritz value less its residual is no lower than the last wanted
- * locked one. Blocks of p ≥ 2 resolve near-degenerate pairs that a single vector converges to only
- * slowly.
+ * <p>The basis grows from a block of p random vectors (p = 1 by default): H is applied by
+ * {@link AnnealOperator#apply} to the next unapplied vector, and the result is orthogonalised
+ * against the basis and the locked vectors by classical Gram–Schmidt, repeated where it
+ * cancelled by more than 1/√2 (the Daniel–Gragg–Kaufman–Stewart test), its coefficients
+ * recorded as a column of the projected matrix T = QᵀHQ. Ritz pairs of T (EJML) carry their
+ * exact residual ‖Hy − θy‖, read from the coupling of the applied vectors to the unapplied
+ * ones. A Ritz pair is converged when that residual is at most
+ * {@code tolerance · max(1, ‖H‖)} (‖H‖ bounded by |B/2|·max|H_P| + n·A/2); its eigenvalue is
+ * then within that bound of a true one (Parlett, The Symmetric Eigenvalue Problem, SIAM 1998,
+ * §11.5). The lowest converged pairs are locked, and later vectors are kept orthogonal to them
+ * (deflation). When the basis is full it is restarted thick (Wu and Simon, SIAM J. Matrix
+ * Anal. Appl. 22, 602, 2000): the lowest unconverged Ritz vectors stay, with T diagonal on
+ * them, plus the unapplied vectors that hold their residuals, so no progress is lost. After
+ * each lock a fresh random vector joins the basis, so a level whose degenerate partner was
+ * absent from the Krylov space is still found. It stops when at least the wanted number are
+ * locked and, in a basis holding a random vector added after the last lock, the lowest Ritz
+ * value less its residual is no lower than the last wanted locked level (Ritz values bound
+ * the eigenvalues from above, so no unlocked level lies lower unless it is missing from the
+ * Krylov space, which a random vector makes improbable).
  *
- * <p>Memory: (basis + p + locked) vectors of 2^m doubles; the basis is capped by
- * {@link #BASIS_BYTES}. Start vectors come from a fixed seed: results are reproducible.
- * Immutable; safe to share.
+ * <p>Memory: (basis + locked + 1) vectors of 2^m doubles; the basis holds at most
+ * {@link #MAX_BASIS} vectors and at most {@link #BASIS_BYTES}. Start vectors come from a fixed
+ * seed: results are reproducible and do not depend on the thread count. Immutable; safe to
+ * share.
  */
 public final class LanczosLevelSolver implements LevelSolver {
     /** Largest number of stored spins (a sector of 2^20 states). */
@@ -59,7 +65,8 @@ public final class LanczosLevelSolver implements LevelSolver {
     }
 
     /**
-     * A solver. Input: tolerance in [1e-14, 1e-2]; block size 1 to 8.
+     * A solver. Input: tolerance in [1e-14, 1e-2]; block size 1 to 8 (a larger block resolves
+     * clusters of near-degenerate levels in fewer restarts, at more products per level).
      */
     public static LanczosLevelSolver of(double tolerance, int blockSize) {
         if (!(tolerance >= 1e-14 && tolerance <= 1e-2)) {
