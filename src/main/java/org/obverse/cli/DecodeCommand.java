@@ -86,6 +86,7 @@ public final class DecodeCommand implements Callable<Integer> {
     @Option(names = "--column", paramLabel = "NAME=VALUE",
             description = "an extra column of the results rows, e.g. --column chain_coupling=-1.6 (repeatable)")
     List<String> columns = new ArrayList<>();
+
     @Option(names = "--binary", description = "samples are stored as 0/1 (x = (1 + s) / 2), in and out, instead of -1/+1")
     boolean binary;
 
