@@ -16,7 +16,9 @@ import org.obverse.model.IsingProblem;
  * acceptance threshold P(d, m) = ⌊exp(−β ΔE)·2⁶³⌋·2 (a 64-bit fixed-point fraction), bit by
  * bit from the most significant end with fresh random words: a read is decided at the first
  * bit where U and P differ, so every read gets an independent exact-to-2⁻⁶³ Bernoulli draw
- * and a sweep costs about log₂(64) + 1.3 random words per spin, not 64.
+ * from about ten random words per spin (not 64). Where a spin has at most six terms (the
+ * K4,4 cell grid) the first ten bits are always drawn, a loop of fixed length that the
+ * processor predicts; elsewhere the loop stops as soon as every read is decided.
  *
  * <p>Immutable after {@link #of}; the sweep kernel allocates nothing.
  */
