@@ -19,7 +19,7 @@ import org.obverse.io.SampleWriter;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
 import org.obverse.samples.SampleBlock;
-import org.obverse.samples.SpinFlips;
+import org.obverse.samples.SpinFlip;
 
 /**
  * Maps raw samples out of their gauges: for each gauge of a manifest, {@code SAMPLES/<stem>.npy}
@@ -127,13 +127,13 @@ public final class UngaugeStep {
     /** Un-gauges one file, streaming. */
     static long ungaugeFile(Path in, Path out, VariableIndex ids, Gauge g, SampleCoding coding, Moments mom)
             throws IOException {
-        int[] flipped = g.flippedPositions();
+        SpinFlip flip = SpinFlip.of(ids.size(), g.flippedPositions());
         try (SampleReader reader = SampleFiles.open(in, ids, coding);
              SampleWriter writer = SampleFiles.create(out, ids, false, coding)) {
             SampleBlock b = null;
             while ((b = reader.nextBlock(CHUNK_READS, b)) != null) {
                 mom.add(b);
-                SpinFlips.flipInPlace(b, flipped);
+                flip.applyInPlace(b);
                 writer.writeBlock(b);
             }
             writer.commit();

@@ -18,7 +18,10 @@ import org.obverse.io.ChainList;
 import org.obverse.io.ChainsCodec;
 import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
+import org.obverse.io.SampleCoding;
 import org.obverse.io.SampleFiles;
+import org.obverse.io.SampleReader;
+import org.obverse.io.SampleWriter;
 import org.obverse.io.SampleFormat;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
@@ -84,6 +87,9 @@ public final class DecodeCommand implements Callable<Integer> {
             description = "an extra column of the results rows, e.g. --column chain_coupling=-1.6 (repeatable)")
     List<String> columns = new ArrayList<>();
 
+    @Option(names = "--binary", description = "samples are stored as 0/1 (x = (1 + s) / 2), in and out, instead of -1/+1")
+    boolean binary;
+
     @Override
     public Integer call() throws Exception {
         ChainBreakRule r = ChainBreakRule.named(rule);
@@ -121,7 +127,11 @@ public final class DecodeCommand implements Callable<Integer> {
         } catch (IllegalArgumentException e) {
             throw BadInputException.at(chains, "", e.getMessage(), "give the chains that " + problem + " was embedded with");
         }
-        SampleBlock physical = SampleFiles.readAll(samples, qubits);
+        SampleCoding coding = binary ? SampleCoding.BINARY : SampleCoding.SPIN;
+        SampleBlock physical;
+        try (SampleReader in = SampleFiles.open(samples, qubits, coding)) {
+            physical = in.readRemaining();
+        }
         DecodedSamples d;
         try {
             d = decoder.decode(physical);
@@ -130,7 +140,10 @@ public final class DecodeCommand implements Callable<Integer> {
         }
         Path logicalName = Path.of(SampleFormat.of(samples).fileName("logical"));
         AtomicOutput.writeDirectory(out, force, dir -> {
-            SampleFiles.writeAll(dir.resolve(logicalName), q.variables(), false, d.logical());
+            try (SampleWriter w = SampleFiles.create(dir.resolve(logicalName), q.variables(), false, coding)) {
+                w.writeBlock(d.logical());
+                w.commit();
+            }
             NpyVectors.writeBool(dir.resolve("kept.npy"), false, d.kept());
             NpyVectors.writeInt32(dir.resolve("broken.npy"), false, d.brokenChains());
             NpyVectors.writeFloat64(dir.resolve("energies.npy"), false, d.energies());

@@ -118,6 +118,20 @@ class GaugeRoundTripCommandTest extends CommandTestSupport {
     }
 
     @Test
+    void auditComparesAnnealSpectraOfSmallProblems() throws Exception {
+        assertThat(gauge("g").code()).isZero();
+        Run a = obverse("audit", "--manifest", dir.resolve("g/manifest.json").toString(), "--spectrum");
+        assertThat(a.code()).as(a.out()).isZero();
+        assertThat(a.out().lines().filter(l -> l.startsWith("ok    ") && l.contains("anneal spectrum equals"))).hasSize(8);
+        // A gauged problem with one coupler changed is not unitarily equivalent any more.
+        Path g3 = dir.resolve("g/g0003.json");
+        Files.writeString(g3, Files.readString(g3).replace("0.5", "0.4"));
+        Run t = obverse("audit", "--manifest", dir.resolve("g/manifest.json").toString(), "--spectrum");
+        assertThat(t.code()).isEqualTo(1);
+        assertThat(t.out()).contains("FAIL  gauge 3: anneal spectrum equals");
+    }
+
+    @Test
     void tamperedGaugedProblemFailsTheAudit() throws Exception {
         assertThat(gauge("g").code()).isZero();
         Path g3 = dir.resolve("g/g0003.json");

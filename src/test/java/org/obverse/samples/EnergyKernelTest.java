@@ -31,7 +31,8 @@ class EnergyKernelTest extends QuietTest {
             IsingProblem p = GeneratedProblems.problem(rng, kind, 90);
             int reads = 1 + rng.nextInt(200);
             byte[] s = GeneratedProblems.spins(rng, reads * p.size());
-            double[] e = EnergyKernel.exact(p).energies(SampleBlock.fromSpins(s, reads, p.size()));
+            SampleBlock block = SampleBlock.fromSpins(s, reads, p.size());
+            double[] e = EnergyKernel.exact(p).energies(block);
             for (int r = 0; r < reads; r++) {
                 assertThat(bits(e[r])).as("read %d", r).isEqualTo(bits(p.energy(GeneratedProblems.row(s, r, p.size()))));
             }
