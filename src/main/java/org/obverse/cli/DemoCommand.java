@@ -194,6 +194,14 @@ public final class DemoCommand implements Callable<Integer> {
         r1.addAll(List.of("--magnetisation", p(middle + "/source/magnetisation.csv"), "--correlations",
                 p(middle + "/source/correlations.csv"), "--balanced-gauges", "--series", "gauged", "--out", p("report")));
         verb(r1.toArray(new String[0]));
+        // The steps ran in a temporary folder that is renamed at the end: name the final one instead.
+        String finalDir = out.toAbsolutePath().normalize().toString();
+        for (String f : new String[] {"report/report.html", "report/scores.json", "scores/scores.json"}) {
+            Path file = dir.resolve(f);
+            if (Files.exists(file)) {
+                Files.writeString(file, Files.readString(file).replace(dir.toString(), finalDir));
+            }
+        }
         say.println("  wrote report/report.html");
     }
 

@@ -116,7 +116,16 @@ public final class ReportPlots {
         XYChart chart = base("Success probability (" + label(q) + " over instances) against " + axis.title(), axis,
                 "success probability");
         chart.getStyler().setYAxisMin(0.0);
-        chart.getStyler().setYAxisMax(1.0);
+        // Rare success would be a flat line on [0, 1]: fit the axis to the largest upper band.
+        double top = 0;
+        for (CampaignSummary.SettingRow r : rows) {
+            for (double v : new double[] {r.p(), r.pOuter()[1]}) {
+                if (Double.isFinite(v)) {
+                    top = Math.max(top, v);
+                }
+            }
+        }
+        chart.getStyler().setYAxisMax(top > 0 && top < 0.5 ? Math.min(1.0, 1.15 * top) : 1.0);
         addBanded(chart, axis, rows.size(), s -> rows.get(s).p(), s -> rows.get(s).pBand(),
                 s -> rows.get(s).pOuter(), false, band(summary.options().band()), band(summary.options().outerBand()));
         return Figure.render("success", "Success probability per read, the " + label(q)
