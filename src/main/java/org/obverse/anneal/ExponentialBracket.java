@@ -19,7 +19,6 @@ public final class ExponentialBracket {
     private static final int SIZE = (int) (LIMIT * INVERSE_STEP) + 1;
     // TABLE[k] = exp(-k δ) for k <= SIZE; one more entry, 0, closes the overflow bracket.
     private static final double[] TABLE = new double[SIZE + 2];
-    private static final double LAST_BIN = SIZE;
 
     static {
         for (int k = 0; k <= SIZE; k++) {
@@ -48,20 +47,5 @@ public final class ExponentialBracket {
             return false;
         }
         return u < StrictMath.exp(-x);
-    }
-
-    /**
-     * Whether u &lt; StrictMath.exp(−x) for any finite x (x ≤ 0 always accepts) and u in
-     * [0, 1); equal to the exact comparison for every input. Written with one rarely taken
-     * branch (the bracket), so that the caller's accept branch is the only unpredictable one.
-     */
-    public static boolean acceptsAny(double x, double u) {
-        double clamped = Math.max(x, 0.0);
-        int k = (int) Math.min(clamped * INVERSE_STEP, LAST_BIN);
-        boolean accept = (u < TABLE[k + 1]) | (x <= 0.0);
-        if (!accept & (u < TABLE[k])) {
-            accept = u < StrictMath.exp(-x);
-        }
-        return accept;
     }
 }

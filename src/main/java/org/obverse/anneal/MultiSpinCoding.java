@@ -16,7 +16,9 @@ import org.obverse.model.IsingProblem;
  * acceptance threshold P(d, m) = ⌊exp(−β ΔE)·2⁶³⌋·2 (a 64-bit fixed-point fraction), bit by
  * bit from the most significant end with fresh random words: a read is decided at the first
  * bit where U and P differ, so every read gets an independent exact-to-2⁻⁶³ Bernoulli draw
- * and a sweep costs about log₂(64) + 1.3 random words per spin, not 64.
+ * from about ten random words per spin (not 64). Where a spin has at most six terms (the
+ * K4,4 cell grid) the first ten bits are always drawn, a loop of fixed length that the
+ * processor predicts; elsewhere the loop stops as soon as every read is decided.
  *
  * <p>Immutable after {@link #of}; the sweep kernel allocates nothing.
  */
@@ -24,6 +26,8 @@ public final class MultiSpinCoding {
     /** Largest number of terms (neighbours plus field) of one spin. */
     public static final int MAX_TERMS = 15;
     private static final int LEVELS = 8;
+    /** Threshold bits always drawn before the loop stops at the first fully decided word. */
+    private static final int FIXED_ROUNDS = 10;
 
     private final int n;
     private final double magnitude;
@@ -198,8 +202,13 @@ public final class MultiSpinCoding {
             long accept = ~undecided;
             if (undecided != 0) {
                 int base = d * LEVELS;
-                if (uphillLevels <= 4) {
-                    // Up to 8 terms (the K4,4 cell grid has at most 6): four levels suffice.
+                if (uphillLevels <= 3) {
+                    // Up to 6 terms, as everywhere on the K4,4 cell grid: three levels.
+                    long p0 = thresholds[base];
+                    long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
+                    long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
+                    accept |= decide(undecided, e0, p0, e1, p1, e2, p2, rng);
+                } else if (uphillLevels == 4) {
                     long p0 = thresholds[base];
                     long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
                     long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
@@ -235,6 +244,35 @@ public final class MultiSpinCoding {
      * The reads of {@code undecided} whose uniform U is below their level's threshold: bit by
      * bit from the top, a fresh random word per bit, until every read is decided.
      */
+    /**
+     * As the four-level form, for three levels. The first {@link #FIXED_ROUNDS} bits are
+     * always drawn (a loop of fixed length, which the processor predicts); reads still
+     * undecided after them (probability 2⁻¹⁰ each) continue bit by bit.
+     */
+    private static long decide(long undecided, long e0, long p0, long e1, long p1, long e2, long p2,
+                               UniformRandomProvider rng) {
+        long below = 0;
+        for (int bit = 0; bit < FIXED_ROUNDS; bit++) {
+            long pb = (e0 & (p0 >> 63)) | (e1 & (p1 >> 63)) | (e2 & (p2 >> 63));
+            p0 <<= 1;
+            p1 <<= 1;
+            p2 <<= 1;
+            long r = rng.nextLong();
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        for (int bit = FIXED_ROUNDS; bit < 64 && undecided != 0; bit++) {
+            long pb = (e0 & (p0 >> 63)) | (e1 & (p1 >> 63)) | (e2 & (p2 >> 63));
+            p0 <<= 1;
+            p1 <<= 1;
+            p2 <<= 1;
+            long r = rng.nextLong();
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        return below;
+    }
+
     private static long decide(long undecided, long e0, long p0, long e1, long p1, long e2, long p2, long e3, long p3,
                                UniformRandomProvider rng) {
         long below = 0;

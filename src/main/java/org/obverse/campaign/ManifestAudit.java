@@ -30,6 +30,8 @@ import org.obverse.io.SampleReader;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
 import org.obverse.samples.SampleBlock;
+import org.obverse.spectrum.SpectrumCheck;
+import org.obverse.spectrum.SpectrumSettings;
 
 /**
  * Re-derives everything a manifest claims and checks it: source hashes, the lock analysis,
@@ -49,13 +51,25 @@ public final class ManifestAudit {
     private ManifestAudit() {
     }
 
-    public record Request(Path manifest, Path samples) {
+    /**
+     * What to audit: the manifest, the raw samples folder (or null for seeded random samples), and
+     * whether to compare the anneal spectrum of each gauged problem with the source's (only for
+     * problems small enough for the exact solvers; others are listed as skipped).
+     */
+    public record Request(Path manifest, Path samples, boolean spectrum) {
+        public Request(Path manifest, Path samples) {
+            this(manifest, samples, false);
+        }
     }
 
     /** All checks, in order. */
     public record Report(List<AuditCheck> checks) {
         public boolean allPassed() {
             return checks.stream().allMatch(AuditCheck::passed);
+        }
+
+        public long skipped() {
+            return checks.stream().filter(AuditCheck::skipped).count();
         }
 
         public long failures() {
@@ -159,6 +173,9 @@ public final class ManifestAudit {
             out.add(AuditCheck.of(subject, "locked couplers unchanged", lockedChanged(p, onDisk.spin(), clusters),
                     clusters.lockedCouplers().length + " locked"));
             energyChecks(out, subject, r.samples(), e, p, gauged, g, m.seed(), termScale);
+            if (r.spectrum()) {
+                spectrumCheck(out, subject, p, onDisk.spin());
+            }
         }
         return new Report(out);
     }
@@ -274,6 +291,18 @@ public final class ManifestAudit {
                         reported.length + " reads, largest difference " + worst));
             }
         }
+    }
+
+    private static void spectrumCheck(List<AuditCheck> out, String subject, IsingProblem source, IsingProblem gauged) {
+        String claim = "anneal spectrum equals the source's (lowest levels of the reachable sector at s = "
+                + Arrays.toString(SpectrumCheck.DEFAULT_S) + ", illustrative schedule)";
+        if (!SpectrumCheck.fits(source, SpectrumSettings.defaults())) {
+            out.add(AuditCheck.skip(subject, claim, source.size() + " spins are more than the exact solvers take"));
+            return;
+        }
+        SpectrumCheck.Comparison c = SpectrumCheck.sameSpectrum(source, gauged);
+        out.add(AuditCheck.of(subject, claim, c.same() ? null : c.reason(),
+                "largest difference " + c.worstDifference()));
     }
 
     /** |offset| + Σ|h| + Σ|J|: the largest energy magnitude; reported energies are compared relative to it. */

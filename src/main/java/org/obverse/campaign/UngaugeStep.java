@@ -16,9 +16,10 @@ import org.obverse.io.SampleFiles;
 import org.obverse.io.SampleFormat;
 import org.obverse.io.SampleReader;
 import org.obverse.io.SampleWriter;
+import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
 import org.obverse.samples.SampleBlock;
-import org.obverse.samples.SpinFlips;
+import org.obverse.samples.SpinFlip;
 
 /**
  * Maps raw samples out of their gauges: for each gauge of a manifest, {@code SAMPLES/<stem>.npy}
@@ -27,6 +28,10 @@ import org.obverse.samples.SpinFlips;
  * Refuses a changed source or gauged problem, a wrong width, values other than ±1, and a gauge
  * without its samples unless missing ones are allowed. A reported-energies file
  * {@code <stem>.energies.npy} is copied along unchanged (energies do not change under a gauge).
+ * On the way it tallies the device-frame moments that bias diagnostics need and writes them
+ * beside the samples: {@code OUT/magnetisation.csv} (qubit, gauge, reads, sum_spin, sign) and
+ * {@code OUT/correlations.csv} (qubit_a, qubit_b, gauge, reads, sum_product, sign) over the
+ * problem's couplers.
  */
 public final class UngaugeStep {
     /** Reads un-gauged per chunk: a multiple of 64. */
@@ -93,7 +98,10 @@ public final class UngaugeStep {
             }
         }
         List<Done> done = new ArrayList<>();
+        IsingProblem spin = pf.spin();
         AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+            StringBuilder mag = new StringBuilder("qubit,gauge,reads,sum_spin,sign\n");
+            StringBuilder cor = new StringBuilder("qubit_a,qubit_b,gauge,reads,sum_product,sign\n");
             for (int i = 0; i < inputs.size(); i++) {
                 Path in = inputs.get(i);
                 if (in == null) {
@@ -101,29 +109,82 @@ public final class UngaugeStep {
                 }
                 GaugeManifest.Entry e = m.gauges().get(i);
                 Path out = SampleFiles.sameLayout(in, dir, e.stem());
-                long reads = ungaugeFile(in, out, ids, gauges.get(i), r.coding());
+                Moments mom = new Moments(spin);
+                long reads = ungaugeFile(in, out, ids, gauges.get(i), r.coding(), mom);
+                mom.append(mag, cor, e.index(), gauges.get(i), ids, spin);
                 Path energies = r.samples().resolve(e.stem() + ".energies.npy");
                 if (Files.exists(energies)) {
                     Files.copy(energies, dir.resolve(energies.getFileName()));
                 }
                 done.add(new Done(e.index(), in, r.out().resolve(out.getFileName()), reads));
             }
+            Files.writeString(dir.resolve("magnetisation.csv"), mag);
+            Files.writeString(dir.resolve("correlations.csv"), cor);
         });
         return new Result(done, missing);
     }
 
     /** Un-gauges one file, streaming. */
-    static long ungaugeFile(Path in, Path out, VariableIndex ids, Gauge g, SampleCoding coding) throws IOException {
-        int[] flipped = g.flippedPositions();
+    static long ungaugeFile(Path in, Path out, VariableIndex ids, Gauge g, SampleCoding coding, Moments mom)
+            throws IOException {
+        SpinFlip flip = SpinFlip.of(ids.size(), g.flippedPositions());
         try (SampleReader reader = SampleFiles.open(in, ids, coding);
              SampleWriter writer = SampleFiles.create(out, ids, false, coding)) {
             SampleBlock b = null;
             while ((b = reader.nextBlock(CHUNK_READS, b)) != null) {
-                SpinFlips.flipInPlace(b, flipped);
+                mom.add(b);
+                flip.applyInPlace(b);
                 writer.writeBlock(b);
             }
             writer.commit();
             return writer.readsWritten();
+        }
+    }
+
+    /** Device-frame sums of one gauge's raw reads: Σ s_k per qubit and Σ s_a s_b per coupler, by popcounts. */
+    static final class Moments {
+        private final int[] u;
+        private final int[] v;
+        private final long[] up;
+        private final long[] differ;
+        private long reads;
+
+        Moments(IsingProblem p) {
+            u = p.edgeUs();
+            v = p.edgeVs();
+            up = new long[p.size()];
+            differ = new long[u.length];
+        }
+
+        void add(SampleBlock b) {
+            int n = b.variables();
+            long[] w = b.words();
+            for (int blk = 0; blk < b.blockCount(); blk++) {
+                long mask = b.validMask(blk);
+                int base = blk * n;
+                for (int k = 0; k < n; k++) {
+                    up[k] += Long.bitCount(w[base + k] & mask);
+                }
+                for (int e = 0; e < u.length; e++) {
+                    differ[e] += Long.bitCount((w[base + u[e]] ^ w[base + v[e]]) & mask);
+                }
+            }
+            reads += b.reads();
+        }
+
+        void append(StringBuilder mag, StringBuilder cor, int gauge, Gauge g, VariableIndex ids, IsingProblem p) {
+            if (reads == 0) {
+                return; // an empty file has no moments; the tables require reads >= 1
+            }
+            for (int k = 0; k < up.length; k++) {
+                mag.append(ids.id(k)).append(',').append(gauge).append(',').append(reads).append(',')
+                        .append(2 * up[k] - reads).append(',').append(g.sign(k)).append('\n');
+            }
+            for (int e = 0; e < u.length; e++) {
+                cor.append(ids.id(u[e])).append(',').append(ids.id(v[e])).append(',').append(gauge).append(',')
+                        .append(reads).append(',').append(reads - 2 * differ[e]).append(',')
+                        .append(g.sign(u[e]) * g.sign(v[e])).append('\n');
+            }
         }
     }
 

@@ -11,20 +11,14 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import java.util.TreeMap;
 import java.util.concurrent.Callable;
 import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
-import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.ProblemFile;
-import org.obverse.io.ResultsTable;
-import org.obverse.io.SampleFiles;
-import org.obverse.io.SampleReader;
 import org.obverse.model.BinaryProblem;
 import org.obverse.problems.DegreeBoundedSpanningTree;
 import org.obverse.problems.WindArray;
-import org.obverse.samples.SampleBlock;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -45,8 +39,7 @@ public final class DemoCommand implements Callable<Integer> {
     /** Chain couplings swept: all in the extended negative range of [-2, +1], so the chains are locked. */
     static final double[] CHAIN_COUPLINGS = {-1.2, -1.6, -2.0};
     static final int GAUGES = 8;
-    static final int READS_PER_GAUGE = 250;
-    static final String INSTANCE = "wind-array";
+    static final int READS_PER_GAUGE = 100;
     static final double RUN_US = 1.0;
 
     @Spec
@@ -63,7 +56,7 @@ public final class DemoCommand implements Callable<Integer> {
     private Writer log;
     private Path dir;
     private int step;
-    private static final int STEPS = 8 + CHAIN_COUPLINGS.length - 3 + 1;
+    private static final int STEPS = 5 + CHAIN_COUPLINGS.length;
 
     @Override
     public Integer call() throws Exception {
@@ -82,79 +75,103 @@ public final class DemoCommand implements Callable<Integer> {
         return Main.DONE;
     }
 
+    /** The demo's instances: one cable graph, three invented turbine layouts (so one set of chains serves all). */
+    static List<Map.Entry<String, WindArray>> instances() {
+        WindArray a = WindArray.demo();
+        WindArray b = new WindArray(a.sites(), new double[] {0.0, 1.1, 0.8, 1.9}, new double[] {0.0, 0.4, -0.7, -0.2},
+                a.cables(), a.bays(), a.maxString());
+        WindArray c = new WindArray(a.sites(), new double[] {0.0, 0.9, 1.0, 2.1}, new double[] {0.0, 0.2, -0.9, 0.3},
+                a.cables(), a.bays(), a.maxString());
+        return List.of(Map.entry("layout-a", a), Map.entry("layout-b", b), Map.entry("layout-c", c));
+    }
+
     private void run() throws IOException {
-        WindArray array = WindArray.demo();
-        DegreeBoundedSpanningTree tree = array.problem();
-        BinaryProblem qubo = tree.qubo();
-        DegreeBoundedSpanningTree.Tree best = tree.exactBest().orElseThrow();
         Files.createDirectories(dir.resolve("inputs"));
-        ProblemCodec.write(dir.resolve("inputs/logical.json"), false, ProblemFile.of(qubo, null));
-        Files.writeString(dir.resolve("inputs/ground.csv"), "instance,ground_energy\n" + INSTANCE + ","
-                + best.quboEnergy() + "\n");
+        StringBuilder ground = new StringBuilder("instance,ground_energy\n");
+        headline("the problem: " + instances().size() + " layouts of a small wind array's cable tree");
+        for (Map.Entry<String, WindArray> inst : instances()) {
+            WindArray array = inst.getValue();
+            DegreeBoundedSpanningTree tree = array.problem();
+            BinaryProblem qubo = tree.qubo();
+            DegreeBoundedSpanningTree.Tree best = tree.exactBest().orElseThrow();
+            ProblemCodec.write(dir.resolve("inputs/" + inst.getKey() + ".json"), false, ProblemFile.of(qubo, null));
+            ground.append(inst.getKey()).append(',').append(best.quboEnergy()).append('\n');
+            say.printf(Locale.ROOT, "  %s: %d variables, %d pair terms; exact best layout %s, QUBO energy %.6f%n",
+                    inst.getKey(), qubo.size(), qubo.edgeCount(), array.describe(best.edges()), best.quboEnergy());
+        }
+        WindArray first = instances().get(0).getValue();
+        say.printf(Locale.ROOT, "  (substation and %d turbines, %d candidate cables, %d cable bays each, as a "
+                + "degree-bounded spanning-tree QUBO; invented numbers: a real cable layout follows the electrical "
+                + "codes and a licensed engineer)%n", first.sites().size() - 1, first.cables().length, first.bays()[1]);
+        Files.writeString(dir.resolve("inputs/ground.csv"), ground);
         Files.writeString(dir.resolve("inputs/errors.json"), "{\n  \"format\": \"obverse.errors/1\",\n"
                 + "  \"seed\": 20261201,\n  \"field_sigma\": 0.05,\n  \"coupling_sigma\": 0.03,\n"
                 + "  \"read_field_sigma\": 0.01,\n  \"read_coupling_sigma\": 0.0\n}\n");
-        headline("the problem");
-        say.printf(Locale.ROOT, "  wind array: substation and %d turbines, %d candidate cables, %d cable bays each "
-                + "(invented numbers; a real layout follows the electrical codes and a licensed engineer)%n",
-                array.sites().size() - 1, array.cables().length, array.bays()[1]);
-        say.printf(Locale.ROOT, "  degree-bounded spanning tree as a QUBO: %d variables, %d pair terms; exact best "
-                + "layout %s, QUBO energy %.6f%n", qubo.size(), qubo.edgeCount(), array.describe(best.edges()),
-                best.quboEnergy());
 
         headline("the device: 3 x 3 cells of K4,4, two qubits missing, couplings in [-2, +1]");
         verb("device", "lattice", "--rows", "3", "--cols", "3", "--shore", "4", "--remove-qubits", "5,40",
                 "--field", "-2,2", "--coupling", "-2,1", "--out", p("device.json"));
 
-        headline("embedding: chains found once, then re-embedded at each chain coupling");
+        headline("embedding: chains found once (the layouts share one QUBO structure), re-embedded at each coupling");
         Files.createDirectories(dir.resolve("embedding"));
-        String found = verb("embed", "--logical", p("inputs/logical.json"), "--device", p("device.json"),
+        String found = verb("embed", "--logical", p("inputs/layout-a.json"), "--device", p("device.json"),
                 "--chain-coupling", "-1.6", "--seed", "3", "--out", p("embedding/found.json"),
                 "--chains-out", p("chains.json"));
         echo(found, "embedded");
 
-        List<String> settings = new ArrayList<>();
         Path results = dir.resolve("results.csv");
-        try (Writer rw = Files.newBufferedWriter(results, StandardCharsets.UTF_8)) {
-            ResultsTable.RowWriter rows = ResultsTable.RowWriter.start(rw, List.of("chain_coupling", "gauged"));
+        try (Writer rows = Files.newBufferedWriter(results, StandardCharsets.UTF_8)) {
+            rows.write("instance,setting,gauge,energy,count,broken,run_us,chain_coupling,gauged\n");
             for (double v : CHAIN_COUPLINGS) {
-                String tag = String.format(Locale.ROOT, "V%+.1f", v);
                 String vs = String.format(Locale.ROOT, "%.1f", v);
                 headline("chain coupling " + vs + ": embed, gauge, sample, un-gauge, audit, decode");
-                Path base = Files.createDirectories(dir.resolve(tag));
-                String physical = base.resolve("physical.json").toString();
-                verb("embed", "--logical", p("inputs/logical.json"), "--device", p("device.json"), "--chains",
-                        p("chains.json"), "--chain-coupling", vs, "--out", physical);
-                echo(verb("gauge", "--problem", physical, "--device", p("device.json"), "--lock", "range",
-                        "--count", String.valueOf(GAUGES), "--design", "balanced", "--seed", "17",
-                        "--out", base.resolve("gauges").toString()), "locks");
-                verb("sample", "--manifest", base.resolve("gauges/manifest.json").toString(), "--reads",
-                        String.valueOf(READS_PER_GAUGE), "--seed", "29", "--errors", p("inputs/errors.json"),
-                        "--out", base.resolve("raw").toString());
-                verb("ungauge", "--manifest", base.resolve("gauges/manifest.json").toString(), "--samples",
-                        base.resolve("raw").toString(), "--out", base.resolve("source").toString());
-                echo(verb("audit", "--manifest", base.resolve("gauges/manifest.json").toString(), "--samples",
-                        base.resolve("raw").toString()), "audit:");
                 String gauged = "V=" + vs + " gauged";
                 String direct = "V=" + vs + " no gauge";
-                settings.add(gauged);
-                settings.add(direct);
-                for (int g = 0; g < GAUGES; g++) {
-                    String stem = String.format(Locale.ROOT, "g%04d", g);
-                    Path decoded = base.resolve("decoded/" + stem);
-                    verb("decode", "--problem", physical, "--logical", p("inputs/logical.json"), "--chains",
-                            p("chains.json"), "--samples", base.resolve("source/" + stem + ".npy").toString(),
-                            "--rule", "majority", "--out", decoded.toString());
-                    addRows(rows, decoded, gauged, g, vs, "yes");
+                boolean firstInstance = true;
+                for (Map.Entry<String, WindArray> inst : instances()) {
+                    String name = inst.getKey();
+                    String logical = p("inputs/" + name + ".json");
+                    Path base = Files.createDirectories(dir.resolve(String.format(Locale.ROOT, "V%+.1f", v)).resolve(name));
+                    String physical = base.resolve("physical.json").toString();
+                    verb("embed", "--logical", logical, "--device", p("device.json"), "--chains", p("chains.json"),
+                            "--chain-coupling", vs, "--out", physical);
+                    String locks = verb("gauge", "--problem", physical, "--device", p("device.json"), "--lock", "range",
+                            "--count", String.valueOf(GAUGES), "--design", "balanced", "--seed", "17",
+                            "--out", base.resolve("gauges").toString());
+                    if (firstInstance) {
+                        echo(locks, "locks");
+                        firstInstance = false;
+                    }
+                    verb("sample", "--manifest", base.resolve("gauges/manifest.json").toString(), "--reads",
+                            String.valueOf(READS_PER_GAUGE), "--seed", "29", "--errors", p("inputs/errors.json"),
+                            "--out", base.resolve("raw").toString());
+                    verb("ungauge", "--manifest", base.resolve("gauges/manifest.json").toString(), "--samples",
+                            base.resolve("raw").toString(), "--out", base.resolve("source").toString());
+                    String audit = verb("audit", "--manifest", base.resolve("gauges/manifest.json").toString(),
+                            "--samples", base.resolve("raw").toString());
+                    audit.lines().filter(l -> l.startsWith("audit:")).forEach(l -> say.println("  " + name + " " + l));
+                    for (int g = 0; g < GAUGES; g++) {
+                        String stem = String.format(Locale.ROOT, "g%04d", g);
+                        Path decoded = base.resolve("decoded/" + stem);
+                        verb("decode", "--problem", physical, "--logical", logical, "--chains", p("chains.json"),
+                                "--samples", base.resolve("source/" + stem + ".npy").toString(), "--rule", "majority",
+                                "--out", decoded.toString(), "--instance", name, "--setting", gauged, "--gauge",
+                                String.valueOf(g), "--run-us", String.valueOf(RUN_US), "--column", "chain_coupling=" + vs,
+                                "--column", "gauged=yes");
+                        appendRows(rows, decoded.resolve("results.csv"));
+                    }
+                    // The same number of reads on the problem as embedded, without any gauge.
+                    Files.createDirectories(base.resolve("direct"));
+                    verb("sample", "--problem", physical, "--reads", String.valueOf(GAUGES * READS_PER_GAUGE),
+                            "--seed", "31", "--errors", p("inputs/errors.json"), "--out",
+                            base.resolve("direct/raw.npy").toString());
+                    verb("decode", "--problem", physical, "--logical", logical, "--chains", p("chains.json"),
+                            "--samples", base.resolve("direct/raw.npy").toString(), "--rule", "majority",
+                            "--out", base.resolve("direct/decoded").toString(), "--instance", name, "--setting", direct,
+                            "--run-us", String.valueOf(RUN_US), "--column", "chain_coupling=" + vs,
+                            "--column", "gauged=no");
+                    appendRows(rows, base.resolve("direct/decoded/results.csv"));
                 }
-                // The same number of reads on the problem as embedded, without any gauge.
-                Files.createDirectories(base.resolve("direct"));
-                verb("sample", "--problem", physical, "--reads", String.valueOf(GAUGES * READS_PER_GAUGE), "--seed",
-                        "31", "--errors", p("inputs/errors.json"), "--out", base.resolve("direct/raw.npy").toString());
-                verb("decode", "--problem", physical, "--logical", p("inputs/logical.json"), "--chains",
-                        p("chains.json"), "--samples", base.resolve("direct/raw.npy").toString(), "--rule", "majority",
-                        "--out", base.resolve("direct/decoded").toString());
-                addRows(rows, base.resolve("direct/decoded"), direct, -1, vs, "no");
             }
         }
 
@@ -172,26 +189,19 @@ public final class DemoCommand implements Callable<Integer> {
         headline("report: plots and tables in one HTML page");
         List<String> r1 = new ArrayList<>(score);
         r1.add(0, "report");
-        r1.addAll(List.of("--out", p("report")));
+        // The bias map: device-frame moments tallied by ungauge at the middle chain coupling.
+        String middle = String.format(Locale.ROOT, "V%+.1f", CHAIN_COUPLINGS[CHAIN_COUPLINGS.length / 2]) + "/layout-a";
+        r1.addAll(List.of("--magnetisation", p(middle + "/source/magnetisation.csv"), "--correlations",
+                p(middle + "/source/correlations.csv"), "--balanced-gauges", "--series", "gauged", "--out", p("report")));
         verb(r1.toArray(new String[0]));
         say.println("  wrote report/report.html");
     }
 
-    /** Aggregates a decoded folder into results rows: one row per distinct (energy, broken chains). */
-    private static void addRows(ResultsTable.RowWriter rows, Path decoded, String setting, int gauge, String v,
-                                String gauged) throws IOException {
-        double[] energies = NpyVectors.readFloat64(decoded.resolve("energies.npy"), NpyVectors.ANY_LENGTH);
-        int[] broken = NpyVectors.readInt32(decoded.resolve("broken.npy"), energies.length);
-        Map<String, long[]> counts = new TreeMap<>();
-        Map<String, double[]> keys = new TreeMap<>();
-        for (int r = 0; r < energies.length; r++) {
-            String k = Double.doubleToLongBits(energies[r]) + "/" + broken[r];
-            counts.computeIfAbsent(k, x -> new long[1])[0]++;
-            keys.putIfAbsent(k, new double[] {energies[r], broken[r]});
-        }
-        for (Map.Entry<String, long[]> e : counts.entrySet()) {
-            double[] k = keys.get(e.getKey());
-            rows.row(INSTANCE, setting, gauge, k[0], e.getValue()[0], (long) k[1], RUN_US, v, gauged);
+    /** Appends the rows of one decoded results table (its header is the campaign's) to the campaign's. */
+    private static void appendRows(Writer rows, Path table) throws IOException {
+        List<String> lines = Files.readAllLines(table, StandardCharsets.UTF_8);
+        for (String line : lines.subList(1, lines.size())) {
+            rows.write(line + "\n");
         }
     }
 
@@ -206,13 +216,18 @@ public final class DemoCommand implements Callable<Integer> {
         StringWriter o = new StringWriter();
         StringWriter e = new StringWriter();
         int code = Main.run(args, new PrintWriter(o, true), new PrintWriter(e, true));
-        String shown = String.join(" ", args).replace(dir.toString() + "/", "").replace(dir.toString(), ".");
-        log.write("$ obverse " + shown + "\n" + o + e + "\n");
+        String shown = relative(String.join(" ", args));
+        log.write("$ obverse " + shown + "\n" + relative(o.toString()) + relative(e.toString()) + "\n");
         log.flush();
         if (code != Main.DONE) {
             throw new BadInputException("demo step failed (exit " + code + "): obverse " + shown + ": " + e.toString().strip());
         }
-        return o.toString().replace(dir.toString() + "/", "").replace(dir.toString(), ".");
+        return relative(o.toString());
+    }
+
+    /** Text with the working folder's paths shown relative to it. */
+    private String relative(String text) {
+        return text.replace(dir.toString() + "/", "").replace(dir.toString(), ".");
     }
 
     private void echo(String output, String startsWith) {

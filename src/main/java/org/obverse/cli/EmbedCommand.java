@@ -83,8 +83,13 @@ public final class EmbedCommand implements Callable<Integer> {
     @Option(names = "--rounds", defaultValue = "2000", paramLabel = "R", description = "most search rounds (default ${DEFAULT-VALUE})")
     int rounds;
 
+    @Option(names = "--tries", defaultValue = "16", paramLabel = "K",
+            description = "independent searches (within the time limit); the one with the shortest longest chain is kept "
+                    + "(default ${DEFAULT-VALUE})")
+    int tries;
+
     @Option(names = "--time-limit", defaultValue = "60", paramLabel = "SECONDS",
-            description = "search time limit, 0 for none (default ${DEFAULT-VALUE})")
+            description = "time limit of the whole search, 0 for none; no new try starts after it (default ${DEFAULT-VALUE})")
     double timeLimit;
 
     @Option(names = "--force", description = "replace existing output files")
@@ -151,10 +156,11 @@ public final class EmbedCommand implements Callable<Integer> {
             }
             CellLattice lattice = CellLattice.of(shape.get("rows").asInt(), shape.get("cols").asInt(),
                     shape.get("shore").asInt());
-            w.printf("native clique of %s: up to %d variables, chains of length %d%n", lattice,
-                    CliqueEmbedding.maxSize(lattice), CliqueEmbedding.chainLength(lattice));
             try {
-                return CliqueEmbedding.forVariables(lattice, q.variables());
+                Chains c = CliqueEmbedding.avoidingDefects(lattice, g, q.variables());
+                w.printf("native clique of %d variables in %s (at most %d without defects): chains of length %d%n",
+                        q.size(), lattice, CliqueEmbedding.maxSize(lattice), c.maxLength());
+                return c;
             } catch (IllegalArgumentException e) {
                 throw BadInputException.at(logical, "", e.getMessage(), "");
             }
@@ -168,9 +174,10 @@ public final class EmbedCommand implements Callable<Integer> {
         long s = seed != null ? seed : new SecureRandom().nextLong();
         long start = System.nanoTime();
         try {
-            Chains c = RerouteEmbeddingFinder.find(q, g, new FinderLimits(rounds, (long) (timeLimit * 1000)),
+            Chains c = RerouteEmbeddingFinder.findBest(q, g, new FinderLimits(rounds, (long) (timeLimit * 1000)), tries,
                     RandomSource.XO_RO_SHI_RO_128_PP.create(s));
-            w.printf("found chains (rip-up and reroute, seed %d) in %.1f s%n", s, (System.nanoTime() - start) / 1e9);
+            w.printf("found chains (rip-up and reroute, seed %d, best of up to %d tries) in %.1f s%n", s, tries,
+                    (System.nanoTime() - start) / 1e9);
             return c;
         } catch (EmbeddingNotFoundException e) {
             throw BadInputException.at(logical, "", e.getMessage() + " (seed " + s + ")", "");

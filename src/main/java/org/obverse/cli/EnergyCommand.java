@@ -11,7 +11,7 @@ import org.obverse.io.SampleFiles;
 import org.obverse.io.SampleReader;
 import org.obverse.model.IsingProblem;
 import org.obverse.samples.SampleBlock;
-import org.obverse.samples.SampleEnergies;
+import org.obverse.samples.EnergyKernel;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -49,8 +49,9 @@ public final class EnergyCommand implements Callable<Integer> {
         try (SampleReader in = SampleFiles.open(samples, p.variables(), binary ? SampleCoding.BINARY : SampleCoding.SPIN)) {
             SampleBlock b = null;
             double[] chunk = new double[4096];
+            EnergyKernel exact = EnergyKernel.exact(p);
             while ((b = in.nextBlock(4096, b)) != null) {
-                SampleEnergies.exact(p, b, chunk);
+                exact.energies(b, chunk, 0);
                 if (reads + b.reads() > energies.length) {
                     energies = Arrays.copyOf(energies, (int) Math.max(energies.length * 2L, reads + b.reads()));
                 }

@@ -74,6 +74,11 @@ public final class Main implements Runnable {
                 e.println("obverse " + verb + ": " + t.getMessage());
                 return BAD_INPUT;
             }
+            if (t instanceof java.nio.file.NoSuchFileException) {
+                e.println("obverse " + verb + ": " + ((java.nio.file.NoSuchFileException) t).getFile()
+                        + ": no such file; check the path");
+                return BAD_INPUT;
+            }
             if (t instanceof IOException) {
                 e.println("obverse " + verb + ": I/O failure: " + t);
                 return IO_FAILURE;

@@ -51,8 +51,28 @@ public final class ReportCommand implements Callable<Integer> {
                     + "the read-based error alone (more power); otherwise the gauge scatter is allowed for")
     boolean balanced;
 
+    @Option(names = "--series", paramLabel = "NAME",
+            description = "draw the setting plots as one line per value of this extra column of the results table "
+                    + "(e.g. gauged = yes / no against a swept chain coupling)")
+    String series;
+
     @Option(names = "--force", description = "replace an existing output directory")
     boolean force;
+
+    /** The value of column name for each setting, as "name = value". */
+    private String[] groups(ScoringOptions.Scored scored, String name) {
+        java.util.Map<String, String> column = scored.loaded().settingValues().get(name);
+        if (column == null) {
+            throw BadInputException.at(scoring.results, "--series " + name, "is not an extra column of the table, or it "
+                    + "takes more than one value within a setting", "name a column that is constant within each setting");
+        }
+        List<String> settings = scored.summary().campaign().settings();
+        String[] out = new String[settings.size()];
+        for (int s = 0; s < out.length; s++) {
+            out[s] = name + " = " + column.get(settings.get(s));
+        }
+        return out;
+    }
 
     @Override
     public Integer call() throws Exception {
@@ -86,6 +106,9 @@ public final class ReportCommand implements Callable<Integer> {
         ScoringOptions.Scored scored = scoring.score(spec.commandLine().getErr());
         ScoreFiles.Tables tables = ScoreFiles.tables(scored.summary(), scored.sweepName());
         ReportPlots.Axis axis = ReportPlots.Axis.of(scored.summary(), scored.sweepName());
+        if (series != null) {
+            axis = axis.withGroups(groups(scored, series));
+        }
         List<Figure> figures = new ArrayList<>();
         figures.add(ReportPlots.tts(scored.summary(), axis));
         figures.add(ReportPlots.success(scored.summary(), axis));

@@ -2,7 +2,10 @@ package org.obverse.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
 import java.nio.file.Path;
+import org.obverse.io.ResultsTable;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
@@ -88,6 +91,15 @@ public final class SampleCommand implements Callable<Integer> {
     @Option(names = "--force", description = "replace existing outputs")
     boolean force;
 
+    @Option(names = "--instance", paramLabel = "NAME",
+            description = "also write the results table (spec/results.md) of the reads, for this instance: OUT's stem + "
+                    + ".results.csv with --problem, OUT/results.csv with --manifest. Energies are the sampled problem's "
+                    + "(for an embedded problem, decode --instance gives logical ones).")
+    String instance;
+
+    @Option(names = "--setting", paramLabel = "LABEL", description = "the setting label of the results rows (with --instance)")
+    String setting;
+
     @Override
     public Integer call() throws Exception {
         if (reads < 1) {
@@ -97,14 +109,27 @@ public final class SampleCommand implements Callable<Integer> {
         ReferenceSampler sampler = ReferenceSampler.of(settings);
         PrintWriter w = spec.commandLine().getOut();
         SampleCoding coding = binary ? SampleCoding.BINARY : SampleCoding.SPIN;
+        if ((instance == null) != (setting == null) || (instance != null && instance.isEmpty())) {
+            throw new BadInputException("--instance NAME and --setting LABEL go together; give both to write the results table");
+        }
+        double runUs = settings.schedule().runTimeMicros();
         if (input.problem != null) {
             ProblemFile pf = ProblemCodec.read(input.problem);
             Path energiesFile = energiesBeside(out);
             AtomicOutput.checkTarget(out, force);
             AtomicOutput.checkTarget(energiesFile, force);
             SampleSet s = sample(sampler, pf, seed);
+            Path resultsFile = instance == null ? null : besideWith(out, ".results.csv");
+            if (resultsFile != null) {
+                AtomicOutput.checkTarget(resultsFile, force);
+            }
             writeSamples(out, s, force, coding);
             NpyVectors.writeFloat64(energiesFile, force, s.energies());
+            if (resultsFile != null) {
+                StringWriter table = new StringWriter();
+                addRows(ResultsTable.RowWriter.start(table, List.of()), s.energies(), -1, runUs);
+                AtomicOutput.writeText(resultsFile, force, table.toString());
+            }
             w.printf("sampled %d reads of %d variables (%d sweeps, %s us a read), minimum energy %s%n", s.reads(),
                     s.variables().size(), s.sweeps(), s.runTimeMicros(), s.minimumEnergy());
             w.printf("wrote %s and %s%n", out, energiesFile);
@@ -113,6 +138,8 @@ public final class SampleCommand implements Callable<Integer> {
         GaugeManifest m = ManifestCodec.read(input.manifest);
         Path folder = input.manifest.toAbsolutePath().getParent();
         List<String> lines = new ArrayList<>();
+        StringWriter table = new StringWriter();
+        ResultsTable.RowWriter rows = instance == null ? null : ResultsTable.RowWriter.start(table, List.of());
         AtomicOutput.writeDirectory(out, force, dir -> {
             for (GaugeManifest.Entry e : m.gauges()) {
                 Path file = folder.resolve(e.problem()).normalize();
@@ -128,6 +155,12 @@ public final class SampleCommand implements Callable<Integer> {
                 writeSamples(dir.resolve(SampleFormat.NPY.fileName(e.stem())), s, false, coding);
                 NpyVectors.writeFloat64(dir.resolve(e.stem() + ".energies.npy"), false, s.energies());
                 lines.add(String.format("%s: %d reads, minimum energy %s", e.stem(), s.reads(), s.minimumEnergy()));
+                if (rows != null) {
+                    addRows(rows, s.energies(), e.index(), runUs);
+                }
+            }
+            if (rows != null) {
+                Files.writeString(dir.resolve("results.csv"), table.toString());
             }
         });
         w.printf("sampled %d gauges, %d reads each (%d sweeps, %s us a read), into %s%n", m.gauges().size(), reads,
@@ -185,14 +218,30 @@ public final class SampleCommand implements Callable<Integer> {
         }
     }
 
+    /** One results row per distinct energy, with its count (no chains here: broken 0). */
+    private void addRows(ResultsTable.RowWriter rows, double[] energies, int gauge, double runUs) throws IOException {
+        java.util.Map<Long, long[]> counts = new java.util.LinkedHashMap<>();
+        for (double e : energies) {
+            counts.computeIfAbsent(Double.doubleToLongBits(e), k -> new long[1])[0]++;
+        }
+        for (java.util.Map.Entry<Long, long[]> c : counts.entrySet()) {
+            rows.row(instance, setting, gauge, Double.longBitsToDouble(c.getKey()), c.getValue()[0], 0, runUs);
+        }
+    }
+
     /** {@code dir/run.npy} → {@code dir/run.energies.npy}. */
     static Path energiesBeside(Path samples) {
+        return besideWith(samples, ".energies.npy");
+    }
+
+    /** {@code dir/run.npy} → {@code dir/run<suffix>}. */
+    static Path besideWith(Path samples, String suffix) {
         SampleFormat.of(samples);
         String name = samples.getFileName().toString();
         int dot = name.lastIndexOf('.');
         String stem = dot > 0 ? name.substring(0, dot) : name;
         Path parent = samples.getParent();
-        Path e = Path.of(stem + ".energies.npy");
+        Path e = Path.of(stem + suffix);
         return parent == null ? e : parent.resolve(e);
     }
 }

@@ -148,7 +148,7 @@ public final class ChainEmbedder {
             j[i] = values[order[i]];
         }
         IsingProblem physical = IsingProblem.of(qubits, fields, eu, ev, j, s * logical.offset());
-        checkScaledTerms(physical, qubits, across, s, spreadField, spreadCoupling, device);
+        checkScaledTerms(qubits, across, s, spreadField, spreadCoupling, device);
         List<LimitViolation> v = LimitCheck.violations(physical, device);
         if (!v.isEmpty()) {
             throw new IllegalArgumentException("the embedded problem breaks the device's limits: " + v.get(0).describe()
@@ -207,7 +207,7 @@ public final class ChainEmbedder {
         return true;
     }
 
-    private static void checkScaledTerms(IsingProblem physical, VariableIndex qubits, List<long[]> across, double s,
+    private static void checkScaledTerms(VariableIndex qubits, List<long[]> across, double s,
                                          double[] spreadField, double[] spreadCoupling, DeviceLimits device) {
         if (!fits(s, qubits, spreadField, across, spreadCoupling, device)) {
             throw new IllegalArgumentException("scale " + s + " puts logical terms outside the symmetric part of the"

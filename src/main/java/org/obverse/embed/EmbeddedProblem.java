@@ -35,7 +35,8 @@ public final class EmbeddedProblem {
             energy += chainCouplersPerChain[c] * chainCouplings[c];
         }
         this.chainCouplerCount = count;
-        this.chainEnergy = energy;
+        // With one coupling everywhere, count · V in one product: what a reader of the meta computes.
+        this.chainEnergy = strength.mode() == ChainStrength.Mode.UNIFORM ? count * strength.value() : energy;
     }
 
     /** The physical problem, on qubit ids. */

@@ -18,10 +18,17 @@ import org.obverse.model.VariableIndex;
  * that breaks ties among equally short paths. To (re)place the chain of v: for each neighbour
  * u of v that has a chain, a shortest-path search (Dijkstra, qubit weights, both ends counted)
  * from the qubits next to u's chain gives every qubit's cost to reach u; the root is the qubit
- * with the least sum of these costs; v's chain is the root and its paths to every neighbour
- * chain; leaves that no neighbour needs are pruned. One pass places every vertex in random
- * order; each round then rips up and reroutes every chain, in a fresh random order, until no
- * qubit is shared (a valid embedding, confirmed by {@link EmbeddingCheck}) or a limit is hit.
+ * with the least sum of these costs; from the root the chain grows as a tree, joining the
+ * neighbours nearest the root first, each by a least-weight path from the chain as it stands;
+ * leaves that no neighbour needs are pruned.
+ *
+ * <p>Stages: the first placement goes in breadth-first order over the logical graph; each
+ * round then rips up and reroutes every chain in a fresh random order, until no qubit is
+ * shared; after 40 rounds without a new least overlap the search starts again. Once valid,
+ * up to 20 tightening rounds reroute each chain through free qubits only and keep it where it
+ * is shorter. The result is confirmed by {@link EmbeddingCheck}. The history, the random
+ * factor, breadth-first placement, tree growth, restarts and tightening are our additions to
+ * the paper's method (tuned on cliques and random graphs in small lattices, no source).
  *
  * <p>Deterministic for a given generator state and round limit. Cost per reroute:
  * deg(v) searches of O(E log E) over the working graph.
@@ -32,6 +39,8 @@ public final class RerouteEmbeddingFinder {
      * routing: without it the plain method often settles in a fixed point with a few shared
      * qubits (tuned on cliques in small lattices, no source).
      */
+    /** Most rounds of the tightening stage. */
+    private static final int TIGHTEN_ROUNDS = 20;
     private static final double HISTORY_STEP = 0.5;
     /**
      * Each reroute multiplies every weight by a fresh uniform factor in [1, 1 + JITTER): integer
@@ -57,12 +66,15 @@ public final class RerouteEmbeddingFinder {
     private final int[] chainSize;
     private final BitSet[] member;
     private final int[] usage;
+    /** In the tightening stage: qubits of other chains are forbidden, free ones weigh about 1. */
+    private boolean strict;
     private final double[] history;
     private final double[] jitter;
     // Workspace.
     private final double[] cost;
     private final double[] dist;
     private final int[][] parent;
+    private final int[] pathParent;
     private final double[] heapKey;
     private final int[] heapNode;
 
@@ -109,6 +121,7 @@ public final class RerouteEmbeddingFinder {
             maxDegree = Math.max(maxDegree, logicalStart[v + 1] - logicalStart[v]);
         }
         parent = new int[maxDegree][qubitCount];
+        pathParent = new int[qubitCount];
         heapKey = new double[qubitAdj.length + qubitCount + 1];
         heapNode = new int[heapKey.length];
     }
@@ -146,6 +159,46 @@ public final class RerouteEmbeddingFinder {
         return chains;
     }
 
+    /**
+     * Runs {@link #find} up to {@code tries} times, each from its own generator seeded from
+     * {@code rng}, and keeps the best embedding: the shortest longest chain, then the fewest
+     * qubits, then the earliest try. Tries that find nothing are skipped. The round limit
+     * applies to each try, the time limit to all of them together: once it has passed, no
+     * further try starts (so with a time limit the number of tries made may vary).
+     *
+     * @throws EmbeddingNotFoundException where no try finds one (the last try's message)
+     */
+    public static Chains findBest(IsingProblem logical, QubitGraph graph, FinderLimits limits, int tries,
+                                  UniformRandomProvider rng) {
+        if (tries < 1) {
+            throw new IllegalArgumentException("tries " + tries + " must be >= 1");
+        }
+        Chains best = null;
+        EmbeddingNotFoundException last = null;
+        long deadline = System.nanoTime() + limits.timeLimitMillis() * 1_000_000L;
+        for (int t = 0; t < tries; t++) {
+            long left = (deadline - System.nanoTime()) / 1_000_000L;
+            if (limits.timeLimitMillis() > 0 && t > 0 && left <= 0) {
+                break;
+            }
+            FinderLimits own = limits.timeLimitMillis() == 0 ? limits : new FinderLimits(limits.rounds(), Math.max(1, left));
+            UniformRandomProvider stream = org.apache.commons.rng.simple.RandomSource.XO_RO_SHI_RO_128_PP.create(rng.nextLong());
+            try {
+                Chains c = find(logical, graph, own, stream);
+                if (best == null || c.maxLength() < best.maxLength()
+                        || (c.maxLength() == best.maxLength() && c.qubitCount() < best.qubitCount())) {
+                    best = c;
+                }
+            } catch (EmbeddingNotFoundException e) {
+                last = e;
+            }
+        }
+        if (best == null) {
+            throw new EmbeddingNotFoundException(last.getMessage() + " (in every try)");
+        }
+        return best;
+    }
+
     private int[][] search(FinderLimits limits) {
         long deadline = limits.timeLimitMillis() == 0 ? Long.MAX_VALUE
                 : System.nanoTime() + limits.timeLimitMillis() * 1_000_000L;
@@ -153,8 +206,7 @@ public final class RerouteEmbeddingFinder {
         for (int v = 0; v < logicalCount; v++) {
             order[v] = v;
         }
-        shuffle(order);
-        for (int v : order) {
+        for (int v : breadthFirstOrder()) {
             place(v);
         }
         int bestOverlap = overlap();
@@ -169,8 +221,7 @@ public final class RerouteEmbeddingFinder {
                     ripUp(v);
                 }
                 Arrays.fill(history, 0.0);
-                shuffle(order);
-                for (int v : order) {
+                for (int v : breadthFirstOrder()) {
                     place(v);
                 }
                 bestOverlap = overlap();
@@ -204,11 +255,102 @@ public final class RerouteEmbeddingFinder {
                     + qubitCount + " working qubits " + why + "; the best try still shared " + bestOverlap
                     + " qubits between chains; allow more rounds or time, try another seed, or use a larger device");
         }
+        tighten(order, deadline);
         int[][] out = new int[logicalCount][];
         for (int v = 0; v < logicalCount; v++) {
             out[v] = Arrays.copyOf(chain[v], chainSize[v]);
         }
         return out;
+    }
+
+    /**
+     * Once no qubit is shared: reroutes each chain through free qubits only and keeps the new
+     * chain where it is valid and not longer, until a round shortens nothing (or a limit).
+     */
+    private void tighten(int[] order, long deadline) {
+        strict = true;
+        for (int round = 0; round < TIGHTEN_ROUNDS && System.nanoTime() < deadline; round++) {
+            int saved = 0;
+            shuffle(order);
+            for (int v : order) {
+                int[] old = Arrays.copyOf(chain[v], chainSize[v]);
+                ripUp(v);
+                place(v);
+                if (chainSize[v] == 0 || chainSize[v] > old.length || !touchesAll(v) || overlap() > 0) {
+                    ripUp(v);
+                    for (int q : old) {
+                        add(v, q);
+                        usage[q]++;
+                    }
+                } else {
+                    saved += old.length - chainSize[v];
+                }
+            }
+            if (saved == 0) {
+                break;
+            }
+        }
+        strict = false;
+    }
+
+    private boolean touchesAll(int v) {
+        for (int p = logicalStart[v]; p < logicalStart[v + 1]; p++) {
+            int u = logicalAdj[p];
+            boolean touch = false;
+            for (int i = 0; i < chainSize[v] && !touch; i++) {
+                touch = nextTo(chain[v][i], u);
+            }
+            if (!touch) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /**
+     * The logical vertices in breadth-first order from a random start (components one after
+     * another, neighbours in random order), so that each vertex but a component's first is
+     * placed next to a placed neighbour and the first chains do not scatter over the device.
+     */
+    private int[] breadthFirstOrder() {
+        int[] start = new int[logicalCount];
+        for (int v = 0; v < logicalCount; v++) {
+            start[v] = v;
+        }
+        shuffle(start);
+        boolean[] seen = new boolean[logicalCount];
+        int[] out = new int[logicalCount];
+        int tail = 0;
+        int head = 0;
+        for (int s : start) {
+            if (seen[s]) {
+                continue;
+            }
+            seen[s] = true;
+            out[tail++] = s;
+            while (head < tail) {
+                int v = out[head++];
+                int from = tail;
+                for (int p = logicalStart[v]; p < logicalStart[v + 1]; p++) {
+                    int u = logicalAdj[p];
+                    if (!seen[u]) {
+                        seen[u] = true;
+                        out[tail++] = u;
+                    }
+                }
+                shuffle(out, from, tail);
+            }
+        }
+        return out;
+    }
+
+    private void shuffle(int[] a, int from, int to) {
+        for (int i = to - 1; i > from; i--) {
+            int j = from + rng.nextInt(i - from + 1);
+            int t = a[i];
+            a[i] = a[j];
+            a[j] = t;
+        }
     }
 
     /** Number of (qubit, extra chain) pairs: Σ max(0, usage − 1). */
@@ -240,6 +382,9 @@ public final class RerouteEmbeddingFinder {
     }
 
     private double weight(int q) {
+        if (strict) {
+            return usage[q] > 0 ? Double.POSITIVE_INFINITY : jitter[q];
+        }
         return (1.0 + history[q]) * weightOfUsage[usage[q]] * jitter[q];
     }
 
@@ -271,23 +416,78 @@ public final class RerouteEmbeddingFinder {
                 root = q;
             }
         }
+        if (root < 0 && strict) {
+            return;
+        }
         if (root < 0) {
             throw new EmbeddingNotFoundException("the chains of the neighbours of logical variable position " + v
                     + " cannot be reached from one qubit: the working graph is not connected enough for this problem");
         }
         add(v, root);
-        for (int k = 0; k < placed; k++) {
-            int q = parent[k][root];
-            while (q >= 0) {
-                if (!member[v].get(q)) {
-                    add(v, q);
+        // Grow the chain as a tree: join the neighbours nearest the root first, each by a
+        // shortest path from the chain as it stands, so that paths share qubits.
+        int[] nbs = new int[placed];
+        long[] keyed = new long[placed];
+        int m = 0;
+        for (int p = logicalStart[v]; p < logicalStart[v + 1]; p++) {
+            if (chainSize[logicalAdj[p]] > 0) {
+                nbs[m] = logicalAdj[p];
+                int hops = 0;
+                for (int q = parent[m][root]; q >= 0; q = parent[m][q]) {
+                    hops++;
                 }
-                q = parent[k][q];
+                keyed[m] = ((long) hops << 32) | m;
+                m++;
             }
+        }
+        Arrays.sort(keyed);
+        for (long k : keyed) {
+            connect(v, nbs[(int) k]);
         }
         prune(v);
         for (int i = 0; i < chainSize[v]; i++) {
             usage[chain[v][i]]++;
+        }
+    }
+
+    /** Adds to v's chain a least-weight path from it to a qubit next to u's chain (none where they already touch). */
+    private void connect(int v, int u) {
+        for (int i = 0; i < chainSize[v]; i++) {
+            if (nextTo(chain[v][i], u)) {
+                return;
+            }
+        }
+        Arrays.fill(dist, Double.POSITIVE_INFINITY);
+        int[] par = pathParent;
+        int size = 0;
+        for (int i = 0; i < chainSize[v]; i++) {
+            int q = chain[v][i];
+            dist[q] = 0.0;
+            par[q] = -1;
+            size = push(size, 0.0, q);
+        }
+        while (size > 0) {
+            double d = heapKey[0];
+            int q = heapNode[0];
+            size = pop(size);
+            if (d > dist[q]) {
+                continue;
+            }
+            if (!member[v].get(q) && nextTo(q, u)) {
+                for (int r = q; r >= 0 && !member[v].get(r); r = par[r]) {
+                    add(v, r);
+                }
+                return;
+            }
+            for (int p = qubitStart[q]; p < qubitStart[q + 1]; p++) {
+                int nb = qubitAdj[p];
+                double nd = d + weight(nb);
+                if (nd < dist[nb]) {
+                    dist[nb] = nd;
+                    par[nb] = q;
+                    size = push(size, nd, nb);
+                }
+            }
         }
     }
 

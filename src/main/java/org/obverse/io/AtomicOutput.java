@@ -49,7 +49,7 @@ public final class AtomicOutput {
             try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16)) {
                 writer.write(out);
             }
-            move(tmp, abs);
+            publish(tmp, abs);
         } finally {
             Files.deleteIfExists(tmp);
         }
@@ -71,6 +71,7 @@ public final class AtomicOutput {
         Path tmp = Files.createTempDirectory(abs.getParent(), "." + abs.getFileName() + ".");
         try {
             filler.fill(tmp);
+            ordinaryPermissions(tmp, DIRECTORY_PERMISSIONS);
             if (Files.exists(abs)) {
                 Path old = Files.createTempDirectory(abs.getParent(), "." + abs.getFileName() + ".old.");
                 Files.delete(old);
@@ -84,6 +85,22 @@ public final class AtomicOutput {
             if (Files.exists(tmp)) {
                 deleteTree(tmp);
             }
+        }
+    }
+
+    // Temporary names are created private (0600, 0700); the finished output gets the usual modes.
+    private static final String FILE_PERMISSIONS = "rw-r--r--";
+    private static final String DIRECTORY_PERMISSIONS = "rwxr-xr-x";
+
+    /** Gives a finished temporary file the usual mode and renames it onto its target. */
+    static void publish(Path tmp, Path target) throws IOException {
+        ordinaryPermissions(tmp, FILE_PERMISSIONS);
+        move(tmp, target);
+    }
+
+    private static void ordinaryPermissions(Path p, String mode) throws IOException {
+        if (Files.getFileStore(p).supportsFileAttributeView(java.nio.file.attribute.PosixFileAttributeView.class)) {
+            Files.setPosixFilePermissions(p, java.nio.file.attribute.PosixFilePermissions.fromString(mode));
         }
     }
 

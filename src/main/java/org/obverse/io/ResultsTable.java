@@ -85,7 +85,9 @@ public final class ResultsTable {
                 String[] r;
                 while ((r = csv.record()) != null) {
                     Row row = parse(csv, col, r);
-                    best.merge(row.instance, row.energy, Math::min);
+                    if (!Double.isNaN(row.energy)) {
+                        best.merge(row.instance, row.energy, Math::min);
+                    }
                 }
             }
         }
@@ -122,13 +124,22 @@ public final class ResultsTable {
                         b.ground(row.instance, g, true);
                     } else {
                         g = best.get(row.instance);
+                        if (g == null) {
+                            throw BadInputException.at(file, "instance '" + row.instance + "'", "has no read with an "
+                                    + "energy, so no best energy seen to score against", "give its ground energy with --ground");
+                        }
                         b.ground(row.instance, g, false);
                     }
                     groundSeen.put(row.instance, g);
                 }
-                long succ = rule.isSuccess(row.energy, g) ? row.count : 0;
-                b.add(row.instance, row.setting, row.gauge, row.count, succ, (row.energy - g) * row.count,
-                        row.runUs * row.count, row.broken * row.count, row.energy);
+                if (Double.isNaN(row.energy)) {
+                    b.addUnanswered(row.instance, row.setting, row.gauge, row.count, row.runUs * row.count,
+                            row.broken * row.count);
+                } else {
+                    long succ = rule.isSuccess(row.energy, g) ? row.count : 0;
+                    b.add(row.instance, row.setting, row.gauge, row.count, succ, (row.energy - g) * row.count,
+                            row.runUs * row.count, row.broken * row.count, row.energy);
+                }
                 for (int k = 0; k < extras.size(); k++) {
                     String name = extras.get(k);
                     String v = r[extraIdx.get(k)];
@@ -169,7 +180,8 @@ public final class ResultsTable {
             }
             gauge = (int) gv;
         }
-        double energy = number(csv, col[3], r[col[3]]);
+        // An empty energy is a read that gave no answer (discarded for a broken chain): a failure.
+        double energy = r[col[3]].trim().isEmpty() ? Double.NaN : number(csv, col[3], r[col[3]]);
         long count = integer(csv, col[4], r[col[4]]);
         if (count < 1) {
             throw csv.error(col[4], r[col[4]], "is not a count >= 1", "count the reads that gave this row (at least 1)");
@@ -232,7 +244,7 @@ public final class ResultsTable {
             return new RowWriter(out, extraColumns);
         }
 
-        /** One row; gauge −1 writes an empty gauge field; count ≥ 1. */
+        /** One row; gauge −1 writes an empty gauge field; a NaN energy (a discarded read) an empty energy; count ≥ 1. */
         public void row(String instance, String setting, int gauge, double energy, long count, long broken,
                 double runUs, String... extraValues) throws IOException {
             if (extraValues.length != extras) {
@@ -246,7 +258,7 @@ public final class ResultsTable {
             if (gauge >= 0) {
                 s.append(gauge);
             }
-            s.append(',').append(format(energy)).append(',').append(count).append(',').append(broken).append(',')
+            s.append(',').append(Double.isNaN(energy) ? "" : format(energy)).append(',').append(count).append(',').append(broken).append(',')
                     .append(format(runUs));
             for (String v : extraValues) {
                 s.append(',').append(CsvReader.quote(v));

@@ -39,7 +39,20 @@ public final class ReportPlots {
     }
 
     /** The x axis of the setting plots: the swept value, or the settings in order. */
-    public record Axis(String title, double[] x, String[] labels, boolean logarithmic) {
+    public record Axis(String title, double[] x, String[] labels, boolean logarithmic, String[] groups) {
+        /** An axis with one line through all settings. */
+        public Axis(String title, double[] x, String[] labels, boolean logarithmic) {
+            this(title, x, labels, logarithmic, null);
+        }
+
+        /**
+         * The same axis with the settings drawn as separate lines, one per group (e.g. the value of
+         * another column of the table: "gauged = yes" and "gauged = no"); groups[s] names setting s's line.
+         */
+        public Axis withGroups(String[] groupOfSetting) {
+            return new Axis(title, x, labels, logarithmic, groupOfSetting.clone());
+        }
+
         /** Positions 1 … S labelled by setting, or the swept values. */
         public static Axis of(CampaignSummary summary, String sweepName) {
             Campaign c = summary.campaign();
@@ -268,24 +281,47 @@ public final class ReportPlots {
         double[] at(int s);
     }
 
+    // Line colours of grouped plots: estimate, inner band, outer band per group.
+    private static final Color[][] GROUP_COLORS = {
+        {MAIN, INNER, OUTER},
+        {new Color(0xb0, 0x4a, 0x10), new Color(0xe0, 0x86, 0x3c), new Color(0xee, 0xc0, 0x98)},
+        {new Color(0x2a, 0x7a, 0x3a), new Color(0x5c, 0xb0, 0x6a), new Color(0xa8, 0xd8, 0xb0)},
+        {new Color(0x6a, 0x3a, 0x9a), new Color(0x9c, 0x6c, 0xc8), new Color(0xcc, 0xb4, 0xe4)},
+    };
+
     private static int addBanded(XYChart chart, Axis axis, int n, Value mid, Pair inner, Pair outer, boolean log,
             String innerName, String outerName) {
-        Integer[] order = new Integer[n];
-        for (int s = 0; s < n; s++) {
-            order[s] = s;
-        }
-        java.util.Arrays.sort(order, (a, b) -> Double.compare(axis.x()[a], axis.x()[b]));
         int missing = 0;
         for (int s = 0; s < n; s++) {
             if (!drawable(mid.at(s), log)) {
                 missing++;
             }
         }
-        series(chart, outerName, axis, order, s -> outer.at(s)[0], log, OUTER, DASHED, false, true);
-        series(chart, outerName + " ", axis, order, s -> outer.at(s)[1], log, OUTER, DASHED, false, false);
-        series(chart, innerName, axis, order, s -> inner.at(s)[0], log, INNER, THIN, false, true);
-        series(chart, innerName + " ", axis, order, s -> inner.at(s)[1], log, INNER, THIN, false, false);
-        series(chart, "estimate", axis, order, mid, log, MAIN, new BasicStroke(2.4f), true, true);
+        List<String> groups = new ArrayList<>();
+        for (int s = 0; s < n; s++) {
+            String g = axis.groups() == null ? "" : axis.groups()[s];
+            if (!groups.contains(g)) {
+                groups.add(g);
+            }
+        }
+        for (int gi = 0; gi < groups.size(); gi++) {
+            String g = groups.get(gi);
+            List<Integer> members = new ArrayList<>();
+            for (int s = 0; s < n; s++) {
+                if ((axis.groups() == null ? "" : axis.groups()[s]).equals(g)) {
+                    members.add(s);
+                }
+            }
+            Integer[] order = members.toArray(new Integer[0]);
+            java.util.Arrays.sort(order, (a, b) -> Double.compare(axis.x()[a], axis.x()[b]));
+            Color[] c = GROUP_COLORS[gi % GROUP_COLORS.length];
+            String prefix = g.isEmpty() ? "" : g + ": ";
+            series(chart, prefix + outerName, axis, order, s -> outer.at(s)[0], log, c[2], DASHED, false, true);
+            series(chart, prefix + outerName + " ", axis, order, s -> outer.at(s)[1], log, c[2], DASHED, false, false);
+            series(chart, prefix + innerName, axis, order, s -> inner.at(s)[0], log, c[1], THIN, false, true);
+            series(chart, prefix + innerName + " ", axis, order, s -> inner.at(s)[1], log, c[1], THIN, false, false);
+            series(chart, prefix + "estimate", axis, order, mid, log, c[0], new BasicStroke(2.4f), true, true);
+        }
         return missing;
     }
 

@@ -25,7 +25,9 @@ final class BitCounter {
         long twos = 0;
         long fours = 0;
         long eights = 0;
-        int used = 0;
+        // Planes for the count's bits from 16 upwards: enough for size / 16, all zero at first.
+        int used = 32 - Integer.numberOfLeadingZeros(size >>> 4);
+        java.util.Arrays.fill(planes, 0, used, 0L);
         int i = 0;
         for (; i + 16 <= size; i += 16) {
             long u;
@@ -81,7 +83,7 @@ final class BitCounter {
             u = eights ^ eightsA;
             long sixteens = (eights & eightsA) | (u & eightsB);
             eights = u ^ eightsB;
-            used = ripple(planes, used, sixteens);
+            ripple(planes, used, sixteens);
         }
         for (; i < size; i++) {
             long c = x[i];
@@ -96,7 +98,7 @@ final class BitCounter {
             c = t;
             t = eights & c;
             eights ^= c;
-            used = ripple(planes, used, t);
+            ripple(planes, used, t);
         }
         for (int r = 0; r < 64; r++) {
             int c = (int) ((ones >>> r) & 1) | (int) ((twos >>> r) & 1) << 1 | (int) ((fours >>> r) & 1) << 2
@@ -108,18 +110,16 @@ final class BitCounter {
         }
     }
 
-    /** Adds one word of carries (each worth 16) into the vertical counter planes[0 … used). */
-    private static int ripple(long[] planes, int used, long carry) {
-        int p = 0;
-        while (carry != 0) {
-            if (p == used) {
-                planes[used++] = 0;
-            }
+    /**
+     * Adds one word of carries (each worth 16) into the vertical counter planes[0 … used).
+     * A fixed number of steps without an early exit: carries stop at unpredictable depths, and
+     * a mispredicted branch costs more than the few extra word operations.
+     */
+    private static void ripple(long[] planes, int used, long carry) {
+        for (int p = 0; p < used; p++) {
             long t = planes[p] & carry;
             planes[p] ^= carry;
             carry = t;
-            p++;
         }
-        return used;
     }
 }

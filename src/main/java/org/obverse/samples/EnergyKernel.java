@@ -24,13 +24,15 @@ import org.obverse.model.IsingProblem;
  *   <li>{@link #counters}: for terms that take few distinct values (±1, say). Terms are grouped
  *       by value; per group, carry-save bit counters (bit-sliced adders) count the set bits
  *       of each read, and the energy is the constant plus Σ value·count.</li>
- *   <li>{@link #of}: the planner: values shared by many terms go to counters, the rest to
- *       tables.</li>
+ *   <li>{@link #of}: the planner: values shared by many terms go to counters; where eight
+ *       consecutive positions (a cell of a hardware graph, typically) have many terms among
+ *       themselves, a 256-entry table of their energy for every configuration replaces those
+ *       terms (cluster tables); the rest go to byte tables.</li>
  * </ul>
  *
  * <p>Tolerance of the fast kernels against the exact one ({@link #tolerance()}): both are sums
  * of the same exactly representable terms in different orders (the fast ones of at most
- * K = 2(n + m) + 2048 + 2G + 4 terms and partial sums, n fields, m couplers, G counter
+ * K = 2(n + m) + 2G + 2088 terms and partial sums, n fields, m couplers, G counter
  * groups). Summing N terms in any order errs by at most γ_{N−1}·Σ|x_i|, with
  * γ_k = k·u / (1 − k·u) and u = 2^−53 (Higham, Accuracy and Stability of Numerical
  * Algorithms, 2nd ed., SIAM 2002, §4.2). Adding both paths' errors gives, for every read,
@@ -52,7 +54,7 @@ public interface EnergyKernel {
 
     /** The planner: counters for values that many terms share, byte tables for the rest. */
     static EnergyKernel of(IsingProblem problem) {
-        return FastEnergy.plan(problem, FastEnergy.MIN_GROUP);
+        return FastEnergy.plan(problem, FastEnergy.MIN_GROUP, FastEnergy.MIN_CLUSTER_TERMS);
     }
 
     /** The exact path: equal bit for bit to {@link IsingProblem#energy(byte[])}. */
@@ -62,12 +64,12 @@ public interface EnergyKernel {
 
     /** Byte tables for every term. */
     static EnergyKernel tables(IsingProblem problem) {
-        return FastEnergy.plan(problem, Integer.MAX_VALUE);
+        return FastEnergy.plan(problem, Integer.MAX_VALUE, Integer.MAX_VALUE);
     }
 
     /** Bit counters for every term, one group per distinct value (slow where there are many values). */
     static EnergyKernel counters(IsingProblem problem) {
-        return FastEnergy.plan(problem, 1);
+        return FastEnergy.plan(problem, 1, Integer.MAX_VALUE);
     }
 
     /** The problem whose energies this computes. */

@@ -8,33 +8,55 @@ import java.util.Map;
 import org.obverse.model.IsingProblem;
 
 /**
- * The fast energy kernels: byte tables and carry-save bit counters (see {@link EnergyKernel}).
+ * The fast energy kernels (see {@link EnergyKernel}): carry-save bit counters, cluster tables
+ * and byte tables, chosen per term by a planner.
  *
  * <p>Rewritten with bits, E(r) = C + Σ_k 2h_k·[w_k bit r] − Σ_e 2J_e·[x_e bit r] with
  * C = offset − Σ h + Σ J and x_e = w_u ⊕ w_v. Each nonzero term is a word (w_k or x_e) and a
- * weight (2h or −2J). Weights that many terms share form groups whose set bits are counted
- * per read; the other terms go into byte tables. Terms with a zero value are dropped.
+ * weight (2h or −2J); terms whose value is zero are dropped. Each remaining term goes to one of:
+ * <ul>
+ *   <li>a counted group: a weight that many terms share; per read, the set bits of the
+ *       group's words are counted with {@link BitCounter} and the group adds weight · count;</li>
+ *   <li>a cluster: eight consecutive positions 8c … 8c+7 whose own fields and couplers are
+ *       many; a 256-entry table, computed once, holds their energy for every configuration,
+ *       and per read the cluster adds the entry its eight spins select (the spins are
+ *       gathered by an 8 × 8 byte and bit transposition of the cluster's eight words);</li>
+ *   <li>the byte tables: the weight is added into eight 256-entry tables indexed by the bytes
+ *       of the term's word, expanded once per block into 64 per-read sums.</li>
+ * </ul>
+ * Per read the parts are added in a fixed order: byte tables, clusters, groups, then C (the
+ * offset plus the bit-form constants of the counted and byte-tabled terms).
  */
 final class FastEnergy implements EnergyKernel {
-    /** The planner's threshold: a value shared by at least this many terms is counted, not tabled. */
+    /** The planner's threshold: a weight shared by at least this many terms is counted. */
     static final int MIN_GROUP = 64;
-    /** At most this many counted groups (the largest); the remaining values are tabled. */
+    /** At most this many counted groups (the largest); the remaining weights are tabled. */
     static final int MAX_GROUPS = 64;
+    /**
+     * The planner's threshold: a cluster of eight positions gets its own table where at least
+     * this many of its terms would otherwise go to the byte tables (a cluster costs about as
+     * much per block as a dozen byte-table terms).
+     */
+    static final int MIN_CLUSTER_TERMS = 12;
     private static final double UNIT_ROUNDOFF = 0x1p-53;
 
+    private final Plan plan;
     private final IsingProblem problem;
     private final Method method;
     private final int n;
     private final double constant;
     private final double tolerance;
-    // Tabled terms: fields (word k) then couplers (word u ^ word v), with their weights.
+    // Byte-tabled terms: fields (word k) and couplers (word u ^ word v), with their weights.
     private final int[] tableField;
     private final double[] tableFieldWeight;
     private final int[] tableU;
     private final int[] tableV;
     private final double[] tableCouplerWeight;
+    // Clusters: first position of each, and 256 energies per cluster.
+    private final int[] clusterFirst;
+    private final double[] clusterEnergy;
     // Counted groups: terms of group g are termA/termB[groupStart[g] .. groupStart[g+1]);
-    // termB < 0 marks a field group (the word alone).
+    // field groups use termA alone.
     private final int[] groupStart;
     private final int[] termA;
     private final int[] termB;
@@ -47,49 +69,68 @@ final class FastEnergy implements EnergyKernel {
     private final long[] gathered;
     private final long[] planes = new long[32];
     private final int[] counts = new int[64];
+    // Per cluster, eight words: byte b of word j = the cluster's spins in read 8j + b.
+    private final long[] clusterSpins;
 
-    private FastEnergy(IsingProblem problem, Method method, double constant, double tolerance, int[] tableField,
-                       double[] tableFieldWeight, int[] tableU, int[] tableV, double[] tableCouplerWeight,
-                       int[] groupStart, int[] termA, int[] termB, boolean[] groupIsField, double[] groupWeight) {
-        this.problem = problem;
-        this.method = method;
-        this.n = problem.size();
-        this.constant = constant;
-        this.tolerance = tolerance;
-        this.tableField = tableField;
-        this.tableFieldWeight = tableFieldWeight;
-        this.tableU = tableU;
-        this.tableV = tableV;
-        this.tableCouplerWeight = tableCouplerWeight;
-        this.groupStart = groupStart;
-        this.termA = termA;
-        this.termB = termB;
-        this.groupIsField = groupIsField;
-        this.groupWeight = groupWeight;
+    private FastEnergy(Plan p) {
+        this.problem = p.problem;
+        this.method = p.method;
+        this.n = p.problem.size();
+        this.constant = p.constant;
+        this.tolerance = p.tolerance;
+        this.tableField = p.tableField;
+        this.tableFieldWeight = p.tableFieldWeight;
+        this.tableU = p.tableU;
+        this.tableV = p.tableV;
+        this.tableCouplerWeight = p.tableCouplerWeight;
+        this.clusterFirst = p.clusterFirst;
+        this.clusterEnergy = p.clusterEnergy;
+        this.groupStart = p.groupStart;
+        this.termA = p.termA;
+        this.termB = p.termB;
+        this.groupIsField = p.groupIsField;
+        this.groupWeight = p.groupWeight;
+        this.plan = p;
         int max = 0;
         for (int g = 0; g + 1 < groupStart.length; g++) {
             max = Math.max(max, groupStart[g + 1] - groupStart[g]);
         }
         this.gathered = new long[max];
+        this.clusterSpins = new long[8 * clusterFirst.length];
     }
 
-    private FastEnergy(FastEnergy o) {
-        this(o.problem, o.method, o.constant, o.tolerance, o.tableField, o.tableFieldWeight, o.tableU, o.tableV,
-                o.tableCouplerWeight, o.groupStart, o.termA, o.termB, o.groupIsField, o.groupWeight);
+    /** The precomputed, immutable part, shared by copies. */
+    private static final class Plan {
+        IsingProblem problem;
+        Method method;
+        double constant;
+        double tolerance;
+        int[] tableField;
+        double[] tableFieldWeight;
+        int[] tableU;
+        int[] tableV;
+        double[] tableCouplerWeight;
+        int[] clusterFirst;
+        double[] clusterEnergy;
+        int[] groupStart;
+        int[] termA;
+        int[] termB;
+        boolean[] groupIsField;
+        double[] groupWeight;
     }
 
-    /** Builds the kernel; values with at least minGroup terms (up to MAX_GROUPS of them) are counted. */
-    static FastEnergy plan(IsingProblem p, int minGroup) {
+    /**
+     * Builds the kernel. Weights with at least minGroup terms (up to MAX_GROUPS of them) are
+     * counted; clusters with at least minClusterTerms otherwise tabled terms get a table.
+     */
+    static FastEnergy plan(IsingProblem p, int minGroup, int minClusterTerms) {
         int n = p.size();
         int m = p.edgeCount();
-        // Weights per term; count how many terms share each (field and coupler weights apart).
+        double sumAbs = 0.0;
         Map<Double, Integer> fieldUse = new HashMap<>();
         Map<Double, Integer> couplerUse = new HashMap<>();
-        double sumAbs = 0.0;
-        double constant = p.offset();
         for (int k = 0; k < n; k++) {
             double h = p.field(k);
-            constant -= h;
             sumAbs += Math.abs(h);
             if (h != 0.0) {
                 fieldUse.merge(2.0 * h, 1, Integer::sum);
@@ -97,13 +138,13 @@ final class FastEnergy implements EnergyKernel {
         }
         for (int e = 0; e < m; e++) {
             double j = p.coupling(e);
-            constant += j;
             sumAbs += Math.abs(j);
             if (j != 0.0) {
                 couplerUse.merge(-2.0 * j, 1, Integer::sum);
             }
         }
-        // Pick groups: the most used values first, each with at least minGroup terms.
+
+        // 1. Counted groups: the most used weights first, each with at least minGroup terms.
         List<double[]> candidates = new ArrayList<>(); // {weight, uses, isField}
         fieldUse.forEach((w, c) -> candidates.add(new double[] {w, c, 1}));
         couplerUse.forEach((w, c) -> candidates.add(new double[] {w, c, 0}));
@@ -120,29 +161,95 @@ final class FastEnergy implements EnergyKernel {
             }
         }
         int g = groups.size();
-        int[] groupSize = new int[g];
-        int tabledFields = 0;
-        int tabledCouplers = 0;
+        // Where each term goes: a group index >= 0, CLUSTERED, TABLED, or ZERO.
+        final int tabled = -1;
+        final int clustered = -2;
+        final int zero = -3;
+        int[] fieldPlace = new int[n];
+        int[] couplerPlace = new int[m];
         for (int k = 0; k < n; k++) {
             double h = p.field(k);
-            if (h != 0.0) {
-                Integer gi = fieldGroup.get(2.0 * h);
-                if (gi != null) {
-                    groupSize[gi]++;
-                } else {
-                    tabledFields++;
+            fieldPlace[k] = h == 0.0 ? zero : fieldGroup.getOrDefault(2.0 * h, tabled);
+        }
+        for (int e = 0; e < m; e++) {
+            double j = p.coupling(e);
+            couplerPlace[e] = j == 0.0 ? zero : couplerGroup.getOrDefault(-2.0 * j, tabled);
+        }
+
+        // 2. Clusters of eight consecutive positions with enough otherwise tabled terms of their own.
+        int[] inside = new int[n / 8];
+        for (int k = 0; k < 8 * inside.length; k++) {
+            if (fieldPlace[k] == tabled) {
+                inside[k >>> 3]++;
+            }
+        }
+        for (int e = 0; e < m; e++) {
+            int c = p.edgeU(e) >>> 3;
+            if (couplerPlace[e] == tabled && c == p.edgeV(e) >>> 3 && c < inside.length) {
+                inside[c]++;
+            }
+        }
+        int[] clusterOf = new int[inside.length];
+        int clusters = 0;
+        for (int c = 0; c < inside.length; c++) {
+            clusterOf[c] = inside[c] >= minClusterTerms ? clusters++ : -1;
+        }
+        int[] clusterFirst = new int[clusters];
+        for (int c = 0; c < inside.length; c++) {
+            if (clusterOf[c] >= 0) {
+                clusterFirst[clusterOf[c]] = 8 * c;
+            }
+        }
+        double[] clusterEnergy = new double[256 * clusters];
+        // Fields first (by position), then couplers (by coupler order), into every configuration.
+        for (int k = 0; k < 8 * inside.length; k++) {
+            int c = clusterOf[k >>> 3];
+            if (fieldPlace[k] == tabled && c >= 0) {
+                fieldPlace[k] = clustered;
+                double h = p.field(k);
+                int bit = k & 7;
+                for (int mask = 0; mask < 256; mask++) {
+                    clusterEnergy[256 * c + mask] += ((mask >>> bit) & 1) != 0 ? h : -h;
                 }
             }
         }
         for (int e = 0; e < m; e++) {
-            double j = p.coupling(e);
-            if (j != 0.0) {
-                Integer gi = couplerGroup.get(-2.0 * j);
-                if (gi != null) {
-                    groupSize[gi]++;
-                } else {
-                    tabledCouplers++;
+            int u = p.edgeU(e);
+            int v = p.edgeV(e);
+            int c = u >>> 3 < inside.length && u >>> 3 == v >>> 3 ? clusterOf[u >>> 3] : -1;
+            if (couplerPlace[e] == tabled && c >= 0) {
+                couplerPlace[e] = clustered;
+                double j = p.coupling(e);
+                for (int mask = 0; mask < 256; mask++) {
+                    boolean same = ((mask >>> (u & 7)) & 1) == ((mask >>> (v & 7)) & 1);
+                    clusterEnergy[256 * c + mask] += same ? j : -j;
                 }
+            }
+        }
+
+        // 3. Group members, byte-tabled terms, and the constant of all but the clustered terms.
+        int[] groupSize = new int[g];
+        int tabledFields = 0;
+        int tabledCouplers = 0;
+        double constant = p.offset();
+        for (int k = 0; k < n; k++) {
+            if (fieldPlace[k] >= 0) {
+                groupSize[fieldPlace[k]]++;
+            } else if (fieldPlace[k] == tabled) {
+                tabledFields++;
+            }
+            if (fieldPlace[k] != clustered) {
+                constant -= p.field(k);
+            }
+        }
+        for (int e = 0; e < m; e++) {
+            if (couplerPlace[e] >= 0) {
+                groupSize[couplerPlace[e]]++;
+            } else if (couplerPlace[e] == tabled) {
+                tabledCouplers++;
+            }
+            if (couplerPlace[e] != clustered) {
+                constant += p.coupling(e);
             }
         }
         int[] groupStart = new int[g + 1];
@@ -150,55 +257,54 @@ final class FastEnergy implements EnergyKernel {
             groupStart[i + 1] = groupStart[i] + groupSize[i];
         }
         int[] fill = Arrays.copyOf(groupStart, g);
-        int[] termA = new int[groupStart[g]];
-        int[] termB = new int[groupStart[g]];
-        int[] tableField = new int[tabledFields];
-        double[] tableFieldWeight = new double[tabledFields];
-        int[] tableU = new int[tabledCouplers];
-        int[] tableV = new int[tabledCouplers];
-        double[] tableCouplerWeight = new double[tabledCouplers];
+        Plan plan = new Plan();
+        plan.termA = new int[groupStart[g]];
+        plan.termB = new int[groupStart[g]];
+        plan.tableField = new int[tabledFields];
+        plan.tableFieldWeight = new double[tabledFields];
+        plan.tableU = new int[tabledCouplers];
+        plan.tableV = new int[tabledCouplers];
+        plan.tableCouplerWeight = new double[tabledCouplers];
         tabledFields = 0;
         tabledCouplers = 0;
         for (int k = 0; k < n; k++) {
-            double h = p.field(k);
-            if (h != 0.0) {
-                Integer gi = fieldGroup.get(2.0 * h);
-                if (gi != null) {
-                    termA[fill[gi]] = k;
-                    termB[fill[gi]++] = -1;
-                } else {
-                    tableField[tabledFields] = k;
-                    tableFieldWeight[tabledFields++] = 2.0 * h;
-                }
+            int place = fieldPlace[k];
+            if (place >= 0) {
+                plan.termA[fill[place]] = k;
+                plan.termB[fill[place]++] = -1;
+            } else if (place == tabled) {
+                plan.tableField[tabledFields] = k;
+                plan.tableFieldWeight[tabledFields++] = 2.0 * p.field(k);
             }
         }
         for (int e = 0; e < m; e++) {
-            double j = p.coupling(e);
-            if (j != 0.0) {
-                Integer gi = couplerGroup.get(-2.0 * j);
-                if (gi != null) {
-                    termA[fill[gi]] = p.edgeU(e);
-                    termB[fill[gi]++] = p.edgeV(e);
-                } else {
-                    tableU[tabledCouplers] = p.edgeU(e);
-                    tableV[tabledCouplers] = p.edgeV(e);
-                    tableCouplerWeight[tabledCouplers++] = -2.0 * j;
-                }
+            int place = couplerPlace[e];
+            if (place >= 0) {
+                plan.termA[fill[place]] = p.edgeU(e);
+                plan.termB[fill[place]++] = p.edgeV(e);
+            } else if (place == tabled) {
+                plan.tableU[tabledCouplers] = p.edgeU(e);
+                plan.tableV[tabledCouplers] = p.edgeV(e);
+                plan.tableCouplerWeight[tabledCouplers++] = -2.0 * p.coupling(e);
             }
         }
-        boolean[] isField = new boolean[g];
-        double[] weight = new double[g];
+        plan.groupIsField = new boolean[g];
+        plan.groupWeight = new double[g];
         for (int i = 0; i < g; i++) {
-            weight[i] = groups.get(i)[0];
-            isField[i] = groups.get(i)[2] == 1;
+            plan.groupWeight[i] = groups.get(i)[0];
+            plan.groupIsField[i] = groups.get(i)[2] == 1;
         }
-        boolean tabled = tabledFields + tabledCouplers > 0;
-        Method method = g == 0 ? Method.TABLES : tabled ? Method.COUNTERS_AND_TABLES : Method.COUNTERS;
-        long terms = 2L * (n + m) + 2048 + 2L * g + 4;
+        plan.problem = p;
+        plan.constant = constant;
+        plan.groupStart = groupStart;
+        plan.clusterFirst = clusterFirst;
+        plan.clusterEnergy = clusterEnergy;
+        boolean anyTables = tabledFields + tabledCouplers + clusters > 0;
+        plan.method = g == 0 ? Method.TABLES : anyTables ? Method.COUNTERS_AND_TABLES : Method.COUNTERS;
+        long terms = 2L * (n + m) + 2L * g + 2088;
         double gamma = terms * UNIT_ROUNDOFF / (1 - terms * UNIT_ROUNDOFF);
-        double tolerance = gamma * (3 * Math.abs(p.offset()) + 7 * sumAbs);
-        return new FastEnergy(p, method, constant, tolerance, tableField, tableFieldWeight, tableU, tableV,
-                tableCouplerWeight, groupStart, termA, termB, isField, weight);
+        plan.tolerance = gamma * (3 * Math.abs(p.offset()) + 7 * sumAbs);
+        return new FastEnergy(plan);
     }
 
     static void checkBlock(IsingProblem problem, SampleBlock block, double[] out, int offset) {
@@ -232,6 +338,16 @@ final class FastEnergy implements EnergyKernel {
         return groupWeight.length;
     }
 
+    /** Number of clusters with their own table. */
+    int clusterCount() {
+        return clusterFirst.length;
+    }
+
+    /** Number of terms in the byte tables. */
+    int byteTabledCount() {
+        return tableField.length + tableU.length;
+    }
+
     @Override
     public void energies(SampleBlock block, double[] out, int offset) {
         checkBlock(problem, block, out, offset);
@@ -245,6 +361,9 @@ final class FastEnergy implements EnergyKernel {
                 expandTables();
             } else {
                 Arrays.fill(acc, 0.0);
+            }
+            if (clusterFirst.length > 0) {
+                addClusters(w, base);
             }
             for (int g = 0; g < groupWeight.length; g++) {
                 countGroup(w, base, g);
@@ -260,7 +379,7 @@ final class FastEnergy implements EnergyKernel {
         }
     }
 
-    /** Adds every tabled term's weight into the entry its word's byte j selects, in table j. */
+    /** Adds every byte-tabled term's weight into the entry its word's byte j selects, in table j. */
     private void fillTables(long[] w, int base) {
         double[] t = table;
         for (int i = 0; i < tableField.length; i++) {
@@ -309,6 +428,123 @@ final class FastEnergy implements EnergyKernel {
         Arrays.fill(t, 0.0);
     }
 
+    /**
+     * Adds each cluster's energy for each read's configuration. The cluster's eight words form
+     * an 8 × 8 matrix of bytes (row i = spin 8c+i, byte j = reads 8j … 8j+7); transposing it
+     * by bytes and then each byte block by bits leaves, in byte b of row j, the eight spins of
+     * read 8j + b: the index into the cluster's table. Delta swaps as in Warren, Hacker's
+     * Delight, 2nd ed., 2012, §7-3. The indices of all clusters are gathered first, then each
+     * run of eight reads sums its entries over all clusters in registers. Per read the
+     * clusters' energies are thus added together first and their sum then added to the byte
+     * tables' part (a fixed order).
+     */
+    private void addClusters(long[] w, int base) {
+        double[] e = clusterEnergy;
+        long[] spins = clusterSpins;
+        for (int c = 0; c < clusterFirst.length; c++) {
+            int at = base + clusterFirst[c];
+            long w0 = w[at];
+            long w1 = w[at + 1];
+            long w2 = w[at + 2];
+            long w3 = w[at + 3];
+            long w4 = w[at + 4];
+            long w5 = w[at + 5];
+            long w6 = w[at + 6];
+            long w7 = w[at + 7];
+            long t;
+            // Byte transpose: swap 4-byte blocks of rows i, i+4; 2-byte of i, i+2; bytes of i, i+1.
+            t = ((w0 >>> 32) ^ w4) & 0xFFFFFFFFL;
+            w0 ^= t << 32;
+            w4 ^= t;
+            t = ((w1 >>> 32) ^ w5) & 0xFFFFFFFFL;
+            w1 ^= t << 32;
+            w5 ^= t;
+            t = ((w2 >>> 32) ^ w6) & 0xFFFFFFFFL;
+            w2 ^= t << 32;
+            w6 ^= t;
+            t = ((w3 >>> 32) ^ w7) & 0xFFFFFFFFL;
+            w3 ^= t << 32;
+            w7 ^= t;
+            t = ((w0 >>> 16) ^ w2) & 0x0000FFFF0000FFFFL;
+            w0 ^= t << 16;
+            w2 ^= t;
+            t = ((w1 >>> 16) ^ w3) & 0x0000FFFF0000FFFFL;
+            w1 ^= t << 16;
+            w3 ^= t;
+            t = ((w4 >>> 16) ^ w6) & 0x0000FFFF0000FFFFL;
+            w4 ^= t << 16;
+            w6 ^= t;
+            t = ((w5 >>> 16) ^ w7) & 0x0000FFFF0000FFFFL;
+            w5 ^= t << 16;
+            w7 ^= t;
+            t = ((w0 >>> 8) ^ w1) & 0x00FF00FF00FF00FFL;
+            w0 ^= t << 8;
+            w1 ^= t;
+            t = ((w2 >>> 8) ^ w3) & 0x00FF00FF00FF00FFL;
+            w2 ^= t << 8;
+            w3 ^= t;
+            t = ((w4 >>> 8) ^ w5) & 0x00FF00FF00FF00FFL;
+            w4 ^= t << 8;
+            w5 ^= t;
+            t = ((w6 >>> 8) ^ w7) & 0x00FF00FF00FF00FFL;
+            w6 ^= t << 8;
+            w7 ^= t;
+            int z = c << 3;
+            spins[z] = transposeBits(w0);
+            spins[z + 1] = transposeBits(w1);
+            spins[z + 2] = transposeBits(w2);
+            spins[z + 3] = transposeBits(w3);
+            spins[z + 4] = transposeBits(w4);
+            spins[z + 5] = transposeBits(w5);
+            spins[z + 6] = transposeBits(w6);
+            spins[z + 7] = transposeBits(w7);
+        }
+        // Eight reads at a time, over every cluster, in registers: no stores in the hot loop.
+        int clusters = clusterFirst.length;
+        for (int j = 0; j < 8; j++) {
+            double a0 = 0;
+            double a1 = 0;
+            double a2 = 0;
+            double a3 = 0;
+            double a4 = 0;
+            double a5 = 0;
+            double a6 = 0;
+            double a7 = 0;
+            for (int c = 0; c < clusters; c++) {
+                long z = spins[(c << 3) + j];
+                int from = c << 8;
+                a0 += e[from + ((int) z & 255)];
+                a1 += e[from + ((int) (z >>> 8) & 255)];
+                a2 += e[from + ((int) (z >>> 16) & 255)];
+                a3 += e[from + ((int) (z >>> 24) & 255)];
+                a4 += e[from + ((int) (z >>> 32) & 255)];
+                a5 += e[from + ((int) (z >>> 40) & 255)];
+                a6 += e[from + ((int) (z >>> 48) & 255)];
+                a7 += e[from + (int) (z >>> 56)];
+            }
+            int r = j << 3;
+            acc[r] += a0;
+            acc[r + 1] += a1;
+            acc[r + 2] += a2;
+            acc[r + 3] += a3;
+            acc[r + 4] += a4;
+            acc[r + 5] += a5;
+            acc[r + 6] += a6;
+            acc[r + 7] += a7;
+        }
+    }
+
+    /** Transposes the 8 × 8 bit matrix whose row i is byte i: bit 8i + b goes to 8b + i. */
+    static long transposeBits(long x) {
+        long t = (x ^ (x >>> 7)) & 0x00AA00AA00AA00AAL;
+        x ^= t ^ (t << 7);
+        t = (x ^ (x >>> 14)) & 0x0000CCCC0000CCCCL;
+        x ^= t ^ (t << 14);
+        t = (x ^ (x >>> 28)) & 0x00000000F0F0F0F0L;
+        x ^= t ^ (t << 28);
+        return x;
+    }
+
     /** Counts, per read, the set bits of group g's words into {@link #counts}. */
     private void countGroup(long[] w, int base, int g) {
         int start = groupStart[g];
@@ -328,12 +564,12 @@ final class FastEnergy implements EnergyKernel {
 
     @Override
     public EnergyKernel copy() {
-        return new FastEnergy(this);
+        return new FastEnergy(plan);
     }
 
     @Override
     public String toString() {
-        return "FastEnergy[" + method + ", " + groupWeight.length + " counted groups, " + (tableField.length
-                + tableU.length) + " tabled terms, " + problem + "]";
+        return "FastEnergy[" + method + ", " + groupWeight.length + " counted groups, " + clusterFirst.length
+                + " clusters, " + byteTabledCount() + " byte-tabled terms, " + problem + "]";
     }
 }

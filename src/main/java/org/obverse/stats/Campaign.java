@@ -35,10 +35,11 @@ public final class Campaign {
     private final double[] runTimeSum;
     private final long[] brokenSum;
     private final double[] minEnergy;
+    private final long[] answered;
 
     private Campaign(List<String> instances, List<String> settings, double[] ground, boolean[] groundGiven,
             int[] cellStart, int[] gaugeIndex, long[] reads, long[] successes, double[] residualSum,
-            double[] runTimeSum, long[] brokenSum, double[] minEnergy) {
+            double[] runTimeSum, long[] brokenSum, double[] minEnergy, long[] answered) {
         this.instances = List.copyOf(instances);
         this.settings = List.copyOf(settings);
         this.ground = ground;
@@ -51,6 +52,7 @@ public final class Campaign {
         this.runTimeSum = runTimeSum;
         this.brokenSum = brokenSum;
         this.minEnergy = minEnergy;
+        this.answered = answered;
     }
 
     /** A new builder. */
@@ -112,7 +114,12 @@ public final class Campaign {
         return successes[slot];
     }
 
-    /** Σ (energy − ground) over the slot's reads. */
+    /** Reads of the slot that gave an answer (not discarded for a broken chain); residuals are over these. */
+    public long answered(int slot) {
+        return answered[slot];
+    }
+
+    /** Σ (energy − ground) over the slot's answered reads. */
     public double residualSum(int slot) {
         return residualSum[slot];
     }
@@ -162,6 +169,7 @@ public final class Campaign {
         private double[] run = new double[64];
         private long[] broken = new long[64];
         private double[] minEnergy = new double[64];
+        private long[] answered = new long[64];
         private String lastInstance;
         private String lastSetting;
         private int lastGauge;
@@ -189,6 +197,31 @@ public final class Campaign {
          */
         public Builder add(String instance, String setting, int gaugeIndex, long readCount, long successCount,
                 double residualSum, double runTimeSum, long brokenSum, double leastEnergy) {
+            int slot = slot(instance, setting, gaugeIndex, readCount, successCount);
+            reads[slot] += readCount;
+            answered[slot] += readCount;
+            successes[slot] += successCount;
+            residual[slot] += residualSum;
+            run[slot] += runTimeSum;
+            broken[slot] += brokenSum;
+            minEnergy[slot] = Math.min(minEnergy[slot], leastEnergy);
+            return this;
+        }
+
+        /**
+         * Adds reads that gave no answer (discarded for a broken chain): they count as reads and
+         * as failures, and carry no energy.
+         */
+        public Builder addUnanswered(String instance, String setting, int gaugeIndex, long readCount,
+                double runTimeSum, long brokenSum) {
+            int slot = slot(instance, setting, gaugeIndex, readCount, 0);
+            reads[slot] += readCount;
+            run[slot] += runTimeSum;
+            broken[slot] += brokenSum;
+            return this;
+        }
+
+        private int slot(String instance, String setting, int gaugeIndex, long readCount, long successCount) {
             if (readCount < 1) {
                 throw new IllegalArgumentException("reads must be >= 1, got " + readCount);
             }
@@ -198,27 +231,19 @@ public final class Campaign {
             if (gaugeIndex < NO_GAUGE) {
                 throw new IllegalArgumentException("gauge index must be >= 0 (or none), got " + gaugeIndex);
             }
-            int slot;
             if (lastSlot >= 0 && gaugeIndex == lastGauge && instance.equals(lastInstance) && setting.equals(lastSetting)) {
-                slot = lastSlot;
-            } else {
-                int i = instanceIds.computeIfAbsent(instance, k -> instanceIds.size());
-                int s = settingIds.computeIfAbsent(setting, k -> settingIds.size());
-                Key key = new Key(i, s, gaugeIndex);
-                Integer found = slotOf.get(key);
-                slot = found == null ? newSlot(key, i, s, gaugeIndex) : found;
-                lastInstance = instance;
-                lastSetting = setting;
-                lastGauge = gaugeIndex;
-                lastSlot = slot;
+                return lastSlot;
             }
-            reads[slot] += readCount;
-            successes[slot] += successCount;
-            residual[slot] += residualSum;
-            run[slot] += runTimeSum;
-            broken[slot] += brokenSum;
-            minEnergy[slot] = Math.min(minEnergy[slot], leastEnergy);
-            return this;
+            int i = instanceIds.computeIfAbsent(instance, k -> instanceIds.size());
+            int s = settingIds.computeIfAbsent(setting, k -> settingIds.size());
+            Key key = new Key(i, s, gaugeIndex);
+            Integer found = slotOf.get(key);
+            int slot = found == null ? newSlot(key, i, s, gaugeIndex) : found;
+            lastInstance = instance;
+            lastSetting = setting;
+            lastGauge = gaugeIndex;
+            lastSlot = slot;
+            return slot;
         }
 
         private int newSlot(Key key, int i, int s, int g) {
@@ -233,6 +258,7 @@ public final class Campaign {
                 run = Arrays.copyOf(run, n);
                 broken = Arrays.copyOf(broken, n);
                 minEnergy = Arrays.copyOf(minEnergy, n);
+                answered = Arrays.copyOf(answered, n);
             }
             inst[size] = i;
             sett[size] = s;
@@ -284,6 +310,7 @@ public final class Campaign {
             double[] ru = new double[size];
             long[] br = new long[size];
             double[] me = new double[size];
+            long[] an = new long[size];
             for (int k = 0; k < size; k++) {
                 int o = order[k];
                 start[inst[o] * nS + sett[o] + 1]++;
@@ -294,11 +321,12 @@ public final class Campaign {
                 ru[k] = run[o];
                 br[k] = broken[o];
                 me[k] = minEnergy[o];
+                an[k] = answered[o];
             }
             for (int c = 0; c < nI * nS; c++) {
                 start[c + 1] += start[c];
             }
-            return new Campaign(is, ss, g, given, start, gi, r, su, re, ru, br, me);
+            return new Campaign(is, ss, g, given, start, gi, r, su, re, ru, br, me, an);
         }
     }
 }

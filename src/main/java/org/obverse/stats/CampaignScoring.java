@@ -45,6 +45,7 @@ public final class CampaignScoring {
         long reads = 0;
         long succ = 0;
         double residual = 0;
+        long answered = 0;
         double run = 0;
         long broken = 0;
         double minEnergy = Double.POSITIVE_INFINITY;
@@ -56,6 +57,7 @@ public final class CampaignScoring {
             reads += campaign.reads(k);
             succ += campaign.successes(k);
             residual += campaign.residualSum(k);
+            answered += campaign.answered(k);
             run += campaign.runTimeSum(k);
             broken += campaign.brokenSum(k);
             minEnergy = Math.min(minEnergy, campaign.minEnergy(k));
@@ -80,7 +82,7 @@ public final class CampaignScoring {
                 TimeToSolution.kernel(p, runTime, logMiss),
                 TimeToSolution.kernel(cp.upper(), runTime, logMiss),
                 TimeToSolution.kernel(cp.lower(), runTime, logMiss),
-                residual / reads, minEnergy, (double) broken / reads, five, mean,
+                answered == 0 ? Double.NaN : residual / answered, minEnergy, (double) broken / reads, five, mean,
                 Quantiles.sorted(gaugeTts, 0, g, 0.5));
     }
 

@@ -105,11 +105,33 @@ class ChainCommandsTest extends CommandTestSupport {
             assertThat(phys.energy(physical)).isCloseTo(scale * logical.energy(s) + couplers * -1.5, within(1e-12));
         }
 
+        // Per-chain coupling proportional to length: the longest chain gets V, V_c / L_c is constant.
+        Path p3 = tmp.resolve("bylength.json");
+        Run byLength = obverse("embed", "--logical", q.toString(), "--chains", chainsFile.toString(), "--device",
+                d.toString(), "--chain-coupling", "-2", "--chain-coupling-mode", "length", "--out", p3.toString());
+        assertThat(byLength.code()).as(byLength.err()).isZero();
+        ProblemFile lengthFile = ProblemCodec.read(p3);
+        assertThat(lengthFile.meta().get("chain_coupling_mode").asText()).isEqualTo("length");
+        IsingProblem lp = lengthFile.spin();
+        int longest = c.maxLength();
+        for (int k = 0; k < 5; k++) {
+            int[] chain = c.chainOf(k);
+            for (int a = 0; a < chain.length; a++) {
+                for (int b = a + 1; b < chain.length; b++) {
+                    int e = lp.edgeBetween(lp.variables().indexOf(chain[a]), lp.variables().indexOf(chain[b]));
+                    if (e >= 0) {
+                        assertThat(lp.coupling(e)).isCloseTo(-2.0 * chain.length / longest, within(1e-15));
+                    }
+                }
+            }
+        }
+
         Path p2 = tmp.resolve("clique.json");
         Run clique = obverse("embed", "--logical", q.toString(), "--device", lattice("full.json").toString(),
                 "--chain-coupling", "-2", "--finder", "clique", "--out", p2.toString());
         assertThat(clique.code()).as(clique.err()).isZero();
-        assertThat(clique.out()).contains("up to 12 variables, chains of length 4");
+        // 5 variables fit a 2 x 2 square of K4,4 cells: chains of length 3.
+        assertThat(clique.out()).contains("native clique of 5 variables").contains("at most 12").contains("length 3");
     }
 
     @Test
@@ -197,6 +219,21 @@ class ChainCommandsTest extends CommandTestSupport {
         double[] e = NpyVectors.readFloat64(out.resolve("energies.npy"), 3);
         assertThat(e[0]).isEqualTo(logical.energy(new byte[] {1, 1, 1, 1, 1}));
         assertThat(Files.readString(out.resolve("chains.csv"))).startsWith("logical_id,length,broken_reads,broken_fraction\n0,4,1,");
+
+        // The same reads as 0/1 in CSV give the same logical reads, written as 0/1 CSV.
+        Path csv = tmp.resolve("samples.csv");
+        try (org.obverse.io.SampleWriter sw = SampleFiles.create(csv, qubits, false, org.obverse.io.SampleCoding.BINARY)) {
+            sw.writeBlock(SampleBlock.fromSpins(flat, 3, n));
+            sw.commit();
+        }
+        Path bin = tmp.resolve("bin");
+        assertThat(obverse("decode", "--problem", p.toString(), "--logical", q.toString(), "--chains", cf.toString(),
+                "--samples", csv.toString(), "--rule", "majority", "--binary", "--out", bin.toString()).code()).isZero();
+        try (org.obverse.io.SampleReader in = SampleFiles.open(bin.resolve("logical.csv"), logical.variables(),
+                org.obverse.io.SampleCoding.BINARY)) {
+            assertThat(in.readRemaining().toSpins()).isEqualTo(x.toSpins());
+        }
+        assertThat(Files.readString(bin.resolve("logical.csv"))).contains("0,1").doesNotContain("-1");
 
         Path disc = tmp.resolve("disc");
         assertThat(obverse("decode", "--problem", p.toString(), "--logical", q.toString(), "--chains", cf.toString(),

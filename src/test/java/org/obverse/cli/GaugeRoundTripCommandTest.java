@@ -95,10 +95,40 @@ class GaugeRoundTripCommandTest extends CommandTestSupport {
                 assertThat(src.energy(row)).isEqualTo(rep[r]);
             }
         }
+        // The device-frame moments, recomputed directly from the raw reads of gauge 5.
+        SampleBlock raw5 = SampleFiles.readAll(raw.resolve("g0005.npy"), src.variables());
+        long sumQubit0 = 0;
+        long sumCoupler0 = 0;
+        for (int r = 0; r < 130; r++) {
+            sumQubit0 += raw5.spin(r, 0);
+            sumCoupler0 += raw5.spin(r, src.edgeU(0)) * raw5.spin(r, src.edgeV(0));
+        }
+        GaugeManifest m = ManifestCodec.read(dir.resolve("g/manifest.json"));
+        int sign0 = java.util.Arrays.binarySearch(m.gauges().get(5).flipped(), src.variables().id(0)) >= 0 ? -1 : 1;
+        assertThat(Files.readAllLines(dir.resolve("u/magnetisation.csv")))
+                .contains(src.variables().id(0) + ",5,130," + sumQubit0 + "," + sign0);
+        String couplerRow = src.variables().id(src.edgeU(0)) + "," + src.variables().id(src.edgeV(0)) + ",5,130,"
+                + sumCoupler0 + ",";
+        assertThat(Files.readAllLines(dir.resolve("u/correlations.csv"))).anyMatch(l -> l.startsWith(couplerRow));
+
         Run a = obverse("audit", "--manifest", dir.resolve("g/manifest.json").toString(), "--samples", raw.toString());
         assertThat(a.code()).as(a.out()).isZero();
         assertThat(a.out()).contains("audit: all").doesNotContain("FAIL").contains("130 reads of g0003.npy")
                 .contains("reported energies agree");
+    }
+
+    @Test
+    void auditComparesAnnealSpectraOfSmallProblems() throws Exception {
+        assertThat(gauge("g").code()).isZero();
+        Run a = obverse("audit", "--manifest", dir.resolve("g/manifest.json").toString(), "--spectrum");
+        assertThat(a.code()).as(a.out()).isZero();
+        assertThat(a.out().lines().filter(l -> l.startsWith("ok    ") && l.contains("anneal spectrum equals"))).hasSize(8);
+        // A gauged problem with one coupler changed is not unitarily equivalent any more.
+        Path g3 = dir.resolve("g/g0003.json");
+        Files.writeString(g3, Files.readString(g3).replace("0.5", "0.4"));
+        Run t = obverse("audit", "--manifest", dir.resolve("g/manifest.json").toString(), "--spectrum");
+        assertThat(t.code()).isEqualTo(1);
+        assertThat(t.out()).contains("FAIL  gauge 3: anneal spectrum equals");
     }
 
     @Test

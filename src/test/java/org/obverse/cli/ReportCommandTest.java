@@ -73,6 +73,31 @@ class ReportCommandTest extends QuietTest {
     }
 
     @Test
+    void seriesDrawsOneLinePerValueOfAColumn() throws Exception {
+        System.setProperty("java.awt.headless", "true");
+        Path res = dir.resolve("results.csv");
+        Path gr = dir.resolve("ground.csv");
+        ScoreCommandTest.campaign(res, gr, 24);
+        Path out = dir.resolve("report");
+        ScoreCommandTest.Run r = ScoreCommandTest.run("report", "--results", res.toString(), "--ground", gr.toString(),
+                "--out", out.toString(), "--replicates", "50", "--series", "anneal_us", "--quiet");
+        assertThat(r.code()).as(r.err()).isZero();
+        // SVG text is drawn as outlines, so look for the second line's colour (rgb(176,74,16)), which
+        // only a grouped plot uses, and check an ungrouped plot of the same table lacks it.
+        String grouped = Files.readString(out.resolve("plots/tts.svg"));
+        assertThat(grouped).contains("rgb(176,74,16)");
+        ScoreCommandTest.Run plain = ScoreCommandTest.run("report", "--results", res.toString(), "--ground",
+                gr.toString(), "--out", dir.resolve("plain").toString(), "--replicates", "50", "--quiet");
+        assertThat(plain.code()).isZero();
+        assertThat(Files.readString(dir.resolve("plain/plots/tts.svg"))).doesNotContain("rgb(176,74,16)");
+        ScoreCommandTest.Run bad = ScoreCommandTest.run("report", "--results", res.toString(), "--ground",
+                gr.toString(), "--out", dir.resolve("r2").toString(), "--series", "nope", "--quiet");
+        assertThat(bad.code()).isEqualTo(2);
+        assertThat(bad.err()).contains("--series nope");
+        assertThat(dir.resolve("r2")).doesNotExist();
+    }
+
+    @Test
     void badMagnetisationIsExitTwo() throws Exception {
         Path res = dir.resolve("results.csv");
         Path gr = dir.resolve("ground.csv");

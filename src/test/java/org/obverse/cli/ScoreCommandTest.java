@@ -91,6 +91,22 @@ class ScoreCommandTest extends QuietTest {
                 assertThat(Double.parseDouble(f[5])).isCloseTo(tts, within(1e-9 * tts));
             }
         }
+        // settings.csv: the median over instances (commons-math3 Percentile R_7, Hyndman & Fan
+        // type 7) of the per-instance TTS of instances.csv; infinite values sort last.
+        for (String row : set.subList(1, set.size())) {
+            String[] f = row.split(",");
+            double[] tts = inst.subList(1, inst.size()).stream().map(l -> l.split(","))
+                    .filter(x -> x[1].equals(f[0])).mapToDouble(x -> x[5].equals("inf") ? Double.POSITIVE_INFINITY
+                            : Double.parseDouble(x[5])).sorted().toArray();
+            assertThat(Long.parseLong(f[1])).isEqualTo(tts.length);
+            if (java.util.Arrays.stream(tts).allMatch(Double::isFinite)) {
+                double median = new org.apache.commons.math3.stat.descriptive.rank.Percentile()
+                        .withEstimationType(org.apache.commons.math3.stat.descriptive.rank.Percentile.EstimationType.R_7)
+                        .evaluate(tts, 50);
+                assertThat(Double.parseDouble(f[2])).isCloseTo(median, within(1e-9 * median));
+            }
+            assertThat(Double.parseDouble(f[3])).isLessThanOrEqualTo(Double.parseDouble(f[4]));
+        }
         // Same seed, same digits; --json prints the same content.
         Run j = run("score", "--results", res.toString(), "--ground", gr.toString(), "--json", "--replicates", "200",
                 "--compare", "anneal=40", "anneal=10", "--sweep", "anneal_us", "--threads", "1");

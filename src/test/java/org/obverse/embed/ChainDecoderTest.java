@@ -145,6 +145,12 @@ class ChainDecoderTest extends QuietTest {
                     }
                 }
                 assertThat(d.brokenChains()[r]).isEqualTo(broken);
+                byte[] xs = new byte[n];
+                for (int c = 0; c < n; c++) {
+                    xs[c] = (byte) x[c];
+                }
+                // Energies equal IsingProblem.energy bit for bit (same order, same ±1 products).
+                assertThat(d.energies()[r]).isEqualTo(logical.energy(xs));
                 for (int c = 0; c < n; c++) {
                     assertThat(d.logical().spin(r, c)).as("read %d chain %d", r, c).isEqualTo(x[c]);
                 }

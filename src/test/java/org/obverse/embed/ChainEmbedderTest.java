@@ -183,6 +183,23 @@ class ChainEmbedderTest extends QuietTest {
         assertThatThrownBy(() -> ChainStrength.uniform(0)).hasMessageContaining("other than 0");
     }
 
+    @Test
+    void aCouplingSumRangeTheChainsBreakIsReported() {
+        // Native clique chains in 3 x 3 cells, logical fields only: a middle qubit of a chain has two
+        // chain couplers and nothing else, so with V = -2 its coupling sum is -4, outside [-3, 3].
+        CellLattice lattice = CellLattice.of(3, 3, 4);
+        DeviceLimits limits = DeviceLimits.builder(ValueRange.of(-2, 2), ValueRange.of(-2, 1))
+                .couplingSum(ValueRange.of(-3, 3)).graph(lattice.graph()).build();
+        org.obverse.model.IsingBuilder fieldsOnly = IsingProblem.builder();
+        for (int v = 0; v < 12; v++) {
+            fieldsOnly.field(v, 0.1 * (v + 1));
+        }
+        IsingProblem logical = fieldsOnly.build();
+        assertThatThrownBy(() -> ChainEmbedder.embed(logical, CliqueEmbedding.of(lattice, 12), limits,
+                ChainStrength.uniform(-2))).hasMessageContaining("coupling sum at")
+                .hasMessageContaining("per-qubit coupling-sum range [-3.0, 3.0]");
+    }
+
     private static byte[] randomSpins(int n, UniformRandomProvider rng) {
         byte[] s = new byte[n];
         for (int k = 0; k < n; k++) {

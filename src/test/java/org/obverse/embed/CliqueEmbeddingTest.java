@@ -59,4 +59,26 @@ class CliqueEmbeddingTest extends QuietTest {
                 .anyMatch(p -> p.contains("qubit 0") && p.contains("not in the device's working graph"));
         assertThat(IndependentMinorCheck.isMinorEmbedding(TestProblems.complete(8), chains, broken)).isFalse();
     }
+
+    @Test
+    void avoidingDefectsStillGivesAValidCliqueWithShortChains() {
+        org.obverse.testsupport.Seeds.forEachCase(10, 40, (rng, seed) -> {
+            CellLattice lattice = CellLattice.of(8, 8, 4);
+            QubitGraph g = CellLattice.withRandomDefects(lattice.graph(), 1 + rng.nextInt(8), rng.nextInt(8), rng);
+            int n = 8 + rng.nextInt(13);
+            Chains chains = CliqueEmbedding.avoidingDefects(lattice, g, TestProblems.complete(n).variables());
+            assertThat(IndependentMinorCheck.isMinorEmbedding(TestProblems.complete(n), chains, g)).isTrue();
+            // Chains are the construction's L shapes in an s x s square, s >= ceil(n / 4): length s + 1.
+            assertThat(chains.maxLength()).isGreaterThanOrEqualTo((n + 3) / 4 + 1).isLessThanOrEqualTo(9);
+        });
+        // On a perfect lattice the smallest square is used: K_8 in 2 x 2 cells, chains of length 3.
+        CellLattice lattice = CellLattice.of(5, 5, 4);
+        assertThat(CliqueEmbedding.avoidingDefects(lattice, lattice.graph(), TestProblems.complete(8).variables()).maxLength())
+                .isEqualTo(3);
+        // Every qubit of a 1 x 1 lattice is needed for K_4; one missing makes it impossible.
+        CellLattice one = CellLattice.of(1, 1, 4);
+        assertThatThrownBy(() -> CliqueEmbedding.avoidingDefects(one, one.graphWithout(new int[] {0}, new int[0][]),
+                TestProblems.complete(4).variables())).isInstanceOf(EmbeddingNotFoundException.class)
+                .hasMessageContaining("no native clique of 4 variables");
+    }
 }

@@ -61,4 +61,22 @@ class RerouteEmbeddingFinderTest extends QuietTest {
                 FinderLimits.rounds(20), Seeds.rng(3)))
                 .hasMessageContaining("cannot fit 16 qubits");
     }
+
+    @Test
+    void bestOfSeveralTriesKeepsTheShortestLongestChain() {
+        CellLattice lattice = CellLattice.of(5, 5, 4);
+        QubitGraph g = CellLattice.withRandomDefects(lattice.graph(), 5, 5, Seeds.rng(11));
+        IsingProblem logical = TestProblems.random(14, 0.3, Seeds.rng(12));
+        Chains best = RerouteEmbeddingFinder.findBest(logical, g, FinderLimits.rounds(300), 4, Seeds.rng(13));
+        assertThat(IndependentMinorCheck.isMinorEmbedding(logical, best, g)).isTrue();
+        // Replay the tries (each seeded from the caller's generator in turn) and compare.
+        org.apache.commons.rng.UniformRandomProvider rng = Seeds.rng(13);
+        int shortest = Integer.MAX_VALUE;
+        for (int t = 0; t < 4; t++) {
+            Chains c = RerouteEmbeddingFinder.find(logical, g, FinderLimits.rounds(300),
+                    org.apache.commons.rng.simple.RandomSource.XO_RO_SHI_RO_128_PP.create(rng.nextLong()));
+            shortest = Math.min(shortest, c.maxLength());
+        }
+        assertThat(best.maxLength()).isEqualTo(shortest);
+    }
 }

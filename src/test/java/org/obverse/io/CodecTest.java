@@ -116,5 +116,12 @@ class CodecTest extends QuietTest {
         try (var s = Files.list(dir)) {
             assertThat(s.map(p -> p.getFileName().toString())).noneMatch(n -> n.endsWith(".part"));
         }
+        // Temporary names are private; the published outputs get the usual modes.
+        assertThat(java.nio.file.attribute.PosixFilePermissions.toString(Files.getPosixFilePermissions(f)))
+                .isEqualTo("rw-r--r--");
+        Path d = dir.resolve("folder");
+        AtomicOutput.writeDirectory(d, false, tmp -> Files.writeString(tmp.resolve("x"), "x"));
+        assertThat(java.nio.file.attribute.PosixFilePermissions.toString(Files.getPosixFilePermissions(d)))
+                .isEqualTo("rwxr-xr-x");
     }
 }

@@ -18,6 +18,12 @@ class EnergyKernelTest extends QuietTest {
         return Double.doubleToRawLongBits(d);
     }
 
+    /** The planner's choice and each mechanism forced on every term it can take. */
+    private static EnergyKernel[] allFast(IsingProblem p) {
+        return new EnergyKernel[] {EnergyKernel.of(p), EnergyKernel.tables(p), EnergyKernel.counters(p),
+            FastEnergy.plan(p, Integer.MAX_VALUE, 1), FastEnergy.plan(p, 2, 1)};
+    }
+
     @Test
     void exactKernelEqualsTheDefinitionBitForBit() {
         Seeds.forEachCase(150, 10_000, (rng, seed) -> {
@@ -25,7 +31,8 @@ class EnergyKernelTest extends QuietTest {
             IsingProblem p = GeneratedProblems.problem(rng, kind, 90);
             int reads = 1 + rng.nextInt(200);
             byte[] s = GeneratedProblems.spins(rng, reads * p.size());
-            double[] e = EnergyKernel.exact(p).energies(SampleBlock.fromSpins(s, reads, p.size()));
+            SampleBlock block = SampleBlock.fromSpins(s, reads, p.size());
+            double[] e = EnergyKernel.exact(p).energies(block);
             for (int r = 0; r < reads; r++) {
                 assertThat(bits(e[r])).as("read %d", r).isEqualTo(bits(p.energy(GeneratedProblems.row(s, r, p.size()))));
             }
@@ -47,7 +54,7 @@ class EnergyKernelTest extends QuietTest {
             for (int e = 0; e < p.edgeCount(); e++) {
                 sumAbs += Math.abs(p.coupling(e));
             }
-            for (EnergyKernel k : new EnergyKernel[] {EnergyKernel.of(p), EnergyKernel.tables(p), EnergyKernel.counters(p)}) {
+            for (EnergyKernel k : allFast(p)) {
                 double tol = k.tolerance();
                 // The bound must be meaningful: far below the scale of the energies themselves.
                 assertThat(tol).isLessThan(1e-9 * Math.max(sumAbs, Double.MIN_NORMAL));
@@ -67,9 +74,9 @@ class EnergyKernelTest extends QuietTest {
             int reads = 1 + rng.nextInt(200);
             SampleBlock block = SampleBlock.fromSpins(GeneratedProblems.spins(rng, reads * p.size()), reads, p.size());
             double[] exact = EnergyKernel.exact(p).energies(block);
-            assertThat(EnergyKernel.of(p).energies(block)).containsExactly(exact);
-            assertThat(EnergyKernel.tables(p).energies(block)).containsExactly(exact);
-            assertThat(EnergyKernel.counters(p).energies(block)).containsExactly(exact);
+            for (EnergyKernel k : allFast(p)) {
+                assertThat(k.energies(block)).as(k.toString()).containsExactly(exact);
+            }
         });
     }
 
@@ -109,6 +116,26 @@ class EnergyKernelTest extends QuietTest {
             IsingProblem mixed = IsingProblem.of(index, h, u, v, j, 0);
             assertThat(EnergyKernel.of(mixed).method()).isEqualTo(EnergyKernel.Method.COUNTERS_AND_TABLES);
             assertThat(EnergyKernel.exact(mixed).method()).isEqualTo(EnergyKernel.Method.EXACT);
+            // Dense real-valued clusters of eight consecutive positions get their own tables.
+            FastEnergy dense = (FastEnergy) EnergyKernel.of(gauss);
+            assertThat(dense.clusterCount()).isEqualTo(n / 8);
+            // 28 couplers in each of the 5 clusters leave 780 - 140 to the byte tables.
+            assertThat(dense.byteTabledCount()).isEqualTo(m - 5 * 28);
+            assertThat(((FastEnergy) EnergyKernel.tables(gauss)).clusterCount()).isZero();
+        });
+    }
+
+    @Test
+    void bitTransposeMovesBitEightIPlusBToEightBPlusI() {
+        // The definition of transposing an 8 x 8 bit matrix stored row by row in the bytes of a word.
+        Seeds.forEachCase(200, 45_000, (rng, seed) -> {
+            long x = rng.nextLong();
+            long t = FastEnergy.transposeBits(x);
+            for (int i = 0; i < 8; i++) {
+                for (int b = 0; b < 8; b++) {
+                    assertThat((t >>> (8 * b + i)) & 1).isEqualTo((x >>> (8 * i + b)) & 1);
+                }
+            }
         });
     }
 
