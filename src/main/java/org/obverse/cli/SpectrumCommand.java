@@ -113,7 +113,7 @@ public final class SpectrumCommand implements Callable<Integer> {
                     + "(default ${DEFAULT-VALUE})")
     String solver;
 
-    @Option(names = "--tolerance", defaultValue = "1e-10", paramLabel = "T",
+    @Option(names = "--tolerance", defaultValue = "1e-12", paramLabel = "T",
             description = "Lanczos residual tolerance relative to max(1, |H|) (default ${DEFAULT-VALUE})")
     double tolerance;
 

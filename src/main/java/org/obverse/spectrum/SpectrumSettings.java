@@ -18,7 +18,7 @@ public record SpectrumSettings(int levels, SolverChoice solver, double tolerance
         }
     }
 
-    /** Four levels, AUTO solver, tolerance 1e-10, the reachable sector. */
+    /** Four levels, AUTO solver, Lanczos tolerance {@link LanczosLevelSolver#DEFAULT_TOLERANCE}, the reachable sector. */
     public static SpectrumSettings defaults() {
         return new SpectrumSettings(4, SolverChoice.AUTO, LanczosLevelSolver.DEFAULT_TOLERANCE,
                 SectorBasis.Sector.REACHABLE);
