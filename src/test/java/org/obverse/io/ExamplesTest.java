@@ -1,0 +1,24 @@
+package org.obverse.io;
+
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.obverse.device.LimitCheck;
+import org.obverse.testsupport.QuietTest;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+/** Every file in examples/ reads, and the example problem fits the example device. */
+class ExamplesTest extends QuietTest {
+    @Test
+    void everyExampleReadsAndTheyFitTogether() {
+        ProblemFile physical = ProblemCodec.read(Path.of("examples/problem.json"));
+        ProblemFile logical = ProblemCodec.read(Path.of("examples/logical.json"));
+        var device = DeviceCodec.read(Path.of("examples/device.json"));
+        ChainList chains = ChainsCodec.read(Path.of("examples/chains.json"));
+        assertThat(logical.domain()).isEqualTo("binary");
+        assertThat(LimitCheck.violations(physical.spin(), device)).isEmpty();
+        assertThat(chains.size()).isEqualTo(logical.variables().size());
+        assertThat(ScheduleCodec.read(Path.of("examples/schedule-pause.json")).runTimeMicros()).isPositive();
+        assertThat(ControlErrorsCodec.read(Path.of("examples/errors.json")).isNone()).isFalse();
+    }
+}
