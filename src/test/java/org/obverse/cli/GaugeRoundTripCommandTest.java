@@ -210,6 +210,13 @@ class GaugeRoundTripCommandTest extends CommandTestSupport {
     }
 
     @Test
+    void theShippedExampleManifestStillAudits() {
+        Run a = obverse("audit", "--manifest", "examples/gauges/manifest.json", "--spectrum");
+        assertThat(a.code()).as(a.out()).isZero();
+        assertThat(a.out()).contains("audit: all");
+    }
+
+    @Test
     void everyVerbHasHelp() {
         for (String verb : new String[] {"gauge", "ungauge", "audit", "energy"}) {
             Run h = obverse(verb, "--help");
