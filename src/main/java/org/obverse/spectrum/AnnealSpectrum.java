@@ -14,7 +14,8 @@ import org.obverse.model.IsingProblem;
  * do not cross generically (avoided crossings; von Neumann and Wigner, Phys. Z. 30, 467,
  * 1929), so index order follows each level along s.
  *
- * <p>Immutable; each call solves afresh (cost: one eigensolve per value of s).
+ * <p>Immutable; each call solves afresh (cost: one eigensolve per value of s; within a scan or
+ * a refinement the Lanczos solves are warm-started from the previous s).
  */
 public final class AnnealSpectrum {
     /** Most levels the Lanczos solver is asked for (ground manifold included). */
@@ -104,15 +105,19 @@ public final class AnnealSpectrum {
         return e[relevant] - e[0];
     }
 
-    /** Levels and gaps on a grid (values in [0, 1], ascending). */
+    /**
+     * Levels and gaps on a grid (values in [0, 1], ascending). With the Lanczos solver each
+     * point is warm-started from the eigenvectors of the one before (see {@link Path}).
+     */
     public GapScan scan(double[] grid) {
         double[][] levels = new double[grid.length][];
         double[] gap = new double[grid.length];
+        Path path = new Path();
         for (int r = 0; r < grid.length; r++) {
             if (r > 0 && !(grid[r] > grid[r - 1])) {
                 throw new IllegalArgumentException("s grid must increase strictly; s[" + r + "] = " + grid[r]);
             }
-            levels[r] = levels(grid[r]);
+            levels[r] = path.levels(grid[r]);
             gap[r] = levels[r][relevant] - levels[r][0];
         }
         return new GapScan(grid.clone(), levels, gap);
@@ -135,8 +140,9 @@ public final class AnnealSpectrum {
         double b = hi;
         double c = b - invPhi * (b - a);
         double d = a + invPhi * (b - a);
-        double fc = gap(c);
-        double fd = gap(d);
+        Path path = new Path();
+        double fc = path.gap(c);
+        double fd = path.gap(d);
         double[] best = {bestS, bestGap};
         keep(best, c, fc);
         keep(best, d, fd);
@@ -146,14 +152,14 @@ public final class AnnealSpectrum {
                 d = c;
                 fd = fc;
                 c = b - invPhi * (b - a);
-                fc = gap(c);
+                fc = path.gap(c);
                 keep(best, c, fc);
             } else {
                 a = c;
                 c = d;
                 fc = fd;
                 d = a + invPhi * (b - a);
-                fd = gap(d);
+                fd = path.gap(d);
                 keep(best, d, fd);
             }
         }
@@ -194,12 +200,13 @@ public final class AnnealSpectrum {
             if (scan.gap(r) >= target) {
                 double lo = prev;
                 double hi = s;
-                if (gap(lo) >= target) {
+                Path path = new Path();
+                if (path.gap(lo) >= target) {
                     return new double[] {lo, 0};
                 }
                 while (hi - lo > tolerance) {
                     double mid = 0.5 * (lo + hi);
-                    if (gap(mid) >= target) {
+                    if (path.gap(mid) >= target) {
                         hi = mid;
                     } else {
                         lo = mid;
@@ -210,6 +217,32 @@ public final class AnnealSpectrum {
             prev = s;
         }
         return new double[] {scan.s(scan.points() - 1), 1};
+    }
+
+    /**
+     * Solves at a sequence of nearby s, each Lanczos solve seeded with the eigenvectors of the
+     * one before: where the levels move little between steps the seeds are nearly converged
+     * and only the confirmation run of a cold solve remains, and in the clusters just after
+     * s = 0 the seeds already span the right combinations. The accuracy is the solver's own
+     * (every level is converged and confirmed afresh); results may differ from cold solves
+     * within the tolerance. Other solvers solve each s cold. Not thread-safe: one per path.
+     */
+    private final class Path {
+        private double[][] vectors;
+
+        double[] levels(double s) {
+            if (!(solver instanceof LanczosLevelSolver lanczos)) {
+                return solver.lowest(operator(s), levelCount);
+            }
+            LanczosLevelSolver.Solution solution = lanczos.lowestWithVectors(operator(s), levelCount, vectors);
+            vectors = solution.vectors();
+            return solution.values();
+        }
+
+        double gap(double s) {
+            double[] e = levels(s);
+            return e[relevant] - e[0];
+        }
     }
 
     /** Scan, refine the minimum and suggest the pause window. */

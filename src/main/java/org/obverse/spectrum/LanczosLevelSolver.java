@@ -121,22 +121,43 @@ public final class LanczosLevelSolver implements LevelSolver {
 
     @Override
     public double[] lowest(AnnealOperator op, int count) {
+        return lowestWithVectors(op, count, null).values();
+    }
+
+    /**
+     * The lowest levels with their eigenvectors, the Krylov basis seeded with start vectors
+     * (warm start). Input: start is null or holds vectors of the operator's dimension, such as
+     * the eigenvectors of a nearby s; the solver takes them over and overwrites them. They only
+     * decide where the search begins: every level still has to reach the residual tolerance,
+     * and the confirmation run from random vectors that rules out a missed lower level is the
+     * same as in a cold solve, so the levels are as accurate as {@link #lowest}'s.
+     */
+    public Solution lowestWithVectors(AnnealOperator op, int count, double[][] start) {
         checkSize(op.basis(), count);
         int k = Math.min(count, op.dimension());
         // A cluster of near-degenerate levels that a block of p vectors cannot span makes the
         // run stall (no lock for many restarts): start again with a block twice as wide.
         for (int p = Math.max(1, Math.min(blockSize, k)); ; p *= 2) {
             boolean last = p >= MAX_BLOCK;
-            double[] levels = solve(op, k, p, last ? MAX_RESTARTS : STALL_RESTARTS, last);
-            if (levels != null) {
-                return levels;
+            Solution solution = solve(op, k, p, last ? MAX_RESTARTS : STALL_RESTARTS, last, start);
+            if (solution != null) {
+                return solution;
             }
+            // The start vectors were taken over as basis storage: a wider retry starts cold.
+            start = null;
         }
+    }
+
+    /**
+     * Levels ascending and their orthonormal eigenvectors ({@code vectors[i]} belongs to
+     * {@code values[i]}). The arrays are the caller's.
+     */
+    public record Solution(double[] values, double[][] vectors) {
     }
 
     // The lowest k levels with block size p, or null where no level was locked for stallLimit
     // restarts in a row and the caller may widen the block (when not last).
-    private double[] solve(AnnealOperator op, int k, int p, int stallLimit, boolean last) {
+    private Solution solve(AnnealOperator op, int k, int p, int stallLimit, boolean last, double[][] start) {
         int dim = op.dimension();
         double scale = Math.max(1.0, op.normBound());
         double tol = tolerance * scale;
@@ -156,7 +177,26 @@ public final class LanczosLevelSolver implements LevelSolver {
         // its lowest converged Ritz value taken as the lowest unlocked level.
         boolean fresh = false;
         int freshSteps = 0;
-        for (int c = 0; c < Math.min(p, dim); c++) {
+        if (start != null) {
+            // Warm start: the given vectors, orthonormalised (twice, as elsewhere), lead the
+            // basis; room is left for the block and the first residual vectors.
+            int room = Math.max(0, basisMax - p - 1);
+            for (int c = 0; c < start.length && size < room; c++) {
+                double[] v = start[c];
+                if (v == null || v.length != dim) {
+                    throw new IllegalArgumentException("start vector " + c + " must have length " + dim);
+                }
+                for (int pass = 0; pass < 2; pass++) {
+                    Vectors.projectOut(q, size, v, dim, null);
+                }
+                double norm = Vectors.norm(v, dim);
+                if (norm > 1e-8) {
+                    Vectors.scale(v, dim, 1.0 / norm);
+                    q[size++] = v;
+                }
+            }
+        }
+        for (int c = size; c < Math.min(p, dim); c++) {
             q[c] = new double[dim];
             newDirection(q[c], rng, lockedArr, q, c, dim);
             size++;
@@ -319,8 +359,20 @@ public final class LanczosLevelSolver implements LevelSolver {
                 size = 1;
             }
         }
-        double[] values = sortedCopy(lockedValues);
-        return Arrays.copyOf(values, Math.min(k, values.length));
+        Integer[] order = new Integer[lockedValues.length];
+        for (int i = 0; i < order.length; i++) {
+            order[i] = i;
+        }
+        double[] byValue = lockedValues;
+        Arrays.sort(order, (x, y) -> Double.compare(byValue[x], byValue[y]));
+        int n = Math.min(k, order.length);
+        double[] values = new double[n];
+        double[][] vectors = new double[n][];
+        for (int i = 0; i < n; i++) {
+            values[i] = lockedValues[order[i]];
+            vectors[i] = locked.get(order[i]);
+        }
+        return new Solution(values, vectors);
     }
 
     // q[c] ← Σ_j S[j][from + c] q[j] for c < keep, row by row in place (q[keep..done) is left as scratch).

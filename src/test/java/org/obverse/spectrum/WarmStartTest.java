@@ -1,0 +1,96 @@
+package org.obverse.spectrum;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import java.util.Arrays;
+import java.util.Comparator;
+import org.ejml.data.DMatrixRMaj;
+import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
+import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.junit.jupiter.api.Test;
+import org.obverse.model.IsingProblem;
+import org.obverse.testsupport.QuietTest;
+import org.obverse.testsupport.Seeds;
+
+/**
+ * The warm-started Lanczos solves of a scan: the same levels as independent cold solves and
+ * as EJML's dense symmetric eigendecomposition (the oracle), and no level missed whatever the
+ * start vectors are.
+ */
+class WarmStartTest extends QuietTest {
+    private static final double TOL = 1e-10;
+
+    /* Random 10-spin problems with fields (2^10 states): a warm-started scan against cold solves and dense. */
+    @Test
+    void warmScanMatchesColdSolves() {
+        Seeds.forEachCase(3, 9900, (rng, seed) -> {
+            IsingProblem p = TestProblems.random(rng, 10, 0.3, true);
+            SpectrumSettings base = SpectrumSettings.defaults().withLevels(4);
+            AnnealSchedule schedule = AnnealSchedule.illustrative();
+            AnnealSpectrum lanczos = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.LANCZOS));
+            AnnealSpectrum dense = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.DENSE));
+            double[] grid = ScanSettings.defaults().withPoints(41).grid();
+            GapScan scan = lanczos.scan(grid);
+            // s = 0 (the pure driver, degenerate), the clustered start, mid-anneal and the end.
+            for (int r : new int[] {0, 1, 2, 3, 20, 39, 40}) {
+                double s = scan.s(r);
+                double[] warm = scan.levels(r);
+                double[] cold = lanczos.levels(s);
+                double[] oracle = dense.levels(s);
+                assertThat(warm).hasSameSizeAs(cold);
+                for (int i = 0; i < warm.length; i++) {
+                    assertThat(warm[i]).as("level %d at s=%s (cold)", i, s).isCloseTo(cold[i], within(TOL));
+                    assertThat(warm[i]).as("level %d at s=%s (dense)", i, s).isCloseTo(oracle[i], within(TOL));
+                }
+            }
+        });
+    }
+
+    /*
+     * Adversarial start vectors: the exact eigenvectors of levels 4..7 (from EJML), which span
+     * nothing of the wanted four. The confirmation run must still find the lowest four.
+     */
+    @Test
+    void excitedStartVectorsStillGiveTheLowestLevels() {
+        Seeds.forEachCase(5, 9950, (rng, seed) -> {
+            int n = 6 + rng.nextInt(3);
+            IsingProblem p = TestProblems.random(rng, n, 0.4, rng.nextBoolean());
+            SectorBasis basis = SectorBasis.of(p, SectorBasis.Sector.FULL);
+            double s = 0.05 + 0.9 * rng.nextDouble();
+            AnnealOperator op = AnnealOperator.of(basis, 1 - s, s);
+            DMatrixRMaj h = DenseLevelSolver.matrix(op);
+            int d = h.numRows;
+            EigenDecomposition_F64<DMatrixRMaj> eig = DecompositionFactory_DDRM.eig(d, true, true);
+            assertThat(eig.decompose(h.copy())).isTrue();
+            Integer[] order = new Integer[d];
+            for (int i = 0; i < d; i++) {
+                order[i] = i;
+            }
+            Arrays.sort(order, Comparator.comparingDouble(i -> eig.getEigenvalue(i).getReal()));
+            double[][] start = new double[4][d];
+            for (int c = 0; c < 4; c++) {
+                DMatrixRMaj v = eig.getEigenVector(order[4 + c]);
+                for (int i = 0; i < d; i++) {
+                    start[c][i] = v.get(i, 0);
+                }
+            }
+            LanczosLevelSolver.Solution got = LanczosLevelSolver.create().lowestWithVectors(op, 4, start);
+            assertThat(got.values()).hasSize(4);
+            for (int i = 0; i < 4; i++) {
+                double expected = eig.getEigenvalue(order[i]).getReal();
+                assertThat(got.values()[i]).as("level %d at s=%s", i, s).isCloseTo(expected, within(TOL));
+                // The returned vector is an eigenvector of its level: ‖Hv − λv‖ small.
+                double[] v = got.vectors()[i];
+                double[] hv = new double[d];
+                op.apply(v, hv);
+                double r2 = 0.0;
+                for (int j = 0; j < d; j++) {
+                    double e = hv[j] - got.values()[i] * v[j];
+                    r2 += e * e;
+                }
+                assertThat(Math.sqrt(r2)).as("residual of vector %d", i).isLessThan(1e-8);
+            }
+        });
+    }
+}
