@@ -222,20 +222,34 @@ public final class AnnealSpectrum {
     /**
      * Solves at a sequence of nearby s, each Lanczos solve seeded with the eigenvectors of the
      * one before: where the levels move little between steps the seeds are nearly converged
-     * and only the confirmation run of a cold solve remains, and in the clusters just after
-     * s = 0 the seeds already span the right combinations. The accuracy is the solver's own
+     * and only the confirmation run of a cold solve remains. Near s = 0, where the driver's
+     * degenerate levels split into tight clusters, the first solves start from the driver's
+     * closed-form eigenvectors in the combinations first-order perturbation theory picks
+     * ({@link DriverStart}). The accuracy is the solver's own
      * (every level is converged and confirmed afresh); results may differ from cold solves
      * within the tolerance. Other solvers solve each s cold. Not thread-safe: one per path.
      */
     private final class Path {
         private double[][] vectors;
+        // Whether the vectors belong to the pure driver (B = 0): any basis of its degenerate
+        // levels, not the combinations that small B picks.
+        private boolean pureDriver;
 
         double[] levels(double s) {
+            AnnealOperator op = operator(s);
             if (!(solver instanceof LanczosLevelSolver lanczos)) {
-                return solver.lowest(operator(s), levelCount);
+                return solver.lowest(op, levelCount);
             }
-            LanczosLevelSolver.Solution solution = lanczos.lowestWithVectors(operator(s), levelCount, vectors);
+            double[][] start = vectors;
+            // Perturbative regime, (B/2)·scale below A/2: start from the driver's eigenvectors
+            // split by first-order perturbation theory where there is nothing better.
+            if ((start == null || pureDriver)
+                    && op.problemCoefficient() * basis.energyScale() < -op.driverCoefficient()) {
+                start = DriverStart.vectors(basis, levelCount);
+            }
+            LanczosLevelSolver.Solution solution = lanczos.lowestWithVectors(op, levelCount, start);
             vectors = solution.vectors();
+            pureDriver = op.problemCoefficient() == 0.0;
             return solution.values();
         }
 
