@@ -241,16 +241,24 @@ public final class AnnealSpectrum {
                 return solver.lowest(op, levelCount);
             }
             double[][] start = vectors;
-            // Perturbative regime, (B/2)·scale below A/2: start from the driver's eigenvectors
-            // split by first-order perturbation theory where there is nothing better.
-            if ((start == null || pureDriver)
-                    && op.problemCoefficient() * basis.energyScale() < -op.driverCoefficient()) {
-                start = DriverStart.vectors(basis, levelCount);
+            int want = levelCount;
+            // Near the driver, (B/2)·scale below A: the wanted levels end inside a tight cluster
+            // grown out of a degenerate driver level, so ask for the whole cluster (its edge
+            // is a gap of about A); start from the driver's eigenvectors split by first-order
+            // perturbation theory where there is nothing better.
+            if (op.problemCoefficient() * basis.energyScale() < -2.0 * op.driverCoefficient()) {
+                int cover = DriverStart.groupCover(basis, levelCount);
+                if (cover <= MAX_LANCZOS_LEVELS && 8.0 * cover * basis.dimension() <= LanczosLevelSolver.BASIS_BYTES / 2) {
+                    want = cover;
+                }
+                if (start == null || pureDriver) {
+                    start = DriverStart.vectors(basis, want);
+                }
             }
-            LanczosLevelSolver.Solution solution = lanczos.lowestWithVectors(op, levelCount, start);
+            LanczosLevelSolver.Solution solution = lanczos.lowestWithVectors(op, want, start);
             vectors = solution.vectors();
             pureDriver = op.problemCoefficient() == 0.0;
-            return solution.values();
+            return java.util.Arrays.copyOf(solution.values(), levelCount);
         }
 
         double gap(double s) {

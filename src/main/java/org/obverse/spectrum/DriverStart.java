@@ -29,11 +29,26 @@ final class DriverStart {
     }
 
     /**
-     * Orthonormal start vectors for the lowest count levels at small B/A > 0 (exact
-     * eigenvectors at B = 0), or null where a needed driver level is more degenerate than
-     * {@link #MAX_GROUP}.
+     * The number of levels in the driver's lowest degenerate groups that together hold at
+     * least count levels: asking for all of them puts the boundary of the wanted levels in a
+     * gap of width about A, where Lanczos converges fast, rather than inside a tight cluster.
      */
-    static double[][] vectors(SectorBasis basis, int count) {
+    static int groupCover(SectorBasis basis, int count) {
+        int[] epsilon = epsilon(basis);
+        int n = basis.spins();
+        int[] histogram = new int[2 * n + 1];
+        for (int e : epsilon) {
+            histogram[e + n]++;
+        }
+        int covered = 0;
+        for (int e = 2 * n; e >= 0 && covered < count; e--) {
+            covered += histogram[e];
+        }
+        return Math.min(covered, epsilon.length);
+    }
+
+    // ε(c) = Σ_k (−1)^{|mask(k) ∧ c|} for every character c.
+    private static int[] epsilon(SectorBasis basis) {
         int d = basis.dimension();
         int[] masks = basis.flipMasks();
         int[] epsilon = new int[d];
@@ -44,6 +59,17 @@ final class DriverStart {
             }
             epsilon[c] = e;
         }
+        return epsilon;
+    }
+
+    /**
+     * Orthonormal start vectors for the lowest count levels at small B/A > 0 (exact
+     * eigenvectors at B = 0), or null where a needed driver level is more degenerate than
+     * {@link #MAX_GROUP}.
+     */
+    static double[][] vectors(SectorBasis basis, int count) {
+        int d = basis.dimension();
+        int[] epsilon = epsilon(basis);
         int want = Math.min(count, d);
         double[] walsh = basis.problemEnergiesView().clone();
         walshHadamard(walsh);

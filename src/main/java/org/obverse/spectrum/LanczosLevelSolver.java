@@ -127,7 +127,7 @@ public final class LanczosLevelSolver implements LevelSolver {
     /**
      * The lowest levels with their eigenvectors, the Krylov basis seeded with start vectors
      * (warm start). Input: start is null or holds vectors of the operator's dimension, such as
-     * the eigenvectors of a nearby s; the solver takes them over and overwrites them. They only
+     * the eigenvectors of a nearby s (not modified). They only
      * decide where the search begins: every level still has to reach the residual tolerance,
      * and the confirmation run from random vectors that rules out a missed lower level is the
      * same as in a cold solve, so the levels are as accurate as {@link #lowest}'s.
@@ -143,8 +143,6 @@ public final class LanczosLevelSolver implements LevelSolver {
             if (solution != null) {
                 return solution;
             }
-            // The start vectors were taken over as basis storage: a wider retry starts cold.
-            start = null;
         }
     }
 
@@ -177,23 +175,24 @@ public final class LanczosLevelSolver implements LevelSolver {
         // its lowest converged Ritz value taken as the lowest unlocked level.
         boolean fresh = false;
         int freshSteps = 0;
-        if (start != null) {
-            // Warm start: the given vectors, orthonormalised (twice, as elsewhere), lead the
-            // basis; room is left for the block and the first residual vectors.
-            int room = Math.max(0, basisMax - p - 1);
-            for (int c = 0; c < start.length && size < room; c++) {
-                double[] v = start[c];
-                if (v == null || v.length != dim) {
+        if (start != null && start.length > 0) {
+            // Warm start: one vector, the sum of the given ones. It lies almost wholly in the
+            // wanted eigenspace, and a single start keeps the whole basis for Krylov depth (a
+            // block of k start vectors in a basis of 2k + 4 leaves only a few steps per restart).
+            double[] v = new double[dim];
+            for (int c = 0; c < start.length; c++) {
+                if (start[c] == null || start[c].length != dim) {
                     throw new IllegalArgumentException("start vector " + c + " must have length " + dim);
                 }
-                for (int pass = 0; pass < 2; pass++) {
-                    Vectors.projectOut(q, size, v, dim, null);
+                double norm = Vectors.norm(start[c], dim);
+                if (norm > 0) {
+                    Vectors.axpy(1.0 / norm, start[c], v, dim);
                 }
-                double norm = Vectors.norm(v, dim);
-                if (norm > 1e-8) {
-                    Vectors.scale(v, dim, 1.0 / norm);
-                    q[size++] = v;
-                }
+            }
+            double norm = Vectors.norm(v, dim);
+            if (norm > 1e-8) {
+                Vectors.scale(v, dim, 1.0 / norm);
+                q[size++] = v;
             }
         }
         for (int c = size; c < Math.min(p, dim); c++) {

@@ -24,24 +24,29 @@ class WarmStartTest extends QuietTest {
     /* Random 10-spin problems with fields (2^10 states): a warm-started scan against cold solves and dense. */
     @Test
     void warmScanMatchesColdSolves() {
-        Seeds.forEachCase(3, 9900, (rng, seed) -> {
+        Seeds.forEachCase(2, 9900, (rng, seed) -> {
             IsingProblem p = TestProblems.random(rng, 10, 0.3, true);
             SpectrumSettings base = SpectrumSettings.defaults().withLevels(4);
             AnnealSchedule schedule = AnnealSchedule.illustrative();
             AnnealSpectrum lanczos = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.LANCZOS));
             AnnealSpectrum dense = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.DENSE));
-            double[] grid = ScanSettings.defaults().withPoints(41).grid();
+            double[] grid = ScanSettings.defaults().withPoints(21).grid();
             GapScan scan = lanczos.scan(grid);
             // s = 0 (the pure driver, degenerate), the clustered start, mid-anneal and the end.
-            for (int r : new int[] {0, 1, 2, 3, 20, 39, 40}) {
+            // Dense (EJML) as the outside oracle at two of them.
+            for (int r : new int[] {0, 1, 2, 10, 19, 20}) {
                 double s = scan.s(r);
                 double[] warm = scan.levels(r);
                 double[] cold = lanczos.levels(s);
-                double[] oracle = dense.levels(s);
                 assertThat(warm).hasSameSizeAs(cold);
                 for (int i = 0; i < warm.length; i++) {
                     assertThat(warm[i]).as("level %d at s=%s (cold)", i, s).isCloseTo(cold[i], within(TOL));
-                    assertThat(warm[i]).as("level %d at s=%s (dense)", i, s).isCloseTo(oracle[i], within(TOL));
+                }
+                if (r == 1 || r == 10) {
+                    double[] oracle = dense.levels(s);
+                    for (int i = 0; i < warm.length; i++) {
+                        assertThat(warm[i]).as("level %d at s=%s (dense)", i, s).isCloseTo(oracle[i], within(TOL));
+                    }
                 }
             }
         });
