@@ -36,6 +36,9 @@ import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
  * near-degenerate levels wider than the block), the solve starts again with a block twice as
  * wide, up to {@link #MAX_BLOCK}: a block spanning the cluster resolves it by Rayleigh–Ritz.
  *
+ * <p>{@link #lowestWithVectors} seeds the basis with the sum of given vectors (warm start,
+ * used along a scan); convergence and confirmation are unchanged.
+ *
  * <p>Memory: (basis + locked + 1) vectors of 2^m doubles; the basis holds at most
  * {@link #MAX_BASIS} vectors and at most {@link #BASIS_BYTES}. Start vectors come from a fixed
  * seed: results are reproducible and do not depend on the thread count. Immutable; safe to
