@@ -230,7 +230,8 @@ public final class AnnealSpectrum {
      * within the tolerance. Other solvers solve each s cold. Not thread-safe: one per path.
      */
     private final class Path {
-        private double[][] vectors;
+        // The sum of the last solve's eigenvectors: all the warm start uses (one vector kept).
+        private double[] seed;
         // Whether the vectors belong to the pure driver (B = 0): any basis of its degenerate
         // levels, not the combinations that small B picks.
         private boolean pureDriver;
@@ -240,7 +241,7 @@ public final class AnnealSpectrum {
             if (!(solver instanceof LanczosLevelSolver lanczos)) {
                 return solver.lowest(op, levelCount);
             }
-            double[][] start = vectors;
+            double[] start = seed;
             int want = levelCount;
             // Near the driver, (B/2)·scale below A: the wanted levels end inside a tight cluster
             // grown out of a degenerate driver level, so ask for the whole cluster (its edge
@@ -252,13 +253,22 @@ public final class AnnealSpectrum {
                     want = cover;
                 }
                 if (start == null || pureDriver) {
-                    start = DriverStart.vectors(basis, want);
+                    start = DriverStart.seed(basis, want);
                 }
             }
-            LanczosLevelSolver.Solution solution = lanczos.lowestWithVectors(op, want, start);
-            vectors = solution.vectors();
+            LanczosLevelSolver.Solution solution = lanczos.lowestWithVectors(op, want,
+                    start == null ? null : new double[][] {start});
+            seed = sum(solution.vectors(), basis.dimension());
             pureDriver = op.problemCoefficient() == 0.0;
             return java.util.Arrays.copyOf(solution.values(), levelCount);
+        }
+
+        private static double[] sum(double[][] vectors, int dim) {
+            double[] total = new double[dim];
+            for (double[] v : vectors) {
+                Vectors.axpy(1.0, v, total, dim);
+            }
+            return total;
         }
 
         double gap(double s) {

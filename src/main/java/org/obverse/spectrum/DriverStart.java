@@ -68,12 +68,27 @@ final class DriverStart {
      * {@link #MAX_GROUP}.
      */
     static double[][] vectors(SectorBasis basis, int count) {
+        return build(basis, count, false);
+    }
+
+    /**
+     * The normalised sum of {@link #vectors}, as one vector (the warm start uses only the sum;
+     * one vector of memory instead of count), or null as there.
+     */
+    static double[] seed(SectorBasis basis, int count) {
+        double[][] one = build(basis, count, true);
+        return one == null ? null : one[0];
+    }
+
+    private static double[][] build(SectorBasis basis, int count, boolean summed) {
         int d = basis.dimension();
         int[] epsilon = epsilon(basis);
         int want = Math.min(count, d);
         double[] walsh = basis.problemEnergiesView().clone();
         walshHadamard(walsh);
-        double[][] out = new double[want][];
+        double[][] out = new double[summed ? 1 : want][];
+        // Summed: the coefficients of every vector on the characters (the groups are disjoint).
+        double[] total = summed ? new double[d] : null;
         int filled = 0;
         int level = Integer.MAX_VALUE;
         while (filled < want) {
@@ -107,6 +122,13 @@ final class DriverStart {
                 return null;
             }
             for (double[] u : combos) {
+                if (summed) {
+                    for (int i = 0; i < size; i++) {
+                        total[group[i]] += u[i];
+                    }
+                    filled++;
+                    continue;
+                }
                 double[] y = new double[d];
                 for (int i = 0; i < size; i++) {
                     y[group[i]] = u[i];
@@ -116,6 +138,11 @@ final class DriverStart {
                 Vectors.scale(y, d, 1.0 / Math.sqrt(d));
                 out[filled++] = y;
             }
+        }
+        if (summed) {
+            walshHadamard(total);
+            Vectors.scale(total, d, 1.0 / Math.sqrt(filled * (double) d));
+            out[0] = total;
         }
         return out;
     }

@@ -122,6 +122,15 @@ class WarmStartTest extends QuietTest {
                     assertThat(Vectors.dot(v[i], v[j], d)).as("<v%d|v%d>", i, j).isCloseTo(i == j ? 1.0 : 0.0, within(1e-12));
                 }
             }
+            // The one-vector seed is the normalised sum of the vectors.
+            double[] seedVector = DriverStart.seed(basis, count);
+            for (int b = 0; b < d; b++) {
+                double sum = 0.0;
+                for (double[] vi : v) {
+                    sum += vi[b];
+                }
+                assertThat(seedVector[b]).as("seed[%d]", b).isCloseTo(sum / Math.sqrt(count), within(1e-12));
+            }
             for (double s : new double[] {0.0, 1e-4}) {
                 AnnealOperator op = AnnealOperator.of(basis, 1 - s, s);
                 double[] oracle = DenseLevelSolver.create().lowest(op, count);
