@@ -69,6 +69,9 @@ public class SamplerBench {
         int[] neighbour;
         double[] coupling;
         double[] fields;
+        int[] intCoupling;
+        int[] intFields;
+        long[][] intThresholds;
         double[] betas;
         MultiSpinCoding coding;
         long[][] thresholds;
@@ -87,6 +90,16 @@ public class SamplerBench {
             fields = problem.fields();
             double[] range = BetaRange.automatic(problem);
             betas = BetaRange.perSweep(SamplerSettings.defaults(), range[0], range[1]);
+            int bound = MetropolisKernels.integerFieldBound(N, start, coupling, fields, 1 << 16);
+            intCoupling = new int[coupling.length];
+            for (int q = 0; q < coupling.length; q++) {
+                intCoupling[q] = (int) coupling[q];
+            }
+            intFields = new int[N];
+            for (int k = 0; k < N; k++) {
+                intFields[k] = (int) fields[k];
+            }
+            intThresholds = new long[betas.length][bound + 1];
             coding = MultiSpinCoding.of(problem);
             thresholds = new long[betas.length][MultiSpinCoding.thresholdLength()];
             for (int k = 0; k < betas.length; k++) {
@@ -100,6 +113,9 @@ public class SamplerBench {
     public static class Replica {
         byte[] spins;
         double[] localField;
+        byte[] intSpins;
+        int[] intLocalField;
+        long[] scratchThresholds;
         long[] words;
         UniformRandomProvider rng;
         int sweep;
@@ -120,6 +136,10 @@ public class SamplerBench {
             }
             localField = new double[N];
             MetropolisKernels.localFields(N, p.start, p.neighbour, p.coupling, p.fields, spins, localField);
+            intSpins = spins.clone();
+            intLocalField = new int[N];
+            MetropolisKernels.localFields(N, p.start, p.neighbour, p.intCoupling, p.intFields, intSpins, intLocalField);
+            scratchThresholds = new long[p.intThresholds[0].length];
         }
 
         int nextSweep(int sweeps) {
@@ -182,6 +202,29 @@ public class SamplerBench {
     }
 
     @Benchmark
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactInteger(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.betas[r.nextSweep(p.betas.length)];
+            // Thresholds per sweep, as the sampler does: a few exponentials per 2,048 spins.
+            MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
+            MetropolisKernels.sweepInteger(N, p.start, p.neighbour, p.intCoupling, r.intSpins, r.intLocalField,
+                    r.scratchThresholds, r.rng);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += SWEEPS * N;
+        return r.intSpins[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactIntegerTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return exactInteger(p, r, c);
+    }
+
+    @Benchmark
     @OperationsPerInvocation(64 * N)
     public long multiSpin(Problem p, Replica r, CpuCounters c) {
         long t0 = c.now();
@@ -200,7 +243,9 @@ public class SamplerBench {
 
     /** Runs the five benchmarks briefly and prints attempts/ns and the ratios to the baseline. */
     public static void main(String[] args) throws RunnerException {
-        Options opt = new OptionsBuilder().include(SamplerBench.class.getName() + "\\.").forks(1)
+        // An optional argument picks benchmarks by a regular expression (the baseline always runs).
+        String only = args.length > 0 ? "(baseline|" + args[0] + ")" : "";
+        Options opt = new OptionsBuilder().include(SamplerBench.class.getName() + "\\." + only).forks(1)
                 .warmupIterations(2).warmupTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2))
                 .measurementIterations(3).measurementTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2)).build();
         Collection<RunResult> results = new Runner(opt).run();
@@ -218,11 +263,18 @@ public class SamplerBench {
         double baseCpu = perCpu.get("baseline");
         System.out.printf("%-22s %12s %10s %16s %10s%n", "kernel", "attempts/ns", "x baseline", "attempts/cpu-ns",
                 "x baseline");
-        for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "multiSpin", "multiSpinTwoThreads"}) {
+        for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger",
+                "exactIntegerTwoThreads", "multiSpin", "multiSpinTwoThreads"}) {
+            if (!score.containsKey(k)) {
+                continue;
+            }
             System.out.printf("%-22s %12.4f %10.2f %16.4f %10.2f%n", k, score.get(k), score.get(k) / base,
                     perCpu.get(k), perCpu.get(k) / baseCpu);
         }
-        System.out.printf("wall-clock, two threads / one: exact %.2f, multi-spin %.2f%n",
-                score.get("exactTwoThreads") / score.get("exact"), score.get("multiSpinTwoThreads") / score.get("multiSpin"));
+        for (String k : new String[] {"exact", "exactInteger", "multiSpin"}) {
+            if (score.containsKey(k) && score.containsKey(k + "TwoThreads")) {
+                System.out.printf("wall-clock, two threads / one: %s %.2f%n", k, score.get(k + "TwoThreads") / score.get(k));
+            }
+        }
     }
 }

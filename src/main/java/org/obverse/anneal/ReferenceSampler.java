@@ -167,6 +167,11 @@ public final class ReferenceSampler {
         private final double[] fields;
         private final double[] couplings;
         private final double[] csrCoupling;
+        // Where every field and coupling is a small integer and there is no per-read noise:
+        // the integer kernel (same decisions, integer arithmetic), else null.
+        private final int[] intCoupling;
+        private final int[] intFields;
+        private final int fieldBound;
 
         ExactTask(IsingProblem nominal, IsingProblem device, ControlErrors errors, double[] betas, SampleBlock block,
                   double[] energies, long seed) {
@@ -186,7 +191,26 @@ public final class ReferenceSampler {
             for (int q = 0; q < neighbour.length; q++) {
                 csrCoupling[q] = couplings[edgeOf[q]];
             }
+            int bound = errors.hasReadNoise() ? -1
+                    : MetropolisKernels.integerFieldBound(n, start, csrCoupling, fields, INTEGER_FIELD_LIMIT);
+            this.fieldBound = bound;
+            if (bound >= 0) {
+                intCoupling = new int[csrCoupling.length];
+                for (int q = 0; q < csrCoupling.length; q++) {
+                    intCoupling[q] = (int) csrCoupling[q];
+                }
+                intFields = new int[n];
+                for (int k = 0; k < n; k++) {
+                    intFields[k] = (int) fields[k];
+                }
+            } else {
+                intCoupling = null;
+                intFields = null;
+            }
         }
+
+        /** Largest local field the integer kernel takes (its threshold table has one entry per value). */
+        private static final int INTEGER_FIELD_LIMIT = 1 << 12;
 
         private static final class Workspace {
             final byte[] spins;
@@ -194,8 +218,12 @@ public final class ReferenceSampler {
             final double[] fields;
             final double[] couplings;
             final double[] csr;
+            final int[] intLocalField;
+            final long[] thresholds;
 
-            Workspace(int n, int e, int csr) {
+            Workspace(int n, int e, int csr, int fieldBound) {
+                intLocalField = fieldBound >= 0 ? new int[n] : null;
+                thresholds = fieldBound >= 0 ? new long[fieldBound + 1] : null;
                 spins = new byte[n];
                 localField = new double[n];
                 fields = new double[n];
@@ -206,7 +234,7 @@ public final class ReferenceSampler {
 
         @Override
         public Object workspace() {
-            return new Workspace(n, couplings.length, neighbour.length);
+            return new Workspace(n, couplings.length, neighbour.length, fieldBound);
         }
 
         @Override
@@ -228,6 +256,16 @@ public final class ReferenceSampler {
                     s[i] = (byte) ((((bits >>> (i - k)) & 1L) << 1) - 1);
                 }
             }
+            if (intCoupling != null) {
+                MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, s, ws.intLocalField);
+                for (double beta : betas) {
+                    MetropolisKernels.integerThresholds(beta, ws.thresholds);
+                    MetropolisKernels.sweepInteger(n, start, neighbour, intCoupling, s, ws.intLocalField, ws.thresholds,
+                            rng);
+                }
+                finish(r, s);
+                return;
+            }
             double[] h = fields;
             double[] csr = csrCoupling;
             if (errors.hasReadNoise()) {
@@ -244,6 +282,10 @@ public final class ReferenceSampler {
             for (double beta : betas) {
                 MetropolisKernels.sweep(n, start, neighbour, csr, s, ws.localField, beta, rng);
             }
+            finish(r, s);
+        }
+
+        private void finish(int r, byte[] s) {
             // Each block is written by one thread only, so these bit writes never race.
             for (int k = 0; k < n; k++) {
                 block.setSpin(r, k, s[k]);
