@@ -42,6 +42,9 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * <ul>
  * <li>{@code baseline}: local field recomputed and Math.exp on every attempt;</li>
  * <li>{@code exact} (1 and 2 threads): maintained local fields and the bracketing table;</li>
+ * <li>{@code exactInteger} (1 and 2 threads): what the sampler runs for integer problems such
+ * as this one: integer local fields, thresholds per β, raw random bits compared as integers
+ * (same decisions as {@code exact});</li>
  * <li>{@code multiSpin} (1 and 2 threads): 64 reads a word (64 attempts per spin visit).</li>
  * </ul>
  * Scores are attempts/ns of wall time (JMH sums the threads). The machine these run on is
@@ -241,7 +244,10 @@ public class SamplerBench {
         return multiSpin(p, r, c);
     }
 
-    /** Runs the five benchmarks briefly and prints attempts/ns and the ratios to the baseline. */
+    /**
+     * Runs the benchmarks briefly (an optional argument: a regular expression naming some of
+     * them; the baseline always runs) and prints attempts/ns and the ratios to the baseline.
+     */
     public static void main(String[] args) throws RunnerException {
         // An optional argument picks benchmarks by a regular expression (the baseline always runs).
         String only = args.length > 0 ? "(baseline|" + args[0] + ")" : "";
