@@ -44,7 +44,8 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * <li>{@code exact} (1 and 2 threads): maintained local fields and the bracketing table;</li>
  * <li>{@code exactInteger} (1 and 2 threads): what the sampler runs for integer problems such
  * as this one: integer local fields, thresholds per β, raw random bits compared as integers
- * (same decisions as {@code exact});</li>
+ * (same decisions as {@code exact}), rows padded to a fixed stride;</li>
+ * <li>{@code exactIntegerRows}: the same on the compressed rows without padding;</li>
  * <li>{@code multiSpin} (1 and 2 threads): 64 reads a word (64 attempts per spin visit).</li>
  * </ul>
  * Scores are attempts/ns of wall time (JMH sums the threads). The machine these run on is
@@ -75,6 +76,9 @@ public class SamplerBench {
         int[] intCoupling;
         int[] intFields;
         long[][] intThresholds;
+        int degree;
+        int[] padNeighbour;
+        int[] padCoupling;
         double[] betas;
         MultiSpinCoding coding;
         long[][] thresholds;
@@ -103,6 +107,9 @@ public class SamplerBench {
                 intFields[k] = (int) fields[k];
             }
             intThresholds = new long[betas.length][bound + 1];
+            degree = MetropolisKernels.maxDegree(N, start);
+            padNeighbour = MetropolisKernels.padded(N, start, neighbour, degree, true);
+            padCoupling = MetropolisKernels.padded(N, start, intCoupling, degree, false);
             coding = MultiSpinCoding.of(problem);
             thresholds = new long[betas.length][MultiSpinCoding.thresholdLength()];
             for (int k = 0; k < betas.length; k++) {
@@ -212,6 +219,21 @@ public class SamplerBench {
             double beta = p.betas[r.nextSweep(p.betas.length)];
             // Thresholds per sweep, as the sampler does: a few exponentials per 2,048 spins.
             MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
+            MetropolisKernels.sweepIntegerPadded(N, p.degree, p.padNeighbour, p.padCoupling, r.intSpins, r.intLocalField,
+                    r.scratchThresholds, r.rng);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += SWEEPS * N;
+        return r.intSpins[0];
+    }
+
+    @Benchmark
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactIntegerRows(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.betas[r.nextSweep(p.betas.length)];
+            MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
             MetropolisKernels.sweepInteger(N, p.start, p.neighbour, p.intCoupling, r.intSpins, r.intLocalField,
                     r.scratchThresholds, r.rng);
         }
@@ -269,7 +291,7 @@ public class SamplerBench {
         double baseCpu = perCpu.get("baseline");
         System.out.printf("%-22s %12s %10s %16s %10s%n", "kernel", "attempts/ns", "x baseline", "attempts/cpu-ns",
                 "x baseline");
-        for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger",
+        for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger", "exactIntegerRows",
                 "exactIntegerTwoThreads", "multiSpin", "multiSpinTwoThreads"}) {
             if (!score.containsKey(k)) {
                 continue;

@@ -173,4 +173,51 @@ public final class MetropolisKernels {
             }
         }
     }
+
+    /** The largest row length of compressed-row arrays: the stride of the padded layout. */
+    public static int maxDegree(int n, int[] start) {
+        int d = 0;
+        for (int k = 0; k < n; k++) {
+            d = Math.max(d, start[k + 1] - start[k]);
+        }
+        return d;
+    }
+
+    /**
+     * Compressed rows re-laid with a fixed stride: row k at {@code [k·degree, (k+1)·degree)},
+     * short rows padded with {@code neighbourFill = true}: spin k itself, else: coupling 0. A
+     * padded term adds 0 to a local field, so the kernels' results do not change; the fixed
+     * trip count lets the processor predict the neighbour loop.
+     */
+    public static int[] padded(int n, int[] start, int[] values, int degree, boolean neighbourFill) {
+        int[] out = new int[n * degree];
+        for (int k = 0; k < n; k++) {
+            for (int j = 0; j < degree; j++) {
+                int q = start[k] + j;
+                out[k * degree + j] = q < start[k + 1] ? values[q] : neighbourFill ? k : 0;
+            }
+        }
+        return out;
+    }
+
+    /**
+     * {@link #sweepInteger} on the padded layout of {@link #padded} (stride degree): the same
+     * decisions, the same random numbers.
+     */
+    public static void sweepIntegerPadded(int n, int degree, int[] neighbour, int[] coupling, byte[] spins,
+                                    int[] localField, long[] thresholds, UniformRandomProvider rng) {
+        for (int k = 0; k < n; k++) {
+            int s = spins[k];
+            int v = s * localField[k];
+            if (v < 0 && (rng.nextLong() >>> 11) >= thresholds[-v]) {
+                continue;
+            }
+            spins[k] = (byte) -s;
+            int twice = -2 * s;
+            int base = k * degree;
+            for (int j = 0; j < degree; j++) {
+                localField[neighbour[base + j]] += twice * coupling[base + j];
+            }
+        }
+    }
 }

@@ -172,6 +172,11 @@ public final class ReferenceSampler {
         private final int[] intCoupling;
         private final int[] intFields;
         private final int fieldBound;
+        // The integer kernel's padded layout (stride degree) where padding costs at most twice
+        // the compressed rows, else null.
+        private final int degree;
+        private final int[] paddedNeighbour;
+        private final int[] paddedCoupling;
 
         ExactTask(IsingProblem nominal, IsingProblem device, ControlErrors errors, double[] betas, SampleBlock block,
                   double[] energies, long seed) {
@@ -206,6 +211,16 @@ public final class ReferenceSampler {
             } else {
                 intCoupling = null;
                 intFields = null;
+            }
+            int d = MetropolisKernels.maxDegree(n, start);
+            if (intCoupling != null && (long) n * d <= 2L * neighbour.length) {
+                degree = d;
+                paddedNeighbour = MetropolisKernels.padded(n, start, neighbour, d, true);
+                paddedCoupling = MetropolisKernels.padded(n, start, intCoupling, d, false);
+            } else {
+                degree = 0;
+                paddedNeighbour = null;
+                paddedCoupling = null;
             }
         }
 
@@ -260,8 +275,13 @@ public final class ReferenceSampler {
                 MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, s, ws.intLocalField);
                 for (double beta : betas) {
                     MetropolisKernels.integerThresholds(beta, ws.thresholds);
-                    MetropolisKernels.sweepInteger(n, start, neighbour, intCoupling, s, ws.intLocalField, ws.thresholds,
-                            rng);
+                    if (paddedNeighbour != null) {
+                        MetropolisKernels.sweepIntegerPadded(n, degree, paddedNeighbour, paddedCoupling, s,
+                                ws.intLocalField, ws.thresholds, rng);
+                    } else {
+                        MetropolisKernels.sweepInteger(n, start, neighbour, intCoupling, s, ws.intLocalField,
+                                ws.thresholds, rng);
+                    }
                 }
                 finish(r, s);
                 return;

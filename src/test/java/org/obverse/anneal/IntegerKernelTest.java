@@ -19,6 +19,7 @@ class IntegerKernelTest extends QuietTest {
         Seeds.forEachCase(12, 9400, (rng, seed) -> {
             IsingProblem p = SpinGlasses.cellGrid(2, 3, SpinGlasses.Couplings.PLUS_MINUS_ONE, rng);
             int n = p.size();
+            // Border cells have fewer neighbours, so the padded layout really pads.
             int[] start = p.adjacencyStarts();
             int[] neighbour = p.adjacencyVariables();
             int[] edge = p.adjacencyEdges();
@@ -42,22 +43,34 @@ class IntegerKernelTest extends QuietTest {
             assertThat(bound).isPositive();
             byte[] a = ExponentialBracketTest.randomSpins(n, rng);
             byte[] b = a.clone();
+            byte[] c = a.clone();
+            int degree = MetropolisKernels.maxDegree(n, start);
+            int[] padNeighbour = MetropolisKernels.padded(n, start, neighbour, degree, true);
+            int[] padCoupling = MetropolisKernels.padded(n, start, intCoupling, degree, false);
+            int[] fc = new int[n];
             int[] fa = new int[n];
             double[] fb = new double[n];
             MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, a, fa);
             MetropolisKernels.localFields(n, start, neighbour, coupling, fields, b, fb);
+            MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, c, fc);
             long[] thresholds = new long[bound + 1];
             UniformRandomProvider ra = Seeds.rng(seed + 1);
             UniformRandomProvider rb = Seeds.rng(seed + 1);
+            UniformRandomProvider rc = Seeds.rng(seed + 1);
             for (int sweep = 0; sweep < 400; sweep++) {
                 // beta from 0 (every move taken) to about 8 (almost none uphill).
                 double beta = sweep == 0 ? 0.0 : 0.02 * sweep * rng.nextDouble();
                 MetropolisKernels.integerThresholds(beta, thresholds);
                 MetropolisKernels.sweepInteger(n, start, neighbour, intCoupling, a, fa, thresholds, ra);
                 MetropolisKernels.sweepExactExponential(n, start, neighbour, coupling, b, fb, beta, rb);
+                MetropolisKernels.sweepIntegerPadded(n, degree, padNeighbour, padCoupling, c, fc, thresholds, rc);
                 assertThat(a).as("sweep %d", sweep).isEqualTo(b);
+                assertThat(c).as("padded, sweep %d", sweep).isEqualTo(b);
             }
-            assertThat(ra.nextLong()).isEqualTo(rb.nextLong());
+            assertThat(fc).isEqualTo(fa);
+            long next = rb.nextLong();
+            assertThat(ra.nextLong()).isEqualTo(next);
+            assertThat(rc.nextLong()).isEqualTo(next);
         });
     }
 
