@@ -21,6 +21,10 @@ import org.obverse.samples.SampleBlock;
  * into 64-read blocks over the worker threads, so the output never depends on the thread
  * count. Reads start from uniformly random spins.
  *
+ * <p>The exact kernel runs problems with small integer fields and couplings (and no per-read
+ * noise) in integer arithmetic ({@link MetropolisKernels#sweepInteger}): the same decisions
+ * from the same random numbers, so the same reads, in less time.
+ *
  * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
  * problem's arrays per thread.
  */
