@@ -56,8 +56,8 @@ public final class ReferenceSampler {
      * Samples a binary problem through its spin form; set bits are x = 1 and the energies are
      * the binary problem's own.
      */
-    public SampleSet sample(BinaryProblem problem, int reads, long seed) {
-        SampleSet spin = sample(problem.toIsing(), reads, seed);
+    public SampledReads sample(BinaryProblem problem, int reads, long seed) {
+        SampledReads spin = sample(problem.toIsing(), reads, seed);
         double[] energies = new double[reads];
         byte[] row = new byte[problem.size()];
         SampleBlock block = spin.samples();
@@ -67,7 +67,7 @@ public final class ReferenceSampler {
             }
             energies[r] = problem.energy(row);
         }
-        return new SampleSet(spin.variables(), block, energies, spin.sweeps(), spin.runTimeMicros());
+        return new SampledReads(spin.variables(), block, energies, spin.sweeps(), spin.runTimeMicros());
     }
 
     /**
@@ -76,7 +76,7 @@ public final class ReferenceSampler {
      * @throws IllegalArgumentException for a negative read count, or a problem the chosen
      *                                  kernel cannot run (the message says why)
      */
-    public SampleSet sample(IsingProblem problem, int reads, long seed) {
+    public SampledReads sample(IsingProblem problem, int reads, long seed) {
         if (reads < 0) {
             throw new IllegalArgumentException("reads " + reads + " must be >= 0");
         }
@@ -103,7 +103,7 @@ public final class ReferenceSampler {
             task = new ExactTask(problem, device, settings.errors(), betas, block, energies, seed);
         }
         runBlocks(task, block.blockCount(), settings.threads());
-        return new SampleSet(problem.variables(), block, energies, betas.length, settings.schedule().runTimeMicros());
+        return new SampledReads(problem.variables(), block, energies, betas.length, settings.schedule().runTimeMicros());
     }
 
     /** Work on one 64-read block with a thread's own workspace. */
