@@ -42,6 +42,10 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * <ul>
  * <li>{@code baseline}: local field recomputed and Math.exp on every attempt;</li>
  * <li>{@code exact} (1 and 2 threads): maintained local fields and the bracketing table;</li>
+ * <li>{@code exactInteger} (1 and 2 threads): what the sampler runs for integer problems such
+ * as this one: integer local fields, thresholds per β, raw random bits compared as integers
+ * (same decisions as {@code exact}), rows padded to a fixed stride;</li>
+ * <li>{@code exactIntegerRows}: the same on the compressed rows without padding;</li>
  * <li>{@code multiSpin} (1 and 2 threads): 64 reads a word (64 attempts per spin visit).</li>
  * </ul>
  * Scores are attempts/ns of wall time (JMH sums the threads). The machine these run on is
@@ -69,6 +73,12 @@ public class SamplerBench {
         int[] neighbour;
         double[] coupling;
         double[] fields;
+        int[] intCoupling;
+        int[] intFields;
+        long[][] intThresholds;
+        int degree;
+        int[] padNeighbour;
+        int[] padCoupling;
         double[] betas;
         MultiSpinCoding coding;
         long[][] thresholds;
@@ -87,6 +97,19 @@ public class SamplerBench {
             fields = problem.fields();
             double[] range = BetaRange.automatic(problem);
             betas = BetaRange.perSweep(SamplerSettings.defaults(), range[0], range[1]);
+            int bound = MetropolisKernels.integerFieldBound(N, start, coupling, fields, 1 << 16);
+            intCoupling = new int[coupling.length];
+            for (int q = 0; q < coupling.length; q++) {
+                intCoupling[q] = (int) coupling[q];
+            }
+            intFields = new int[N];
+            for (int k = 0; k < N; k++) {
+                intFields[k] = (int) fields[k];
+            }
+            intThresholds = new long[betas.length][bound + 1];
+            degree = MetropolisKernels.maxDegree(N, start);
+            padNeighbour = MetropolisKernels.padded(N, start, neighbour, degree, true);
+            padCoupling = MetropolisKernels.padded(N, start, intCoupling, degree, false);
             coding = MultiSpinCoding.of(problem);
             thresholds = new long[betas.length][MultiSpinCoding.thresholdLength()];
             for (int k = 0; k < betas.length; k++) {
@@ -100,6 +123,9 @@ public class SamplerBench {
     public static class Replica {
         byte[] spins;
         double[] localField;
+        byte[] intSpins;
+        int[] intLocalField;
+        long[] scratchThresholds;
         long[] words;
         UniformRandomProvider rng;
         int sweep;
@@ -120,6 +146,10 @@ public class SamplerBench {
             }
             localField = new double[N];
             MetropolisKernels.localFields(N, p.start, p.neighbour, p.coupling, p.fields, spins, localField);
+            intSpins = spins.clone();
+            intLocalField = new int[N];
+            MetropolisKernels.localFields(N, p.start, p.neighbour, p.intCoupling, p.intFields, intSpins, intLocalField);
+            scratchThresholds = new long[p.intThresholds[0].length];
         }
 
         int nextSweep(int sweeps) {
@@ -182,6 +212,44 @@ public class SamplerBench {
     }
 
     @Benchmark
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactInteger(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.betas[r.nextSweep(p.betas.length)];
+            // Thresholds per sweep, as the sampler does: a few exponentials per 2,048 spins.
+            MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
+            MetropolisKernels.sweepIntegerPadded(N, p.degree, p.padNeighbour, p.padCoupling, r.intSpins, r.intLocalField,
+                    r.scratchThresholds, r.rng);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += SWEEPS * N;
+        return r.intSpins[0];
+    }
+
+    @Benchmark
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactIntegerRows(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.betas[r.nextSweep(p.betas.length)];
+            MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
+            MetropolisKernels.sweepInteger(N, p.start, p.neighbour, p.intCoupling, r.intSpins, r.intLocalField,
+                    r.scratchThresholds, r.rng);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += SWEEPS * N;
+        return r.intSpins[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactIntegerTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return exactInteger(p, r, c);
+    }
+
+    @Benchmark
     @OperationsPerInvocation(64 * N)
     public long multiSpin(Problem p, Replica r, CpuCounters c) {
         long t0 = c.now();
@@ -198,9 +266,14 @@ public class SamplerBench {
         return multiSpin(p, r, c);
     }
 
-    /** Runs the five benchmarks briefly and prints attempts/ns and the ratios to the baseline. */
+    /**
+     * Runs the benchmarks briefly (an optional argument: a regular expression naming some of
+     * them; the baseline always runs) and prints attempts/ns and the ratios to the baseline.
+     */
     public static void main(String[] args) throws RunnerException {
-        Options opt = new OptionsBuilder().include(SamplerBench.class.getName() + "\\.").forks(1)
+        // An optional argument picks benchmarks by a regular expression (the baseline always runs).
+        String only = args.length > 0 ? "(baseline|" + args[0] + ")" : "";
+        Options opt = new OptionsBuilder().include(SamplerBench.class.getName() + "\\." + only).forks(1)
                 .warmupIterations(2).warmupTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2))
                 .measurementIterations(3).measurementTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2)).build();
         Collection<RunResult> results = new Runner(opt).run();
@@ -218,11 +291,18 @@ public class SamplerBench {
         double baseCpu = perCpu.get("baseline");
         System.out.printf("%-22s %12s %10s %16s %10s%n", "kernel", "attempts/ns", "x baseline", "attempts/cpu-ns",
                 "x baseline");
-        for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "multiSpin", "multiSpinTwoThreads"}) {
+        for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger", "exactIntegerRows",
+                "exactIntegerTwoThreads", "multiSpin", "multiSpinTwoThreads"}) {
+            if (!score.containsKey(k)) {
+                continue;
+            }
             System.out.printf("%-22s %12.4f %10.2f %16.4f %10.2f%n", k, score.get(k), score.get(k) / base,
                     perCpu.get(k), perCpu.get(k) / baseCpu);
         }
-        System.out.printf("wall-clock, two threads / one: exact %.2f, multi-spin %.2f%n",
-                score.get("exactTwoThreads") / score.get("exact"), score.get("multiSpinTwoThreads") / score.get("multiSpin"));
+        for (String k : new String[] {"exact", "exactInteger", "multiSpin"}) {
+            if (score.containsKey(k) && score.containsKey(k + "TwoThreads")) {
+                System.out.printf("wall-clock, two threads / one: %s %.2f%n", k, score.get(k + "TwoThreads") / score.get(k));
+            }
+        }
     }
 }

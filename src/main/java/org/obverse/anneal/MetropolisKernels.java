@@ -94,4 +94,130 @@ public final class MetropolisKernels {
             }
         }
     }
+
+    /**
+     * Largest |local field| an integer problem can reach, max_k(|h_k| + Σ_j |J_kj|), or −1
+     * where some field or coupling is not an integer or the bound passes {@code limit}. Where
+     * it is not −1, the integer kernels below give the same spins as the double ones: every
+     * local field is then an exact small integer in either form.
+     */
+    public static int integerFieldBound(int n, int[] start, double[] coupling, double[] fields, int limit) {
+        int bound = 0;
+        for (int k = 0; k < n; k++) {
+            double total = Math.abs(fields[k]);
+            if (fields[k] != Math.rint(fields[k])) {
+                return -1;
+            }
+            for (int p = start[k]; p < start[k + 1]; p++) {
+                if (coupling[p] != Math.rint(coupling[p])) {
+                    return -1;
+                }
+                total += Math.abs(coupling[p]);
+            }
+            if (!(total <= limit)) {
+                return -1;
+            }
+            bound = Math.max(bound, (int) total);
+        }
+        return bound;
+    }
+
+    /** Integer local fields f_k = h_k + Σ_j J_kj s_j. Output: {@code localField} is overwritten. */
+    public static void localFields(int n, int[] start, int[] neighbour, int[] coupling, int[] fields, byte[] spins,
+                                   int[] localField) {
+        for (int k = 0; k < n; k++) {
+            int f = fields[k];
+            for (int p = start[k]; p < start[k + 1]; p++) {
+                f += coupling[p] * spins[neighbour[p]];
+            }
+            localField[k] = f;
+        }
+    }
+
+    /**
+     * The acceptance thresholds of the integer kernel at inverse temperature beta. Output:
+     * {@code out[v]} (v ≥ 1, out.length − 1 at least the field bound) is the number of 53-bit
+     * integers m with m·2⁻⁵³ &lt; StrictMath.exp(−β·2v), i.e. ⌈exp(−β·2v)·2⁵³⌉ (the scaling
+     * is exact): nextDouble() is (nextLong() &gt;&gt;&gt; 11)·2⁻⁵³, so comparing the raw
+     * top 53 bits with out[v] is the very test u &lt; exp(−βΔE) of {@link #sweepExactExponential}
+     * for ΔE = 2v.
+     */
+    public static void integerThresholds(double beta, long[] out) {
+        out[0] = 1L << 53;
+        for (int v = 1; v < out.length; v++) {
+            double p = StrictMath.exp(-(beta * (2.0 * v)));
+            out[v] = (long) Math.ceil(p * 0x1p53);
+        }
+    }
+
+    /**
+     * One sweep of the integer kernel: integer couplings and fields, maintained integer local
+     * fields, and the uphill test as one integer compare of raw random bits against the
+     * thresholds of {@link #integerThresholds} (no floating point, no exponential on the
+     * path). It draws the same random numbers as {@link #sweepExactExponential} and takes the
+     * same decisions. Input and output: spins and localField in place.
+     */
+    public static void sweepInteger(int n, int[] start, int[] neighbour, int[] coupling, byte[] spins,
+                                    int[] localField, long[] thresholds, UniformRandomProvider rng) {
+        for (int k = 0; k < n; k++) {
+            int s = spins[k];
+            // ΔE = −2 s f = 2·(−s f); uphill where s f < 0.
+            int v = s * localField[k];
+            if (v < 0 && (rng.nextLong() >>> 11) >= thresholds[-v]) {
+                continue;
+            }
+            spins[k] = (byte) -s;
+            int twice = -2 * s;
+            for (int p = start[k]; p < start[k + 1]; p++) {
+                localField[neighbour[p]] += twice * coupling[p];
+            }
+        }
+    }
+
+    /** The largest row length of compressed-row arrays: the stride of the padded layout. */
+    public static int maxDegree(int n, int[] start) {
+        int d = 0;
+        for (int k = 0; k < n; k++) {
+            d = Math.max(d, start[k + 1] - start[k]);
+        }
+        return d;
+    }
+
+    /**
+     * Compressed rows re-laid with a fixed stride: row k at {@code [k·degree, (k+1)·degree)},
+     * short rows padded with {@code neighbourFill = true}: spin k itself, else: coupling 0. A
+     * padded term adds 0 to a local field, so the kernels' results do not change; the fixed
+     * trip count lets the processor predict the neighbour loop.
+     */
+    public static int[] padded(int n, int[] start, int[] values, int degree, boolean neighbourFill) {
+        int[] out = new int[n * degree];
+        for (int k = 0; k < n; k++) {
+            for (int j = 0; j < degree; j++) {
+                int q = start[k] + j;
+                out[k * degree + j] = q < start[k + 1] ? values[q] : neighbourFill ? k : 0;
+            }
+        }
+        return out;
+    }
+
+    /**
+     * {@link #sweepInteger} on the padded layout of {@link #padded} (stride degree): the same
+     * decisions, the same random numbers.
+     */
+    public static void sweepIntegerPadded(int n, int degree, int[] neighbour, int[] coupling, byte[] spins,
+                                    int[] localField, long[] thresholds, UniformRandomProvider rng) {
+        for (int k = 0; k < n; k++) {
+            int s = spins[k];
+            int v = s * localField[k];
+            if (v < 0 && (rng.nextLong() >>> 11) >= thresholds[-v]) {
+                continue;
+            }
+            spins[k] = (byte) -s;
+            int twice = -2 * s;
+            int base = k * degree;
+            for (int j = 0; j < degree; j++) {
+                localField[neighbour[base + j]] += twice * coupling[base + j];
+            }
+        }
+    }
 }

@@ -21,6 +21,10 @@ import org.obverse.samples.SampleBlock;
  * into 64-read blocks over the worker threads, so the output never depends on the thread
  * count. Reads start from uniformly random spins.
  *
+ * <p>The exact kernel runs problems with small integer fields and couplings (and no per-read
+ * noise) in integer arithmetic ({@link MetropolisKernels#sweepInteger}): the same decisions
+ * from the same random numbers, so the same reads, in less time.
+ *
  * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
  * problem's arrays per thread.
  */
@@ -52,8 +56,8 @@ public final class ReferenceSampler {
      * Samples a binary problem through its spin form; set bits are x = 1 and the energies are
      * the binary problem's own.
      */
-    public SampleSet sample(BinaryProblem problem, int reads, long seed) {
-        SampleSet spin = sample(problem.toIsing(), reads, seed);
+    public SampledReads sample(BinaryProblem problem, int reads, long seed) {
+        SampledReads spin = sample(problem.toIsing(), reads, seed);
         double[] energies = new double[reads];
         byte[] row = new byte[problem.size()];
         SampleBlock block = spin.samples();
@@ -63,7 +67,7 @@ public final class ReferenceSampler {
             }
             energies[r] = problem.energy(row);
         }
-        return new SampleSet(spin.variables(), block, energies, spin.sweeps(), spin.runTimeMicros());
+        return new SampledReads(spin.variables(), block, energies, spin.sweeps(), spin.runTimeMicros());
     }
 
     /**
@@ -72,7 +76,7 @@ public final class ReferenceSampler {
      * @throws IllegalArgumentException for a negative read count, or a problem the chosen
      *                                  kernel cannot run (the message says why)
      */
-    public SampleSet sample(IsingProblem problem, int reads, long seed) {
+    public SampledReads sample(IsingProblem problem, int reads, long seed) {
         if (reads < 0) {
             throw new IllegalArgumentException("reads " + reads + " must be >= 0");
         }
@@ -99,7 +103,7 @@ public final class ReferenceSampler {
             task = new ExactTask(problem, device, settings.errors(), betas, block, energies, seed);
         }
         runBlocks(task, block.blockCount(), settings.threads());
-        return new SampleSet(problem.variables(), block, energies, betas.length, settings.schedule().runTimeMicros());
+        return new SampledReads(problem.variables(), block, energies, betas.length, settings.schedule().runTimeMicros());
     }
 
     /** Work on one 64-read block with a thread's own workspace. */
@@ -167,6 +171,16 @@ public final class ReferenceSampler {
         private final double[] fields;
         private final double[] couplings;
         private final double[] csrCoupling;
+        // Where every field and coupling is a small integer and there is no per-read noise:
+        // the integer kernel (same decisions, integer arithmetic), else null.
+        private final int[] intCoupling;
+        private final int[] intFields;
+        private final int fieldBound;
+        // The integer kernel's padded layout (stride degree) where padding costs at most twice
+        // the compressed rows, else null.
+        private final int degree;
+        private final int[] paddedNeighbour;
+        private final int[] paddedCoupling;
 
         ExactTask(IsingProblem nominal, IsingProblem device, ControlErrors errors, double[] betas, SampleBlock block,
                   double[] energies, long seed) {
@@ -186,7 +200,36 @@ public final class ReferenceSampler {
             for (int q = 0; q < neighbour.length; q++) {
                 csrCoupling[q] = couplings[edgeOf[q]];
             }
+            int bound = errors.hasReadNoise() ? -1
+                    : MetropolisKernels.integerFieldBound(n, start, csrCoupling, fields, INTEGER_FIELD_LIMIT);
+            this.fieldBound = bound;
+            if (bound >= 0) {
+                intCoupling = new int[csrCoupling.length];
+                for (int q = 0; q < csrCoupling.length; q++) {
+                    intCoupling[q] = (int) csrCoupling[q];
+                }
+                intFields = new int[n];
+                for (int k = 0; k < n; k++) {
+                    intFields[k] = (int) fields[k];
+                }
+            } else {
+                intCoupling = null;
+                intFields = null;
+            }
+            int d = MetropolisKernels.maxDegree(n, start);
+            if (intCoupling != null && (long) n * d <= 2L * neighbour.length) {
+                degree = d;
+                paddedNeighbour = MetropolisKernels.padded(n, start, neighbour, d, true);
+                paddedCoupling = MetropolisKernels.padded(n, start, intCoupling, d, false);
+            } else {
+                degree = 0;
+                paddedNeighbour = null;
+                paddedCoupling = null;
+            }
         }
+
+        /** Largest local field the integer kernel takes (its threshold table has one entry per value). */
+        private static final int INTEGER_FIELD_LIMIT = 1 << 12;
 
         private static final class Workspace {
             final byte[] spins;
@@ -194,8 +237,12 @@ public final class ReferenceSampler {
             final double[] fields;
             final double[] couplings;
             final double[] csr;
+            final int[] intLocalField;
+            final long[] thresholds;
 
-            Workspace(int n, int e, int csr) {
+            Workspace(int n, int e, int csr, int fieldBound) {
+                intLocalField = fieldBound >= 0 ? new int[n] : null;
+                thresholds = fieldBound >= 0 ? new long[fieldBound + 1] : null;
                 spins = new byte[n];
                 localField = new double[n];
                 fields = new double[n];
@@ -206,7 +253,7 @@ public final class ReferenceSampler {
 
         @Override
         public Object workspace() {
-            return new Workspace(n, couplings.length, neighbour.length);
+            return new Workspace(n, couplings.length, neighbour.length, fieldBound);
         }
 
         @Override
@@ -228,6 +275,21 @@ public final class ReferenceSampler {
                     s[i] = (byte) ((((bits >>> (i - k)) & 1L) << 1) - 1);
                 }
             }
+            if (intCoupling != null) {
+                MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, s, ws.intLocalField);
+                for (double beta : betas) {
+                    MetropolisKernels.integerThresholds(beta, ws.thresholds);
+                    if (paddedNeighbour != null) {
+                        MetropolisKernels.sweepIntegerPadded(n, degree, paddedNeighbour, paddedCoupling, s,
+                                ws.intLocalField, ws.thresholds, rng);
+                    } else {
+                        MetropolisKernels.sweepInteger(n, start, neighbour, intCoupling, s, ws.intLocalField,
+                                ws.thresholds, rng);
+                    }
+                }
+                finish(r, s);
+                return;
+            }
             double[] h = fields;
             double[] csr = csrCoupling;
             if (errors.hasReadNoise()) {
@@ -244,6 +306,10 @@ public final class ReferenceSampler {
             for (double beta : betas) {
                 MetropolisKernels.sweep(n, start, neighbour, csr, s, ws.localField, beta, rng);
             }
+            finish(r, s);
+        }
+
+        private void finish(int r, byte[] s) {
             // Each block is written by one thread only, so these bit writes never race.
             for (int k = 0; k < n; k++) {
                 block.setSpin(r, k, s[k]);

@@ -1,18 +1,8 @@
 package org.obverse.cli;
 
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.concurrent.Callable;
-import org.obverse.io.AtomicOutput;
-import org.obverse.io.BadInputException;
-import org.obverse.io.MagnetisationTable;
-import org.obverse.io.ScoreFiles;
-import org.obverse.report.Figure;
-import org.obverse.report.HtmlReport;
-import org.obverse.report.ReportPlots;
-import org.obverse.stats.BiasDiagnostics;
+import org.obverse.campaign.ReportStep;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -59,88 +49,14 @@ public final class ReportCommand implements Callable<Integer> {
     @Option(names = "--force", description = "replace an existing output directory")
     boolean force;
 
-    /** The value of column name for each setting, as "name = value". */
-    private String[] groups(ScoringOptions.Scored scored, String name) {
-        java.util.Map<String, String> column = scored.loaded().settingValues().get(name);
-        if (column == null) {
-            throw BadInputException.at(scoring.results, "--series " + name, "is not an extra column of the table, or it "
-                    + "takes more than one value within a setting", "name a column that is constant within each setting");
-        }
-        List<String> settings = scored.summary().campaign().settings();
-        String[] out = new String[settings.size()];
-        for (int s = 0; s < out.length; s++) {
-            out[s] = name + " = " + column.get(settings.get(s));
-        }
-        return out;
-    }
-
     @Override
     public Integer call() throws Exception {
         System.setProperty("java.awt.headless", "true");
-        AtomicOutput.checkTarget(out, force);
-        if (!(alpha > 0) || !(alpha < 1)) {
-            throw new BadInputException("--alpha must be in (0, 1), got " + alpha + " (see --help)");
-        }
-        BiasDiagnostics.Result bias = null;
-        List<Integer> qubits = List.of();
-        if (magnetisation != null) {
-            MagnetisationTable.Loaded m = MagnetisationTable.read(magnetisation);
-            try {
-                bias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha, balanced);
-            } catch (IllegalArgumentException e) {
-                throw BadInputException.at(magnetisation, "", e.getMessage(), "check the sums against the reads");
-            }
-            qubits = m.qubits();
-        }
-        BiasDiagnostics.Result couplerBias = null;
-        List<int[]> couplers = List.of();
-        if (correlations != null) {
-            MagnetisationTable.Couplers m = MagnetisationTable.readCouplers(correlations);
-            try {
-                couplerBias = BiasDiagnostics.diagnose(m.sums(), m.reads(), m.signs(), alpha, balanced);
-            } catch (IllegalArgumentException e) {
-                throw BadInputException.at(correlations, "", e.getMessage(), "check the sums against the reads");
-            }
-            couplers = m.couplers();
-        }
-        ScoringOptions.Scored scored = scoring.score(spec.commandLine().getErr());
-        ScoreFiles.Tables tables = ScoreFiles.tables(scored.summary(), scored.sweepName());
-        ReportPlots.Axis axis = ReportPlots.Axis.of(scored.summary(), scored.sweepName());
-        if (series != null) {
-            axis = axis.withGroups(groups(scored, series));
-        }
-        List<Figure> figures = new ArrayList<>();
-        figures.add(ReportPlots.tts(scored.summary(), axis));
-        figures.add(ReportPlots.success(scored.summary(), axis));
-        figures.add(ReportPlots.gaugeSpread(scored.summary()));
-        for (int k = 0; k < scored.summary().comparisons().size(); k++) {
-            figures.add(ReportPlots.comparison(scored.summary(), k));
-        }
-        if (bias != null) {
-            figures.add(ReportPlots.biasMap(bias, qubits));
-        }
-        if (couplerBias != null) {
-            figures.add(ReportPlots.couplerMap(couplerBias, couplers.size()));
-        }
-        String html = HtmlReport.page(scored.summary(), tables, new HtmlReport.Inputs(scoring.results.toString(),
-                scoring.ground == null ? null : scoring.ground.toString(), scored.rule(), scored.sweepName(),
-                magnetisation == null ? null : magnetisation.toString(),
-                correlations == null ? null : correlations.toString()), figures, bias, qubits, couplerBias, couplers);
-        String json = ScoreFiles.json(scored.summary(), tables, scored.rule(), scoring.results.toString(),
-                scoring.ground == null ? null : scoring.ground.toString(), scored.sweepName());
-        AtomicOutput.writeDirectory(out, force, dir -> {
-            Files.writeString(dir.resolve("report.html"), html);
-            Path plots = Files.createDirectories(dir.resolve("plots"));
-            for (Figure f : figures) {
-                Files.write(plots.resolve(f.name() + ".png"), f.png());
-                Files.writeString(plots.resolve(f.name() + ".svg"), f.svg());
-            }
-            ScoreFiles.writeCsv(dir, tables);
-            Files.writeString(dir.resolve("scores.json"), json);
-        });
-        spec.commandLine().getOut().println("wrote " + out.resolve("report.html") + " (" + figures.size() + " plots"
-                + (bias == null ? "" : ", " + bias.flagged().size() + " qubit(s) flagged")
-                + (couplerBias == null ? "" : ", " + couplerBias.flagged().size() + " coupler(s) flagged") + ")");
+        ReportStep.Result r = ReportStep.run(new ReportStep.Request(scoring.request(spec.commandLine().getErr()),
+                magnetisation, correlations, alpha, balanced, series, out, force));
+        spec.commandLine().getOut().println("wrote " + r.page() + " (" + r.figureCount() + " plots"
+                + (r.bias() == null ? "" : ", " + r.bias().flagged().size() + " qubit(s) flagged")
+                + (r.couplerBias() == null ? "" : ", " + r.couplerBias().flagged().size() + " coupler(s) flagged") + ")");
         return Main.DONE;
     }
 }

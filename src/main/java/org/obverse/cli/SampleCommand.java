@@ -12,7 +12,7 @@ import java.util.concurrent.Callable;
 import org.obverse.anneal.AnnealSchedule;
 import org.obverse.anneal.ControlErrors;
 import org.obverse.anneal.ReferenceSampler;
-import org.obverse.anneal.SampleSet;
+import org.obverse.anneal.SampledReads;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.anneal.StreamSeeds;
 import org.obverse.io.AtomicOutput;
@@ -118,7 +118,7 @@ public final class SampleCommand implements Callable<Integer> {
             Path energiesFile = energiesBeside(out);
             AtomicOutput.checkTarget(out, force);
             AtomicOutput.checkTarget(energiesFile, force);
-            SampleSet s = sample(sampler, pf, seed);
+            SampledReads s = sample(sampler, pf, seed);
             Path resultsFile = instance == null ? null : besideWith(out, ".results.csv");
             if (resultsFile != null) {
                 AtomicOutput.checkTarget(resultsFile, force);
@@ -151,7 +151,7 @@ public final class SampleCommand implements Callable<Integer> {
                             + "…, the manifest records " + e.sha256().substring(0, 12) + "…)",
                             "restore the file or draw the gauges again");
                 }
-                SampleSet s = sample(sampler, pf, StreamSeeds.derive(seed, StreamSeeds.GAUGES, e.index()));
+                SampledReads s = sample(sampler, pf, StreamSeeds.derive(seed, StreamSeeds.GAUGES, e.index()));
                 writeSamples(dir.resolve(SampleFormat.NPY.fileName(e.stem())), s, false, coding);
                 NpyVectors.writeFloat64(dir.resolve(e.stem() + ".energies.npy"), false, s.energies());
                 lines.add(String.format("%s: %d reads, minimum energy %s", e.stem(), s.reads(), s.minimumEnergy()));
@@ -207,11 +207,11 @@ public final class SampleCommand implements Callable<Integer> {
      * Samples the problem's spin form, so the energies are bit for bit those {@code obverse
      * energy} computes for the same file and samples.
      */
-    private SampleSet sample(ReferenceSampler sampler, ProblemFile pf, long s) {
+    private SampledReads sample(ReferenceSampler sampler, ProblemFile pf, long s) {
         return sampler.sample(pf.spin(), reads, s);
     }
 
-    private static void writeSamples(Path target, SampleSet s, boolean force, SampleCoding coding) throws IOException {
+    private static void writeSamples(Path target, SampledReads s, boolean force, SampleCoding coding) throws IOException {
         try (SampleWriter writer = SampleFiles.create(target, s.variables(), force, coding)) {
             writer.writeBlock(s.samples());
             writer.commit();

@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
+import org.obverse.campaign.ScoreStep;
 import org.obverse.io.AtomicOutput;
 import org.obverse.io.ScoreFiles;
 import org.obverse.stats.Campaign;
@@ -43,7 +44,7 @@ public final class ScoreCommand implements Callable<Integer> {
         if (out != null) {
             AtomicOutput.checkTarget(out, force);
         }
-        ScoringOptions.Scored scored = scoring.score(e);
+        ScoreStep.Result scored = scoring.score(e);
         ScoreFiles.Tables tables = ScoreFiles.tables(scored.summary(), scored.sweepName());
         String jsonText = ScoreFiles.json(scored.summary(), tables, scored.rule(), scoring.results.toString(),
                 scoring.ground == null ? null : scoring.ground.toString(), scored.sweepName());
@@ -62,7 +63,7 @@ public final class ScoreCommand implements Callable<Integer> {
         return Main.DONE;
     }
 
-    private static void printTable(PrintWriter o, ScoringOptions.Scored scored, ScoreFiles.Tables t) {
+    private static void printTable(PrintWriter o, ScoreStep.Result scored, ScoreFiles.Tables t) {
         Campaign c = scored.summary().campaign();
         long given = 0;
         for (int i = 0; i < c.instanceCount(); i++) {

@@ -10,7 +10,7 @@ import org.obverse.model.VariableIndex;
 /**
  * The native clique embedding of a defect-free grid of K_{t,t} cells: K_{t·m} in an m × m grid
  * with every chain of length m + 1 (Boothby, King &amp; Roy, "Fast clique minor generation in
- * Chimera qubit connectivity graphs", Quantum Inf. Process. 15, 495, 2016, who count the
+ * … qubit connectivity graphs", Quantum Inf. Process. 15, 495, 2016, who count the
  * family of such native embeddings; this is one member of it).
  *
  * <p>Clique vertex v = t·i + k (0 ≤ i &lt; m, 0 ≤ k &lt; t) gets an L-shaped chain: the

@@ -62,19 +62,21 @@ public final class LockedClusters {
 
     /**
      * Finds the clusters. Input: the problem on qubit ids, the device's limits, the policy, and
-     * for {@link LockPolicy#CHAINS} the chains as groups of qubit ids (ignored for RANGE).
+     * for {@link LockPolicy#CHAINS} the chains as groups of qubit ids (checked against the problem under either policy, joined only under CHAINS; may be null for RANGE).
      *
-     * @throws IllegalArgumentException where the chains do not fit the problem (a qubit the problem
-     *     does not use, a qubit in two chains) or the policy needs chains and none are given
+     * @throws IllegalArgumentException where chains are given that do not fit the problem (a qubit the
+     *     problem does not use, a qubit in two chains), under either policy, or the policy needs chains
+     *     and none are given
      */
     public static LockedClusters of(IsingProblem p, DeviceLimits d, LockPolicy policy, int[][] chains) {
         int n = p.size();
         VariableIndex ids = p.variables();
         UnionFind uf = new UnionFind(n);
-        if (policy == LockPolicy.CHAINS) {
-            if (chains == null) {
-                throw new IllegalArgumentException("lock policy chains needs the embedding's chains; give --chains");
-            }
+        if (policy == LockPolicy.CHAINS && chains == null) {
+            throw new IllegalArgumentException("lock policy chains needs the embedding's chains; give --chains");
+        }
+        // Chains are checked against the problem whenever given; only the chains policy joins them.
+        if (chains != null) {
             int[] owner = new int[n];
             Arrays.fill(owner, -1);
             for (int c = 0; c < chains.length; c++) {
@@ -92,7 +94,7 @@ public final class LockedClusters {
                     owner[k] = c;
                     if (first < 0) {
                         first = k;
-                    } else {
+                    } else if (policy == LockPolicy.CHAINS) {
                         uf.union(first, k);
                     }
                 }

@@ -29,7 +29,7 @@ class BoltzmannTest extends QuietTest {
         int reads = 16_000;
         SamplerSettings settings = SamplerSettings.defaults().withKernel(kernel).withBetaRange(BETA, BETA)
                 .withSweepsPerMicrosecond(60);
-        SampleSet s = ReferenceSampler.of(settings).sample(p, reads, 77);
+        SampledReads s = ReferenceSampler.of(settings).sample(p, reads, 77);
         long[] observed = new long[32];
         for (int r = 0; r < reads; r++) {
             int state = 0;
@@ -84,7 +84,7 @@ class BoltzmannTest extends QuietTest {
         int reads = 12_000;
         SamplerSettings settings = SamplerSettings.defaults().withKernel(kernel).withBetaRange(beta, beta)
                 .withSweepsPerMicrosecond(40);
-        SampleSet s = ReferenceSampler.of(settings).sample(p, reads, 78);
+        SampledReads s = ReferenceSampler.of(settings).sample(p, reads, 78);
         java.util.TreeMap<Double, Double> weight = new java.util.TreeMap<>();
         byte[] spins = new byte[n];
         double z = 0;

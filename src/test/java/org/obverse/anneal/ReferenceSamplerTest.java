@@ -18,7 +18,7 @@ import static org.assertj.core.api.Assertions.within;
 class ReferenceSamplerTest extends QuietTest {
     private static final double ENERGY_TOLERANCE = 1e-9;
 
-    private static double successRate(SampleSet s, double ground) {
+    private static double successRate(SampledReads s, double ground) {
         return s.countAtMost(ground, ENERGY_TOLERANCE) / (double) s.reads();
     }
 
@@ -32,7 +32,7 @@ class ReferenceSamplerTest extends QuietTest {
         IsingProblem gaussian = SpinGlasses.cellGrid(1, 3, SpinGlasses.Couplings.GAUSSIAN, Seeds.rng(3));
         for (IsingProblem p : new IsingProblem[] {plusMinus, gaussian}) {
             double ground = GrayCodeSearch.solve(p).energy();
-            SampleSet s = sampler.sample(p, 128, 11);
+            SampledReads s = sampler.sample(p, 128, 11);
             assertThat(successRate(s, ground)).as("%s", p).isGreaterThan(0.5);
             assertThat(s.minimumEnergy()).isGreaterThanOrEqualTo(ground - ENERGY_TOLERANCE);
         }
@@ -45,7 +45,7 @@ class ReferenceSamplerTest extends QuietTest {
         // written: 0.40-0.48 of the reads find the best tree. Asserted: more than a quarter.
         DegreeBoundedSpanningTree wind = WindArray.demo().problem();
         double best = wind.exactBest().orElseThrow().quboEnergy();
-        SampleSet s = ReferenceSampler.withDefaults().sample(wind.qubo(), 128, 12);
+        SampledReads s = ReferenceSampler.withDefaults().sample(wind.qubo(), 128, 12);
         assertThat(successRate(s, best)).isGreaterThan(0.25);
         assertThat(s.minimumEnergy()).isGreaterThanOrEqualTo(best - ENERGY_TOLERANCE);
     }
@@ -55,13 +55,13 @@ class ReferenceSamplerTest extends QuietTest {
         IsingProblem p = SpinGlasses.cellGrid(2, 2, SpinGlasses.Couplings.GAUSSIAN, Seeds.rng(5));
         SamplerSettings base = SamplerSettings.defaults().withSweepsPerMicrosecond(50)
                 .withErrors(ControlErrors.of(3, 0.05, 0.02, 0.01, 0.01));
-        SampleSet one = ReferenceSampler.of(base.withThreads(1)).sample(p, 200, 42);
+        SampledReads one = ReferenceSampler.of(base.withThreads(1)).sample(p, 200, 42);
         for (int threads : new int[] {2, 3}) {
-            SampleSet many = ReferenceSampler.of(base.withThreads(threads)).sample(p, 200, 42);
+            SampledReads many = ReferenceSampler.of(base.withThreads(threads)).sample(p, 200, 42);
             assertThat(many.samples().words()).isEqualTo(one.samples().words());
             assertThat(many.energies()).isEqualTo(one.energies());
         }
-        SampleSet other = ReferenceSampler.of(base).sample(p, 200, 43);
+        SampledReads other = ReferenceSampler.of(base).sample(p, 200, 43);
         assertThat(other.samples().words()).isNotEqualTo(one.samples().words());
     }
 
@@ -70,8 +70,8 @@ class ReferenceSamplerTest extends QuietTest {
         IsingProblem p = SpinGlasses.cellGrid(2, 2, SpinGlasses.Couplings.PLUS_MINUS_ONE, Seeds.rng(6));
         SamplerSettings base = SamplerSettings.defaults().withSweepsPerMicrosecond(100)
                 .withKernel(SamplerSettings.Kernel.MULTI_SPIN);
-        SampleSet one = ReferenceSampler.of(base.withThreads(1)).sample(p, 300, 7);
-        SampleSet two = ReferenceSampler.of(base.withThreads(2)).sample(p, 300, 7);
+        SampledReads one = ReferenceSampler.of(base.withThreads(1)).sample(p, 300, 7);
+        SampledReads two = ReferenceSampler.of(base.withThreads(2)).sample(p, 300, 7);
         assertThat(two.samples().words()).isEqualTo(one.samples().words());
         assertThat(two.energies()).isEqualTo(one.energies());
         // Bits past the last read stay clear, and energies are the problem's own.
@@ -90,7 +90,7 @@ class ReferenceSamplerTest extends QuietTest {
     void multiSpinKernelFindsGroundStatesToo() {
         IsingProblem p = SpinGlasses.cellGrid(1, 3, SpinGlasses.Couplings.PLUS_MINUS_ONE, Seeds.rng(1));
         double ground = GrayCodeSearch.solve(p).energy();
-        SampleSet s = ReferenceSampler.of(SamplerSettings.defaults().withKernel(SamplerSettings.Kernel.MULTI_SPIN))
+        SampledReads s = ReferenceSampler.of(SamplerSettings.defaults().withKernel(SamplerSettings.Kernel.MULTI_SPIN))
                 .sample(p, 128, 13);
         assertThat(successRate(s, ground)).isGreaterThan(0.5);
     }
@@ -98,7 +98,7 @@ class ReferenceSamplerTest extends QuietTest {
     @Test
     void binaryProblemsAreSampledInTheirOwnVariables() {
         BinaryProblem q = WindArray.demo().problem().qubo();
-        SampleSet s = ReferenceSampler.withDefaults().sample(q, 70, 3);
+        SampledReads s = ReferenceSampler.withDefaults().sample(q, 70, 3);
         byte[] x = new byte[q.size()];
         for (int r = 0; r < 70; r++) {
             for (int k = 0; k < x.length; k++) {
@@ -114,7 +114,7 @@ class ReferenceSamplerTest extends QuietTest {
     @Test
     void energiesIgnoreTheControlErrors() {
         IsingProblem p = SpinGlasses.cellGrid(1, 2, SpinGlasses.Couplings.GAUSSIAN, Seeds.rng(8));
-        SampleSet s = ReferenceSampler.of(SamplerSettings.defaults().withSweepsPerMicrosecond(20)
+        SampledReads s = ReferenceSampler.of(SamplerSettings.defaults().withSweepsPerMicrosecond(20)
                 .withErrors(ControlErrors.of(1, 0.3, 0.3, 0.1, 0.1))).sample(p, 65, 9);
         byte[] row = new byte[p.size()];
         for (int r = 0; r < 65; r++) {

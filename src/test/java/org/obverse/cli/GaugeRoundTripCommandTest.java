@@ -210,6 +210,17 @@ class GaugeRoundTripCommandTest extends CommandTestSupport {
     }
 
     @Test
+    void chainsThatDoNotFitTheProblemAreRefusedUnderEitherPolicy() throws Exception {
+        Files.writeString(chains, "{\"format\": \"obverse.chains/1\", \"chains\": [[0, [0, 1]], [1, [2, 9]]]}");
+        for (String lock : new String[] {"range", "chains"}) {
+            Run g = gauge("g-" + lock, "--lock", lock);
+            assertThat(g.code()).as(lock).isEqualTo(2);
+            assertThat(g.err()).contains("chains.json").contains("qubit 9").contains("does not use");
+            assertThat(Files.exists(dir.resolve("g-" + lock))).isFalse();
+        }
+    }
+
+    @Test
     void theShippedExampleManifestStillAudits() {
         Run a = obverse("audit", "--manifest", "examples/gauges/manifest.json", "--spectrum");
         assertThat(a.code()).as(a.out()).isZero();

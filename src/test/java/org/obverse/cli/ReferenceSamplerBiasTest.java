@@ -4,7 +4,7 @@ import org.apache.commons.rng.UniformRandomProvider;
 import org.junit.jupiter.api.Test;
 import org.obverse.anneal.ControlErrors;
 import org.obverse.anneal.ReferenceSampler;
-import org.obverse.anneal.SampleSet;
+import org.obverse.anneal.SampledReads;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.model.IsingBuilder;
 import org.obverse.model.IsingProblem;
@@ -48,7 +48,7 @@ class ReferenceSamplerBiasTest extends QuietTest {
                 signs[g][q] = (byte) (rng.nextBoolean() ? 1 : -1);
                 b.variable(q).field(q, signs[g][q] * h[q]);
             }
-            SampleSet s = sampler.sample(b.build(), READS, seed * 1000 + g);
+            SampledReads s = sampler.sample(b.build(), READS, seed * 1000 + g);
             moments.addBitSliced(g, s.samples().words(), READS);
         }
         return new Run(BiasDiagnostics.diagnose(moments.qubitSums(), moments.readCounts(QUBITS), signs, 0.01), h);

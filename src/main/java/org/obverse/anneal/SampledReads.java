@@ -15,8 +15,8 @@ import org.obverse.samples.SampleBlock;
  * @param sweeps          Metropolis sweeps per read
  * @param runTimeMicros   run time of one anneal (pause included), for time-to-solution
  */
-public record SampleSet(VariableIndex variables, SampleBlock samples, double[] energies, int sweeps,
-                        double runTimeMicros) {
+public record SampledReads(VariableIndex variables, SampleBlock samples, double[] energies, int sweeps,
+                           double runTimeMicros) {
     /** Number of reads. */
     public int reads() {
         return samples.reads();
