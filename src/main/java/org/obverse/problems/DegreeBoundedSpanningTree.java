@@ -178,12 +178,9 @@ public final class DegreeBoundedSpanningTree {
         java.util.Set<Long> seen = new java.util.HashSet<>();
         int[][] copy = new int[edges.length][];
         for (int e = 0; e < edges.length; e++) {
+            SpanningTrees.checkEdge(nodes, edges, e);
             int u = edges[e][0];
             int v = edges[e][1];
-            if (u < 0 || v < 0 || u >= nodes || v >= nodes || u == v) {
-                throw new IllegalArgumentException("edge " + e + " (" + u + ", " + v + ") must join two distinct nodes of 0.."
-                        + (nodes - 1));
-            }
             if (!seen.add(((long) Math.min(u, v) << 32) | Math.max(u, v))) {
                 throw new IllegalArgumentException("edge " + e + " (" + u + ", " + v + ") is listed twice");
             }

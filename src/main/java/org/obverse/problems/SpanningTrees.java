@@ -121,12 +121,17 @@ public final class SpanningTrees {
             throw new IllegalArgumentException(edges.length + " edges are too many to enumerate; the limit is " + MAX_EDGES);
         }
         for (int e = 0; e < edges.length; e++) {
-            int u = edges[e][0];
-            int v = edges[e][1];
-            if (u < 0 || v < 0 || u >= nodes || v >= nodes || u == v) {
-                throw new IllegalArgumentException("edge " + e + " (" + u + ", " + v + ") must join two distinct nodes of 0.."
-                        + (nodes - 1));
-            }
+            checkEdge(nodes, edges, e);
+        }
+    }
+
+    /** Edge e must join two distinct nodes of 0..nodes-1. */
+    static void checkEdge(int nodes, int[][] edges, int e) {
+        int u = edges[e][0];
+        int v = edges[e][1];
+        if (u < 0 || v < 0 || u >= nodes || v >= nodes || u == v) {
+            throw new IllegalArgumentException("edge " + e + " (" + u + ", " + v + ") must join two distinct nodes of 0.."
+                    + (nodes - 1));
         }
     }
 }
