@@ -44,6 +44,7 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * <ul>
  *   <li>{@code bitSliced}: {@link SpinFlip} in place on the bit-sliced block, then the
  *       planned {@link EnergyKernel} (byte tables for Gaussian, bit counters for ±1);</li>
+ *   <li>{@code bitSlicedExact}: the same with the exact kernel (the audit's path), for reference;</li>
  *   <li>{@code int8EdgeList}: the plain baseline, one byte per spin: s_k = g_k·s'_k per read,
  *       then fields and an edge list summed per read;</li>
  *   <li>{@code ejmlSparse}: EJML's sparse × dense product: the upper-triangular coupling
@@ -81,6 +82,7 @@ public class UngaugeEnergyBench {
         SampleBlock[] blocks;
         SpinFlip flip;
         EnergyKernel kernel;
+        EnergyKernel exact;
         double[] energies = new double[CHUNK];
         // int8 per spin.
         byte[] raw;
@@ -123,6 +125,7 @@ public class UngaugeEnergyBench {
             }
             flip = SpinFlip.ofSigns(gauge);
             kernel = EnergyKernel.of(p);
+            exact = EnergyKernel.exact(p);
             DMatrixSparseTriplet t = new DMatrixSparseTriplet(n, n, edgeU.length);
             for (int e = 0; e < edgeU.length; e++) {
                 t.addItem(edgeU[e], edgeV[e], j[e]);
@@ -239,6 +242,15 @@ public class UngaugeEnergyBench {
         SampleBlock block = p.blocks[p.next()];
         p.flip.applyInPlace(block);
         p.kernel.energies(block, p.energies, 0);
+        bh.consume(p.energies);
+    }
+
+    /** The exact path (what audits use), for reference. */
+    @Benchmark
+    public void bitSlicedExact(Problem p, Blackhole bh) {
+        SampleBlock block = p.blocks[p.next()];
+        p.flip.applyInPlace(block);
+        p.exact.energies(block, p.energies, 0);
         bh.consume(p.energies);
     }
 
@@ -360,6 +372,11 @@ public class UngaugeEnergyBench {
                     c, rate(bits[0]), rate(bits[1]), rate(base[0]), rate(base[1]), rate(ejml[0]), rate(ejml[1])));
             lines.add(String.format("  %-10s bit-sliced / int8 %6.1fx (%6.1fx)   bit-sliced / EJML %6.1fx (%6.1fx)", "",
                     base[0] / bits[0], base[1] / bits[1], ejml[0] / bits[0], ejml[1] / bits[1]));
+            double[] exact = micros.get("bitSlicedExact/" + c);
+            if (exact != null) {
+                lines.add(String.format("  %-10s exact path %,11.0f (%,11.0f): %4.1fx the int8 baseline", "", rate(exact[0]),
+                        rate(exact[1]), base[0] / exact[0]));
+            }
         }
         double[] read = micros.get("plainRead");
         if (read != null) {
