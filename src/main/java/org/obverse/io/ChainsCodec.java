@@ -7,7 +7,6 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.HashMap;
-import java.util.Iterator;
 import java.util.Map;
 import java.util.TreeMap;
 
@@ -24,12 +23,7 @@ public final class ChainsCodec {
 
     public static ChainList fromJson(Path file, ObjectNode root) {
         JsonFields f = new JsonFields(file);
-        for (Iterator<String> it = root.fieldNames(); it.hasNext(); ) {
-            String k = it.next();
-            if (!k.equals("format") && !k.equals("chains") && !k.equals("meta")) {
-                throw f.bad("\"" + k + "\"", "is not a field of " + KIND + " files", "remove it, or put it under \"meta\"");
-            }
-        }
+        f.onlyKeys(root, KIND, java.util.Set.of("chains", "meta"), "remove it, or put it under \"meta\"");
         JsonNode chains = f.array(f.required(root, "chains", "give \"chains\": [[logical_id, [qubit, ...]], ...]"),
                 "\"chains\"");
         TreeMap<Integer, int[]> byId = new TreeMap<>();

@@ -4,7 +4,6 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
-import java.util.Iterator;
 import java.util.Set;
 import org.obverse.anneal.ControlErrors;
 
@@ -30,13 +29,7 @@ public final class ControlErrorsCodec {
     /** Parses the model from a JSON object (file names the source in messages). */
     public static ControlErrors fromJson(Path file, ObjectNode root) {
         JsonFields f = new JsonFields(file);
-        for (Iterator<String> it = root.fieldNames(); it.hasNext(); ) {
-            String k = it.next();
-            if (!FIELDS.contains(k)) {
-                throw f.bad("\"" + k + "\"", "is not a field of " + KIND + " files",
-                        "use seed, field_sigma, coupling_sigma, read_field_sigma, read_coupling_sigma");
-            }
-        }
+        f.onlyKeys(root, KIND, FIELDS, "use seed, field_sigma, coupling_sigma, read_field_sigma, read_coupling_sigma");
         JsonNode seed = f.required(root, "seed", "give the simulated device's \"seed\" (an integer)");
         if (!seed.isIntegralNumber() || !seed.canConvertToLong()) {
             throw f.bad("\"seed\"", "is " + JsonFields.describe(seed) + ", not an integer", "give a 64-bit integer");

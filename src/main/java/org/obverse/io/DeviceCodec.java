@@ -5,7 +5,6 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
-import java.util.Iterator;
 import java.util.Map;
 import java.util.TreeMap;
 import org.obverse.device.DeviceLimits;
@@ -29,13 +28,8 @@ public final class DeviceCodec {
 
     public static DeviceLimits fromJson(Path file, ObjectNode root) {
         JsonFields f = new JsonFields(file);
-        for (Iterator<String> it = root.fieldNames(); it.hasNext(); ) {
-            String k = it.next();
-            if (!k.equals("format") && !k.equals("field") && !k.equals("coupling") && !k.equals("coupling_sum")
-                    && !k.equals("coupler_ranges") && !k.equals("qubits") && !k.equals("couplers") && !k.equals("meta")) {
-                throw f.bad("\"" + k + "\"", "is not a field of " + KIND + " files", "remove it, or put it under \"meta\"");
-            }
-        }
+        f.onlyKeys(root, KIND, java.util.Set.of("field", "coupling", "coupling_sum", "coupler_ranges", "qubits",
+                "couplers", "meta"), "remove it, or put it under \"meta\"");
         double[] field = f.range(f.required(root, "field", "give \"field\": [lo, hi]"), "\"field\"");
         double[] coupling = f.range(f.required(root, "coupling", "give \"coupling\": [lo, hi]"), "\"coupling\"");
         DeviceLimits.Builder b = DeviceLimits.builder(ValueRange.of(field[0], field[1]),

@@ -15,6 +15,16 @@ final class JsonFields {
         return BadInputException.at(file, place, problem, remedy);
     }
 
+    /** Refuses a top-level key other than "format" and the given ones, naming the kind of file. */
+    void onlyKeys(JsonNode root, String kind, java.util.Set<String> allowed, String remedy) {
+        for (java.util.Iterator<String> it = root.fieldNames(); it.hasNext(); ) {
+            String k = it.next();
+            if (!k.equals("format") && !allowed.contains(k)) {
+                throw bad("\"" + k + "\"", "is not a field of " + kind + " files", remedy);
+            }
+        }
+    }
+
     JsonNode required(JsonNode obj, String name, String remedy) {
         JsonNode n = obj.get(name);
         if (n == null || n.isNull()) {

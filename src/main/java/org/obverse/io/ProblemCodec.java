@@ -6,7 +6,6 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.BitSet;
-import java.util.Iterator;
 import org.obverse.model.BinaryBuilder;
 import org.obverse.model.BinaryProblem;
 import org.obverse.model.InvalidProblemException;
@@ -42,14 +41,8 @@ public final class ProblemCodec {
             meta = (ObjectNode) root.get("meta").deepCopy();
         }
         double offset = root.has("offset") ? f.number(root.get("offset"), "\"offset\"") : 0.0;
-        for (Iterator<String> it = root.fieldNames(); it.hasNext(); ) {
-            String k = it.next();
-            if (!k.equals("format") && !k.equals("domain") && !k.equals("h") && !k.equals("J") && !k.equals("Q")
-                    && !k.equals("offset") && !k.equals("variables") && !k.equals("meta")) {
-                throw f.bad("\"" + k + "\"", "is not a field of " + KIND + " files",
-                        "remove it, or put it under \"meta\"");
-            }
-        }
+        f.onlyKeys(root, KIND, java.util.Set.of("domain", "h", "J", "Q", "offset", "variables", "meta"),
+                "remove it, or put it under \"meta\"");
         String domain = d.asText();
         if (!d.isTextual() || !(domain.equals("spin") || domain.equals("binary"))) {
             throw f.bad("\"domain\"", "is " + JsonFields.describe(d) + "", "give \"spin\" or \"binary\"");

@@ -5,7 +5,6 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
-import java.util.Iterator;
 import org.obverse.anneal.AnnealSchedule;
 
 /**
@@ -28,13 +27,8 @@ public final class ScheduleCodec {
     /** Parses a schedule from a JSON object (file names the source in messages). */
     public static AnnealSchedule fromJson(Path file, ObjectNode root) {
         JsonFields f = new JsonFields(file);
-        for (Iterator<String> it = root.fieldNames(); it.hasNext(); ) {
-            String k = it.next();
-            if (!k.equals("format") && !k.equals("points") && !k.equals("max_slope_per_us")) {
-                throw f.bad("\"" + k + "\"", "is not a field of " + KIND + " files",
-                        "use \"points\" and optionally \"max_slope_per_us\"");
-            }
-        }
+        f.onlyKeys(root, KIND, java.util.Set.of("points", "max_slope_per_us"),
+                "use \"points\" and optionally \"max_slope_per_us\"");
         JsonNode points = f.array(f.required(root, "points", "give \"points\": [[t_us, s], ...]"), "\"points\"");
         double[] t = new double[points.size()];
         double[] s = new double[points.size()];
