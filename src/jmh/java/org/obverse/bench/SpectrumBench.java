@@ -8,7 +8,7 @@ import org.apache.commons.rng.simple.RandomSource;
 import org.obverse.model.IsingBuilder;
 import org.obverse.model.IsingProblem;
 import org.obverse.spectrum.AnnealOperator;
-import org.obverse.spectrum.AnnealSchedule;
+import org.obverse.anneal.EnergyScales;
 import org.obverse.spectrum.AnnealSpectrum;
 import org.obverse.spectrum.ScanSettings;
 import org.obverse.spectrum.SectorBasis;
@@ -152,7 +152,7 @@ public class SpectrumBench {
     /** The scan benchmark's 16-spin problem with fields, Lanczos solver, four levels. */
     static AnnealSpectrum sixteenSpins() {
         IsingProblem p = problem(16, true, 20261202L);
-        return AnnealSpectrum.of(p, AnnealSchedule.illustrative(),
+        return AnnealSpectrum.of(p, EnergyScales.illustrative(),
                 SpectrumSettings.defaults().withSolver(SolverChoice.LANCZOS));
     }
 

@@ -25,11 +25,11 @@ import org.obverse.io.ProblemCodec;
 import org.obverse.model.IsingProblem;
 import org.obverse.report.Figure;
 import org.obverse.report.LevelsPlot;
-import org.obverse.spectrum.AnnealSchedule;
+import org.obverse.anneal.EnergyScales;
 import org.obverse.spectrum.AnnealSpectrum;
 import org.obverse.spectrum.ChainCouplingScan;
 import org.obverse.spectrum.GapScan;
-import org.obverse.spectrum.InvalidScheduleException;
+import org.obverse.anneal.InvalidEnergyScalesException;
 import org.obverse.spectrum.MinimumGap;
 import org.obverse.spectrum.PauseWindow;
 import org.obverse.spectrum.ScanSettings;
@@ -52,7 +52,7 @@ import picocli.CommandLine.Spec;
             "Writes DIR/levels.csv, DIR/gap.csv, DIR/summary.json, DIR/levels.png and DIR/gap.png. With --logical, "
                 + "--chains, --device and --chain-couplings it re-embeds the logical problem at each chain coupling and "
                 + "writes DIR/chain_scan.csv, DIR/chain_scan.png and DIR/summary.json instead.",
-            "Without --schedule it uses the illustrative pair A(s) = 1 - s, B(s) = s, which is no device's schedule."})
+            "Without --energy-scales it uses the illustrative pair A(s) = 1 - s, B(s) = s, which is no device's schedule."})
 public final class SpectrumCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
@@ -89,11 +89,11 @@ public final class SpectrumCommand implements Callable<Integer> {
         Double scale;
     }
 
-    @Option(names = "--schedule", paramLabel = "F",
+    @Option(names = "--energy-scales", paramLabel = "F",
             description = "CSV with header s,A,B: s strictly increasing from 0 to 1, A and B >= 0 (default: the illustrative pair)")
     Path schedule;
 
-    @Option(names = "--schedule-units", paramLabel = "U", defaultValue = "units of the schedule table (not stated)",
+    @Option(names = "--energy-units", paramLabel = "U", defaultValue = "units of the energy-scales table (not stated)",
             description = "the energy units of A and B in the table, as you state them")
     String scheduleUnits;
 
@@ -135,7 +135,7 @@ public final class SpectrumCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         AtomicOutput.checkTarget(out, force);
-        AnnealSchedule sched = schedule == null ? AnnealSchedule.illustrative() : readSchedule(schedule, scheduleUnits);
+        EnergyScales sched = schedule == null ? EnergyScales.illustrative() : readSchedule(schedule, scheduleUnits);
         SpectrumSettings settings = new SpectrumSettings(levels, solverChoice(solver), tolerance,
                 SectorBasis.Sector.REACHABLE);
         ScanSettings scan = new ScanSettings(points, sTolerance, fromRatio, toRatio, 1e-4);
@@ -153,7 +153,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         }
     }
 
-    private int single(IsingProblem p, AnnealSchedule sched, SpectrumSettings settings, ScanSettings scan,
+    private int single(IsingProblem p, EnergyScales sched, SpectrumSettings settings, ScanSettings scan,
                        PrintWriter w) throws IOException {
         AnnealSpectrum spectrum = AnnealSpectrum.of(p, sched, settings);
         SectorBasis basis = spectrum.basis();
@@ -205,7 +205,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         return Main.DONE;
     }
 
-    private int sweep(AnnealSchedule sched, SpectrumSettings settings, ScanSettings scan, PrintWriter w)
+    private int sweep(EnergyScales sched, SpectrumSettings settings, ScanSettings scan, PrintWriter w)
             throws IOException {
         Sweep sw = input.sweep;
         IsingProblem q = ProblemCodec.read(sw.logical).spin();
@@ -270,7 +270,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         return Main.DONE;
     }
 
-    private static ObjectNode summaryBase(AnnealSchedule sched, SpectrumSettings settings, ScanSettings scan) {
+    private static ObjectNode summaryBase(EnergyScales sched, SpectrumSettings settings, ScanSettings scan) {
         ObjectNode s = JsonFiles.MAPPER.createObjectNode();
         s.put("format", "obverse.spectrum/1");
         s.put("hamiltonian", "H(s) = -(A(s)/2) sum_i X_i + (B(s)/2) H_P(Z)");
@@ -337,7 +337,7 @@ public final class SpectrumCommand implements Callable<Integer> {
     }
 
     /** Reads a schedule table: CSV with columns s, A, B (others ignored); errors name the line. */
-    static AnnealSchedule readSchedule(Path file, String units) throws IOException {
+    static EnergyScales readSchedule(Path file, String units) throws IOException {
         List<double[]> rows = new ArrayList<>();
         List<Long> lineOf = new ArrayList<>();
         try (CsvReader in = CsvReader.open(file)) {
@@ -367,8 +367,8 @@ public final class SpectrumCommand implements Callable<Integer> {
             b[i] = rows.get(i)[2];
         }
         try {
-            return AnnealSchedule.fromTable(file.getFileName().toString(), units, s, a, b);
-        } catch (InvalidScheduleException e) {
+            return EnergyScales.fromTable(file.getFileName().toString(), units, s, a, b);
+        } catch (InvalidEnergyScalesException e) {
             String place = e.row() >= 0 ? "line " + lineOf.get(e.row()) : "";
             String msg = e.getMessage().replaceFirst("^row \\d+: ", "");
             throw BadInputException.at(file, place, msg, "fix the schedule table (columns s,A,B; s from 0 to 1,"

@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import org.obverse.model.IsingProblem;
 
 /**
@@ -22,12 +23,12 @@ public final class AnnealSpectrum {
     public static final int MAX_LANCZOS_LEVELS = 64;
 
     private final SectorBasis basis;
-    private final AnnealSchedule schedule;
+    private final EnergyScales schedule;
     private final LevelSolver solver;
     private final int levelCount;
     private final int relevant;
 
-    private AnnealSpectrum(SectorBasis basis, AnnealSchedule schedule, LevelSolver solver, int levelCount,
+    private AnnealSpectrum(SectorBasis basis, EnergyScales schedule, LevelSolver solver, int levelCount,
                            int relevant) {
         this.basis = basis;
         this.schedule = schedule;
@@ -43,7 +44,7 @@ public final class AnnealSpectrum {
      *         message names the limit and the memory it would need)
      * @throws IllegalArgumentException when the sector has no level above the ground manifold
      */
-    public static AnnealSpectrum of(IsingProblem problem, AnnealSchedule schedule, SpectrumSettings settings) {
+    public static AnnealSpectrum of(IsingProblem problem, EnergyScales schedule, SpectrumSettings settings) {
         int m = SectorBasis.storedSpins(problem, settings.sector());
         LevelSolver solver = settings.solver().solverFor(m, settings.tolerance());
         if (m > solver.maxStoredSpins()) {
@@ -70,7 +71,7 @@ public final class AnnealSpectrum {
     }
 
     /** The schedule. */
-    public AnnealSchedule schedule() {
+    public EnergyScales schedule() {
         return schedule;
     }
 

@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import java.util.ArrayList;
 import java.util.List;
 import org.obverse.model.IsingProblem;
@@ -26,7 +27,7 @@ public final class ChainCouplingScan {
     }
 
     /** Analyses the family at each chain coupling, in the order given. */
-    public static List<Row> run(EmbeddedFamily family, double[] chainCouplings, AnnealSchedule schedule,
+    public static List<Row> run(EmbeddedFamily family, double[] chainCouplings, EnergyScales schedule,
                                 SpectrumSettings spectrum, ScanSettings scan) {
         if (chainCouplings.length == 0) {
             throw new IllegalArgumentException("no chain couplings to sweep");

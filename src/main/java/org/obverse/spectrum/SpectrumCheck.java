@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import org.obverse.model.IsingProblem;
 
 /**
@@ -34,7 +35,7 @@ public final class SpectrumCheck {
      * first to skip problems too large.
      */
     public static Comparison sameSpectrum(IsingProblem a, IsingProblem b) {
-        return sameSpectrum(a, b, AnnealSchedule.illustrative(), SpectrumSettings.defaults(), DEFAULT_S,
+        return sameSpectrum(a, b, EnergyScales.illustrative(), SpectrumSettings.defaults(), DEFAULT_S,
                 DEFAULT_TOLERANCE);
     }
 
@@ -43,7 +44,7 @@ public final class SpectrumCheck {
      *
      * @param tolerance absolute tolerance on each level, relative to max(1, energy scale)
      */
-    public static Comparison sameSpectrum(IsingProblem a, IsingProblem b, AnnealSchedule schedule,
+    public static Comparison sameSpectrum(IsingProblem a, IsingProblem b, EnergyScales schedule,
                                           SpectrumSettings settings, double[] sValues, double tolerance) {
         if (a.size() != b.size()) {
             return new Comparison(false, Double.POSITIVE_INFINITY, Double.NaN, -1,

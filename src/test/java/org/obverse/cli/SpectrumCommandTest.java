@@ -78,7 +78,7 @@ class SpectrumCommandTest extends CommandTestSupport {
         Path good = tmp.resolve("sched.csv");
         Files.writeString(good, "s,A,B\n0,4,0.2\n0.5,1,2\n1,0,4\n");
         Path out = tmp.resolve("a");
-        Run r = obverse("spectrum", "--problem", p.toString(), "--schedule", good.toString(), "--schedule-units",
+        Run r = obverse("spectrum", "--problem", p.toString(), "--energy-scales", good.toString(), "--energy-units",
                 "GHz", "--out", out.toString(), "--points", "21");
         assertThat(r.code()).as(r.err()).isZero();
         ObjectNode summary = JsonFiles.read(out.resolve("summary.json"), "spectrum");
@@ -88,7 +88,7 @@ class SpectrumCommandTest extends CommandTestSupport {
 
         Path notMonotone = tmp.resolve("bad1.csv");
         Files.writeString(notMonotone, "s,A,B\n0,4,0.2\n0.6,1,2\n0.5,1,2\n1,0,4\n");
-        Run bad = obverse("spectrum", "--problem", p.toString(), "--schedule", notMonotone.toString(), "--out",
+        Run bad = obverse("spectrum", "--problem", p.toString(), "--energy-scales", notMonotone.toString(), "--out",
                 tmp.resolve("b").toString());
         assertThat(bad.code()).isEqualTo(2);
         assertThat(bad.err()).contains("bad1.csv: line 4").contains("increase strictly");
@@ -96,7 +96,7 @@ class SpectrumCommandTest extends CommandTestSupport {
 
         Path negative = tmp.resolve("bad2.csv");
         Files.writeString(negative, "s,A,B\n0,4,0.2\n0.5,-1,2\n1,0,4\n");
-        Run neg = obverse("spectrum", "--problem", p.toString(), "--schedule", negative.toString(), "--out",
+        Run neg = obverse("spectrum", "--problem", p.toString(), "--energy-scales", negative.toString(), "--out",
                 tmp.resolve("c").toString());
         assertThat(neg.code()).isEqualTo(2);
         assertThat(neg.err()).contains("bad2.csv: line 3").contains("negative");

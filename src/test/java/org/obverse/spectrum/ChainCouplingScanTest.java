@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
@@ -26,7 +27,7 @@ class ChainCouplingScanTest extends QuietTest {
     @Test
     void minimumGapMovesEarlierAsChainsGrowStronger() {
         TinyEmbedding family = TinyEmbedding.triangle();
-        List<ChainCouplingScan.Row> rows = ChainCouplingScan.run(family, COUPLINGS, AnnealSchedule.illustrative(),
+        List<ChainCouplingScan.Row> rows = ChainCouplingScan.run(family, COUPLINGS, EnergyScales.illustrative(),
                 SpectrumSettings.defaults(), ScanSettings.defaults());
         assertThat(rows).hasSize(4);
         for (int i = 0; i < rows.size(); i++) {

@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import static org.assertj.core.api.Assertions.within;
@@ -16,7 +17,7 @@ import org.obverse.testsupport.QuietTest;
  */
 class ClosedFormSpectrumTest extends QuietTest {
     private static final double TOL = 1e-10;
-    private static final AnnealSchedule LINEAR = AnnealSchedule.illustrative();
+    private static final EnergyScales LINEAR = EnergyScales.illustrative();
 
     private static SpectrumSettings settings(SolverChoice solver, Sector sector) {
         return SpectrumSettings.defaults().withSolver(solver).withSector(sector);

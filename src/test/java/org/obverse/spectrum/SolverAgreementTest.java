@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
@@ -26,7 +27,7 @@ class SolverAgreementTest extends QuietTest {
             IsingProblem p = TestProblems.random(rng, n, 0.4, fields);
             Sector sector = rng.nextInt(4) == 0 ? Sector.FULL : Sector.REACHABLE;
             SpectrumSettings base = SpectrumSettings.defaults().withLevels(2 + rng.nextInt(6)).withSector(sector);
-            AnnealSchedule schedule = AnnealSchedule.illustrative();
+            EnergyScales schedule = EnergyScales.illustrative();
             AnnealSpectrum dense = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.DENSE));
             AnnealSpectrum lanczos = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.LANCZOS));
             double[] sValues = {0.0, 1.0, rng.nextDouble(), rng.nextDouble()};
@@ -67,7 +68,7 @@ class SolverAgreementTest extends QuietTest {
             IsingProblem p = b.build();
             SpectrumSettings base = SpectrumSettings.defaults().withLevels(2 + rng.nextInt(9))
                     .withSector(rng.nextBoolean() ? Sector.FULL : Sector.REACHABLE);
-            AnnealSchedule schedule = AnnealSchedule.illustrative();
+            EnergyScales schedule = EnergyScales.illustrative();
             AnnealSpectrum dense = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.DENSE));
             AnnealSpectrum lanczos = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.LANCZOS));
             for (double s : new double[] {0.0, 1.0, 0.999, rng.nextDouble()}) {
@@ -91,7 +92,7 @@ class SolverAgreementTest extends QuietTest {
             double[] oracle = ReferenceHamiltonian.eigenvalues(ReferenceHamiltonian.full(p, 1 - s, s));
             SpectrumSettings settings = SpectrumSettings.defaults().withLevels(Math.min(6, 1 << n))
                     .withSector(Sector.FULL).withSolver(SolverChoice.LANCZOS);
-            double[] e = AnnealSpectrum.of(p, AnnealSchedule.illustrative(), settings).levels(s);
+            double[] e = AnnealSpectrum.of(p, EnergyScales.illustrative(), settings).levels(s);
             for (int i = 0; i < e.length; i++) {
                 assertThat(e[i]).isCloseTo(oracle[i], within(TOL));
             }
@@ -109,7 +110,7 @@ class SolverAgreementTest extends QuietTest {
             for (SolverChoice solver : new SolverChoice[] {SolverChoice.DENSE, SolverChoice.LANCZOS}) {
                 SpectrumSettings settings = SpectrumSettings.defaults().withLevels(Math.min(5, oracle.length))
                         .withSolver(solver);
-                AnnealSpectrum spectrum = AnnealSpectrum.of(p, AnnealSchedule.illustrative(), settings);
+                AnnealSpectrum spectrum = AnnealSpectrum.of(p, EnergyScales.illustrative(), settings);
                 assertThat(spectrum.basis().dimension()).isEqualTo(1 << (n - 1));
                 double[] e = spectrum.levels(s);
                 for (int i = 0; i < e.length; i++) {
@@ -125,7 +126,7 @@ class SolverAgreementTest extends QuietTest {
         Seeds.forEachCase(1, 9400, (rng, seed) -> {
             IsingProblem p = TestProblems.random(rng, 10, 0.3, true);
             SpectrumSettings settings = SpectrumSettings.defaults().withLevels(4);
-            AnnealSchedule schedule = AnnealSchedule.illustrative();
+            EnergyScales schedule = EnergyScales.illustrative();
             double s = 0.4;
             double[] d = AnnealSpectrum.of(p, schedule, settings.withSolver(SolverChoice.DENSE)).levels(s);
             double[] l = AnnealSpectrum.of(p, schedule, settings.withSolver(SolverChoice.LANCZOS)).levels(s);

@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
@@ -26,19 +27,19 @@ class SpectrumLimitTest extends QuietTest {
     @Test
     void denseRefusesMoreThanTwelveStoredSpins() {
         SpectrumSettings dense = SpectrumSettings.defaults().withSolver(SolverChoice.DENSE);
-        assertThatThrownBy(() -> AnnealSpectrum.of(chain(13, true), AnnealSchedule.illustrative(), dense))
+        assertThatThrownBy(() -> AnnealSpectrum.of(chain(13, true), EnergyScales.illustrative(), dense))
                 .isInstanceOf(SpectrumLimitException.class)
                 .hasMessageContaining("13 spins").hasMessageContaining("2^13").hasMessageContaining("at most 2^12")
                 .hasMessageContaining("1.0 GiB").hasMessageContaining("--solver lanczos");
         // Without fields the global flip halves the space: 13 spins fit as 2^12.
-        assertThat(AnnealSpectrum.of(chain(13, false), AnnealSchedule.illustrative(), dense).basis().dimension())
+        assertThat(AnnealSpectrum.of(chain(13, false), EnergyScales.illustrative(), dense).basis().dimension())
                 .isEqualTo(1 << 12);
     }
 
     @Test
     void lanczosRefusesMoreThanTwentyStoredSpins() {
         SpectrumSettings lanczos = SpectrumSettings.defaults().withSolver(SolverChoice.LANCZOS);
-        assertThatThrownBy(() -> AnnealSpectrum.of(chain(21, true), AnnealSchedule.illustrative(), lanczos))
+        assertThatThrownBy(() -> AnnealSpectrum.of(chain(21, true), EnergyScales.illustrative(), lanczos))
                 .isInstanceOf(SpectrumLimitException.class)
                 .hasMessageContaining("21 spins").hasMessageContaining("2^21 = 2097152")
                 .hasMessageContaining("at most 2^20").hasMessageContaining("MiB");

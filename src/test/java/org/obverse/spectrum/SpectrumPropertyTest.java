@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
@@ -35,7 +36,7 @@ class SpectrumPropertyTest extends QuietTest {
             SpectrumSettings settings = SpectrumSettings.defaults().withSector(sector).withSolver(solver)
                     .withLevels(Math.min(5, 1 << (n - 1)));
             double[] s = {rng.nextDouble(), rng.nextDouble(), rng.nextDouble()};
-            SpectrumCheck.Comparison c = SpectrumCheck.sameSpectrum(p, gauged, AnnealSchedule.illustrative(),
+            SpectrumCheck.Comparison c = SpectrumCheck.sameSpectrum(p, gauged, EnergyScales.illustrative(),
                     settings, s, TOL);
             assertThat(c.same()).as("%s worst %s", c.reason(), c.worstDifference()).isTrue();
             assertThat(c.worstDifference()).isLessThan(TOL);
@@ -64,7 +65,7 @@ class SpectrumPropertyTest extends QuietTest {
                 .coupling(1, 2, 1.0).field(0, 0.3).build();
         IsingProblem other = IsingProblem.builder().coupling(0, 1, -1.0).coupling(0, 2, 1.0)
                 .coupling(1, 2, 1.0).field(0, 0.3).build();
-        SpectrumCheck.Comparison c = SpectrumCheck.sameSpectrum(triangle, other, AnnealSchedule.illustrative(),
+        SpectrumCheck.Comparison c = SpectrumCheck.sameSpectrum(triangle, other, EnergyScales.illustrative(),
                 SpectrumSettings.defaults(), new double[] {0.5, 0.9}, TOL);
         assertThat(c.same()).isFalse();
         assertThat(c.worstDifference()).isGreaterThan(0.01);
@@ -80,8 +81,8 @@ class SpectrumPropertyTest extends QuietTest {
             double shift = rng.nextDouble() * 20 - 10;
             IsingProblem shifted = p.withOffset(p.offset() + shift);
             SpectrumSettings settings = SpectrumSettings.defaults();
-            AnnealSpectrum a = AnnealSpectrum.of(p, AnnealSchedule.illustrative(), settings);
-            AnnealSpectrum b = AnnealSpectrum.of(shifted, AnnealSchedule.illustrative(), settings);
+            AnnealSpectrum a = AnnealSpectrum.of(p, EnergyScales.illustrative(), settings);
+            AnnealSpectrum b = AnnealSpectrum.of(shifted, EnergyScales.illustrative(), settings);
             double s = rng.nextDouble();
             double[] la = a.levels(s);
             double[] lb = b.levels(s);
@@ -100,9 +101,9 @@ class SpectrumPropertyTest extends QuietTest {
             int n = 2 + rng.nextInt(7);
             IsingProblem p = TestProblems.random(rng, n, 0.4, rng.nextBoolean());
             double factor = 0.1 + rng.nextDouble() * 9.9;
-            AnnealSchedule base = AnnealSchedule.fromTable("table", "GHz", new double[] {0, 0.3, 0.7, 1},
+            EnergyScales base = EnergyScales.fromTable("table", "GHz", new double[] {0, 0.3, 0.7, 1},
                     new double[] {5, 2, 0.4, 0}, new double[] {0.1, 1, 3, 6});
-            AnnealSchedule scaled = base.scaled(factor);
+            EnergyScales scaled = base.scaled(factor);
             SpectrumSettings settings = SpectrumSettings.defaults();
             AnnealSpectrum a = AnnealSpectrum.of(p, base, settings);
             AnnealSpectrum b = AnnealSpectrum.of(p, scaled, settings);
@@ -125,7 +126,7 @@ class SpectrumPropertyTest extends QuietTest {
     @Test
     void eachFieldFreeComponentHalvesTheSector() {
         IsingProblem p = IsingProblem.builder().coupling(0, 1, -1.0).coupling(2, 3, -1.0).build();
-        AnnealSpectrum spectrum = AnnealSpectrum.of(p, AnnealSchedule.illustrative(), SpectrumSettings.defaults());
+        AnnealSpectrum spectrum = AnnealSpectrum.of(p, EnergyScales.illustrative(), SpectrumSettings.defaults());
         assertThat(spectrum.basis().dimension()).isEqualTo(4);
         assertThat(spectrum.basis().symmetryComponents()).isEqualTo(2);
         double s = 0.37;

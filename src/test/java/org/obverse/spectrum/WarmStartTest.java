@@ -1,5 +1,6 @@
 package org.obverse.spectrum;
 
+import org.obverse.anneal.EnergyScales;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
@@ -27,7 +28,7 @@ class WarmStartTest extends QuietTest {
         Seeds.forEachCase(2, 9900, (rng, seed) -> {
             IsingProblem p = TestProblems.random(rng, 10, 0.3, true);
             SpectrumSettings base = SpectrumSettings.defaults().withLevels(4);
-            AnnealSchedule schedule = AnnealSchedule.illustrative();
+            EnergyScales schedule = EnergyScales.illustrative();
             AnnealSpectrum lanczos = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.LANCZOS));
             AnnealSpectrum dense = AnnealSpectrum.of(p, schedule, base.withSolver(SolverChoice.DENSE));
             double[] grid = ScanSettings.defaults().withPoints(21).grid();

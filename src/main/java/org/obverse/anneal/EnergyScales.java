@@ -1,4 +1,4 @@
-package org.obverse.spectrum;
+package org.obverse.anneal;
 
 import java.util.Arrays;
 
@@ -12,7 +12,7 @@ import java.util.Arrays;
  * SIAM 2004, §3.4): a monotone run of table values stays monotone between its rows, so no
  * interpolated value leaves the range of its two neighbouring rows. Immutable.
  */
-public final class AnnealSchedule {
+public final class EnergyScales {
     /** Name of the built-in pair, used in every output that uses it. */
     public static final String ILLUSTRATIVE_NAME = "illustrative linear schedule A(s) = 1 - s, B(s) = s"
             + " (dimensionless; not any device's schedule)";
@@ -26,7 +26,7 @@ public final class AnnealSchedule {
     private final double[] slopeA;
     private final double[] slopeB;
 
-    private AnnealSchedule(String name, String units, boolean illustrative, double[] s, double[] a, double[] b) {
+    private EnergyScales(String name, String units, boolean illustrative, double[] s, double[] a, double[] b) {
         this.name = name;
         this.units = units;
         this.illustrative = illustrative;
@@ -38,8 +38,8 @@ public final class AnnealSchedule {
     }
 
     /** The built-in illustrative pair A(s) = 1 − s, B(s) = s, dimensionless. */
-    public static AnnealSchedule illustrative() {
-        return new AnnealSchedule(ILLUSTRATIVE_NAME, "dimensionless", true,
+    public static EnergyScales illustrative() {
+        return new EnergyScales(ILLUSTRATIVE_NAME, "dimensionless", true,
                 new double[] {0.0, 1.0}, new double[] {1.0, 0.0}, new double[] {0.0, 1.0});
     }
 
@@ -49,35 +49,35 @@ public final class AnnealSchedule {
      *
      * @param name  a label for outputs (for example the table's file name)
      * @param units the energy units of A and B as the user states them
-     * @throws InvalidScheduleException naming the row and the rule it breaks (rows count from 0)
+     * @throws InvalidEnergyScalesException naming the row and the rule it breaks (rows count from 0)
      */
-    public static AnnealSchedule fromTable(String name, String units, double[] s, double[] a, double[] b) {
+    public static EnergyScales fromTable(String name, String units, double[] s, double[] a, double[] b) {
         if (s.length != a.length || s.length != b.length) {
-            throw new InvalidScheduleException(-1, "columns differ in length: s " + s.length + ", A " + a.length
+            throw new InvalidEnergyScalesException(-1, "columns differ in length: s " + s.length + ", A " + a.length
                     + ", B " + b.length);
         }
         if (s.length < 2) {
-            throw new InvalidScheduleException(-1, "has " + s.length + " rows; a schedule needs at least two"
+            throw new InvalidEnergyScalesException(-1, "has " + s.length + " rows; a schedule needs at least two"
                     + " (s = 0 and s = 1)");
         }
         for (int i = 0; i < s.length; i++) {
             if (!Double.isFinite(s[i]) || !Double.isFinite(a[i]) || !Double.isFinite(b[i])) {
-                throw new InvalidScheduleException(i, "holds a value that is not a finite number");
+                throw new InvalidEnergyScalesException(i, "holds a value that is not a finite number");
             }
             if (a[i] < 0 || b[i] < 0) {
-                throw new InvalidScheduleException(i, "has a negative value (A = " + a[i] + ", B = " + b[i]
+                throw new InvalidEnergyScalesException(i, "has a negative value (A = " + a[i] + ", B = " + b[i]
                         + "); A and B must be >= 0");
             }
             if (i > 0 && !(s[i] > s[i - 1])) {
-                throw new InvalidScheduleException(i, "s = " + s[i] + " does not exceed the previous s = " + s[i - 1]
+                throw new InvalidEnergyScalesException(i, "s = " + s[i] + " does not exceed the previous s = " + s[i - 1]
                         + "; s must increase strictly");
             }
         }
         if (s[0] != 0.0 || s[s.length - 1] != 1.0) {
-            throw new InvalidScheduleException(-1, "spans s from " + s[0] + " to " + s[s.length - 1]
+            throw new InvalidEnergyScalesException(-1, "spans s from " + s[0] + " to " + s[s.length - 1]
                     + "; the table must run from s = 0 to s = 1");
         }
-        return new AnnealSchedule(name, units, false, s.clone(), a.clone(), b.clone());
+        return new EnergyScales(name, units, false, s.clone(), a.clone(), b.clone());
     }
 
     /** The label used in outputs. */
@@ -111,7 +111,7 @@ public final class AnnealSchedule {
     }
 
     /** The same schedule with A and B multiplied by factor (factor &gt; 0). */
-    public AnnealSchedule scaled(double factor) {
+    public EnergyScales scaled(double factor) {
         if (!(factor > 0) || !Double.isFinite(factor)) {
             throw new IllegalArgumentException("scale factor " + factor + " must be a finite number > 0");
         }
@@ -121,7 +121,7 @@ public final class AnnealSchedule {
             a2[i] *= factor;
             b2[i] *= factor;
         }
-        return new AnnealSchedule(name + " x " + factor, units, illustrative, s, a2, b2);
+        return new EnergyScales(name + " x " + factor, units, illustrative, s, a2, b2);
     }
 
     private double interpolate(double at, double[] y, double[] d) {
@@ -189,6 +189,6 @@ public final class AnnealSchedule {
 
     @Override
     public String toString() {
-        return "AnnealSchedule[" + name + ", " + s.length + " rows, units " + units + "]";
+        return "EnergyScales[" + name + ", " + s.length + " rows, units " + units + "]";
     }
 }

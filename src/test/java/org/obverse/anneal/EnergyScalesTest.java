@@ -1,4 +1,4 @@
-package org.obverse.spectrum;
+package org.obverse.anneal;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
@@ -12,10 +12,10 @@ import org.obverse.testsupport.Seeds;
  * The schedule's shape-preserving interpolation (Fritsch and Carlson, SIAM J. Numer. Anal. 17,
  * 238, 1980: a monotone data run gives a monotone interpolant) and its input rules.
  */
-class AnnealScheduleTest extends QuietTest {
+class EnergyScalesTest extends QuietTest {
     @Test
     void illustrativePairIsLinearAndSaysSo() {
-        AnnealSchedule s = AnnealSchedule.illustrative();
+        EnergyScales s = EnergyScales.illustrative();
         assertThat(s.isIllustrative()).isTrue();
         assertThat(s.name()).contains("illustrative").contains("not any device");
         for (double x : new double[] {0, 0.25, 0.5, 0.9, 1}) {
@@ -34,7 +34,7 @@ class AnnealScheduleTest extends QuietTest {
             a[i] = 3 - 2 * s[i];
             b[i] = 0.5 + 4 * s[i];
         }
-        AnnealSchedule t = AnnealSchedule.fromTable("line", "GHz", s, a, b);
+        EnergyScales t = EnergyScales.fromTable("line", "GHz", s, a, b);
         for (double x = 0; x <= 1; x += 0.0137) {
             assertThat(t.a(x)).isCloseTo(3 - 2 * x, within(1e-12));
             assertThat(t.b(x)).isCloseTo(0.5 + 4 * x, within(1e-12));
@@ -67,7 +67,7 @@ class AnnealScheduleTest extends QuietTest {
                     return; // a tie from the generator: not a valid table, skip the case
                 }
             }
-            AnnealSchedule t = AnnealSchedule.fromTable("t", "GHz", s, a, b);
+            EnergyScales t = EnergyScales.fromTable("t", "GHz", s, a, b);
             for (int i = 0; i < rows; i++) {
                 assertThat(t.a(s[i])).isEqualTo(a[i]);
                 assertThat(t.b(s[i])).isEqualTo(b[i]);
@@ -90,20 +90,20 @@ class AnnealScheduleTest extends QuietTest {
     void badTablesAreRefusedNamingTheRow() {
         double[] a = {1, 0.5, 0};
         double[] b = {0, 0.5, 1};
-        assertThatThrownBy(() -> AnnealSchedule.fromTable("t", "u", new double[] {0, 0.6, 0.6}, a, b))
-                .isInstanceOf(InvalidScheduleException.class).hasMessageContaining("row 2")
+        assertThatThrownBy(() -> EnergyScales.fromTable("t", "u", new double[] {0, 0.6, 0.6}, a, b))
+                .isInstanceOf(InvalidEnergyScalesException.class).hasMessageContaining("row 2")
                 .hasMessageContaining("increase strictly");
-        assertThatThrownBy(() -> AnnealSchedule.fromTable("t", "u", new double[] {0, 0.7, 0.5}, a, b))
-                .isInstanceOf(InvalidScheduleException.class).hasMessageContaining("row 2");
-        assertThatThrownBy(() -> AnnealSchedule.fromTable("t", "u", new double[] {0, 0.5, 1},
+        assertThatThrownBy(() -> EnergyScales.fromTable("t", "u", new double[] {0, 0.7, 0.5}, a, b))
+                .isInstanceOf(InvalidEnergyScalesException.class).hasMessageContaining("row 2");
+        assertThatThrownBy(() -> EnergyScales.fromTable("t", "u", new double[] {0, 0.5, 1},
                 new double[] {1, -0.1, 0}, b))
-                .isInstanceOf(InvalidScheduleException.class).hasMessageContaining("row 1")
+                .isInstanceOf(InvalidEnergyScalesException.class).hasMessageContaining("row 1")
                 .hasMessageContaining("negative");
-        assertThatThrownBy(() -> AnnealSchedule.fromTable("t", "u", new double[] {0, 0.5, 0.9}, a, b))
-                .isInstanceOf(InvalidScheduleException.class).hasMessageContaining("s = 0 to s = 1");
-        assertThatThrownBy(() -> AnnealSchedule.fromTable("t", "u", new double[] {0}, new double[] {1},
-                new double[] {0})).isInstanceOf(InvalidScheduleException.class).hasMessageContaining("two");
-        assertThatThrownBy(() -> AnnealSchedule.illustrative().a(1.5))
+        assertThatThrownBy(() -> EnergyScales.fromTable("t", "u", new double[] {0, 0.5, 0.9}, a, b))
+                .isInstanceOf(InvalidEnergyScalesException.class).hasMessageContaining("s = 0 to s = 1");
+        assertThatThrownBy(() -> EnergyScales.fromTable("t", "u", new double[] {0}, new double[] {1},
+                new double[] {0})).isInstanceOf(InvalidEnergyScalesException.class).hasMessageContaining("two");
+        assertThatThrownBy(() -> EnergyScales.illustrative().a(1.5))
                 .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("outside");
     }
 }
