@@ -78,10 +78,10 @@ public final class ReportStep {
             couplers = m.couplers();
         }
         ScoreStep.Result scored = ScoreStep.run(r.scoring());
-        ScoreFiles.Tables tables = ScoreFiles.tables(scored.summary(), scored.sweepName());
-        ReportPlots.Axis axis = ReportPlots.Axis.of(scored.summary(), scored.sweepName());
+        ScoreFiles.Tables tables = ScoreFiles.tables(scored.scores());
+        ReportPlots.Axis axis = ReportPlots.Axis.of(scored.scores());
         if (r.series() != null) {
-            axis = axis.withGroups(groups(r.scoring().results(), scored, r.series()));
+            axis = axis.withGroups(groups(scored.results().get(0), scored, r.series()));
         }
         List<Figure> figures = new ArrayList<>();
         figures.add(ReportPlots.tts(scored.summary(), axis));
@@ -96,13 +96,13 @@ public final class ReportStep {
         if (couplerBias != null) {
             figures.add(ReportPlots.couplerMap(couplerBias, couplers.size()));
         }
-        String results = r.scoring().results().toString();
-        String ground = r.scoring().ground() == null ? null : r.scoring().ground().toString();
+        String results = String.join(", ", scored.results().stream().map(Path::toString).toList());
+        String ground = scored.ground() == null ? null : scored.ground().toString();
         String html = HtmlReport.page(scored.summary(), tables, new HtmlReport.Inputs(results, ground, scored.rule(),
-                scored.sweepName(), r.magnetisation() == null ? null : r.magnetisation().toString(),
+                scored.sweep(), scored.baseline(), r.magnetisation() == null ? null : r.magnetisation().toString(),
                 r.correlations() == null ? null : r.correlations().toString()), figures, bias, qubits, couplerBias,
                 couplers);
-        String json = ScoreFiles.json(scored.summary(), tables, scored.rule(), results, ground, scored.sweepName());
+        String json = ScoreFiles.json(scored.scores(), tables);
         AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
             Files.writeString(dir.resolve(PAGE), html);
             Path plots = Files.createDirectories(dir.resolve("plots"));

@@ -14,6 +14,7 @@ import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.BoxStyler;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
+import org.obverse.io.ScoreFiles;
 import org.obverse.stats.BiasDiagnostics;
 import org.obverse.stats.Campaign;
 import org.obverse.stats.CampaignScoring;
@@ -53,25 +54,26 @@ public final class ReportPlots {
             return new Axis(title, x, labels, logarithmic, groupOfSetting.clone());
         }
 
-        /** Positions 1 … S labelled by setting, or the swept values. */
-        public static Axis of(CampaignSummary summary, String sweepName) {
+        /** Positions 1 … S labelled by setting, or the first swept column's values when all are numbers. */
+        public static Axis of(ScoreFiles.Scored scored) {
+            CampaignSummary summary = scored.summary();
             Campaign c = summary.campaign();
-            int[] order = summary.options().sweepOrder();
+            String sweepName = scored.sweep().isEmpty() ? null : scored.sweep().get(0);
+            double[] v = scored.sweepValueBySetting();
             int n = c.settingCount();
             double[] x = new double[n];
             String[] labels = new String[n];
-            if (order == null) {
+            if (v == null || java.util.Arrays.stream(v).anyMatch(Double::isNaN)) {
                 for (int s = 0; s < n; s++) {
                     x[s] = s + 1;
                     labels[s] = c.settings().get(s);
                 }
                 return new Axis("setting", x, labels, false);
             }
-            double[] v = summary.options().sweepValues();
             boolean positive = true;
             for (int k = 0; k < n; k++) {
-                x[order[k]] = v[k];
-                labels[order[k]] = c.settings().get(order[k]);
+                x[k] = v[k];
+                labels[k] = c.settings().get(k);
                 positive &= v[k] > 0;
             }
             double lo = java.util.Arrays.stream(v).min().orElse(1);
@@ -89,7 +91,7 @@ public final class ReportPlots {
         double lo = Double.POSITIVE_INFINITY;
         double hi = 0;
         for (CampaignSummary.SettingRow r : rows) {
-            for (double v : new double[] {r.tts(), r.ttsOuter()[0], r.ttsOuter()[1]}) {
+            for (double v : new double[] {r.tts().headline(), r.tts().outer()[0], r.tts().outer()[1]}) {
                 if (Double.isFinite(v) && v > 0) {
                     lo = Math.min(lo, v);
                     hi = Math.max(hi, v);
@@ -101,8 +103,8 @@ public final class ReportPlots {
         if (!log && hi > 0) {
             chart.getStyler().setYAxisMin(0.0);
         }
-        int missing = addBanded(chart, axis, rows.size(), s -> rows.get(s).tts(), s -> rows.get(s).ttsBand(),
-                s -> rows.get(s).ttsOuter(), log, band(summary.options().band()), band(summary.options().outerBand()));
+        int missing = addBanded(chart, axis, rows.size(), s -> rows.get(s).tts().headline(), s -> rows.get(s).tts().band(),
+                s -> rows.get(s).tts().outer(), log, band(summary.options().band()), band(summary.options().outerBand()));
         String note = missing > 0 ? " " + missing + " point(s) are infinite or undefined and not drawn." : "";
         return Figure.render("tts", "TTS at the " + pct(summary.options().target()) + " target, the " + label(q)
                 + " over instances of the pooled TTS, with the " + band(summary.options().band()) + " (solid) and "
@@ -119,15 +121,15 @@ public final class ReportPlots {
         // Rare success would be a flat line on [0, 1]: fit the axis to the largest upper band.
         double top = 0;
         for (CampaignSummary.SettingRow r : rows) {
-            for (double v : new double[] {r.p(), r.pOuter()[1]}) {
+            for (double v : new double[] {r.p().headline(), r.p().outer()[1]}) {
                 if (Double.isFinite(v)) {
                     top = Math.max(top, v);
                 }
             }
         }
         chart.getStyler().setYAxisMax(top > 0 && top < 0.5 ? Math.min(1.0, 1.15 * top) : 1.0);
-        addBanded(chart, axis, rows.size(), s -> rows.get(s).p(), s -> rows.get(s).pBand(),
-                s -> rows.get(s).pOuter(), false, band(summary.options().band()), band(summary.options().outerBand()));
+        addBanded(chart, axis, rows.size(), s -> rows.get(s).p().headline(), s -> rows.get(s).p().band(),
+                s -> rows.get(s).p().outer(), false, band(summary.options().band()), band(summary.options().outerBand()));
         return Figure.render("success", "Success probability per read, the " + label(q)
                 + " over instances of the pooled estimate, with the " + band(summary.options().band()) + " (solid) and "
                 + band(summary.options().outerBand()) + " (dashed) bootstrap bands.", chart);
@@ -163,16 +165,16 @@ public final class ReportPlots {
     public static Figure comparison(CampaignSummary summary, int index) throws IOException {
         CampaignSummary.ComparisonRow row = summary.comparisons().get(index);
         Campaign c = summary.campaign();
-        String a = c.settings().get(row.a());
-        String b = c.settings().get(row.b());
+        String a = c.settings().get(row.setting());
+        String b = c.settings().get(row.reference());
         double[] ta = new double[c.instanceCount()];
         double[] tb = new double[c.instanceCount()];
         java.util.Arrays.fill(ta, Double.NaN);
         java.util.Arrays.fill(tb, Double.NaN);
         for (CellScore cs : summary.cells()) {
-            if (cs.setting() == row.a()) {
+            if (cs.setting() == row.setting()) {
                 ta[cs.instance()] = cs.tts();
-            } else if (cs.setting() == row.b()) {
+            } else if (cs.setting() == row.reference()) {
                 tb[cs.instance()] = cs.tts();
             }
         }
