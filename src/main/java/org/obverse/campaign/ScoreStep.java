@@ -126,7 +126,11 @@ public final class ScoreStep {
         ResultsTable.Loaded loaded = ResultsTable.read(files, g, groundFile, rule);
         Campaign c = loaded.campaign();
         Path where = files.get(0);
-        List<Map<String, String>> columns = settingColumns(loaded);
+        Set<String> requested = new LinkedHashSet<>(r.sweep());
+        if (r.baseline() != null && r.baseline().indexOf('=') > 0) {
+            requested.add(r.baseline().substring(0, r.baseline().indexOf('=')).trim());
+        }
+        List<Map<String, String>> columns = settingColumns(loaded, requested);
         List<int[]> pairs = new ArrayList<>();
         for (Comparison k : r.compare()) {
             pairs.add(new int[] {settingIndex(where, c, k.setting()), settingIndex(where, c, k.reference())});
@@ -149,7 +153,7 @@ public final class ScoreStep {
                     }
                 }
             }
-            bySetting = numericValues(where, c, columns, r.sweep().get(0));
+            bySetting = numericValues(c, columns, r.sweep().get(0));
             groups = sweepGroups(c, columns, r.sweep(), bySetting);
         }
         SummaryOptions options;
@@ -170,23 +174,23 @@ public final class ScoreStep {
 
     /**
      * Per setting, the columns that describe it: every extra column of the table that is
-     * constant within the setting, then NAME=value tokens of the label (tokens separated by
-     * spaces, commas or semicolons) for names that are not columns.
+     * constant within every setting; a requested name that is no such column is taken from the
+     * NAME=value tokens of the label (tokens separated by spaces, commas or semicolons).
      */
-    static List<Map<String, String>> settingColumns(ResultsTable.Loaded loaded) {
+    static List<Map<String, String>> settingColumns(ResultsTable.Loaded loaded, Set<String> requested) {
         Campaign c = loaded.campaign();
         List<Map<String, String>> out = new ArrayList<>();
         for (String label : c.settings()) {
             Map<String, String> m = new LinkedHashMap<>();
             for (Map.Entry<String, Map<String, String>> e : loaded.settingValues().entrySet()) {
-                String v = e.getValue().get(label);
-                if (v != null) {
-                    m.put(e.getKey(), v.trim());
+                // A setting column is constant within every setting.
+                if (c.settings().stream().allMatch(l -> e.getValue().get(l) != null)) {
+                    m.put(e.getKey(), e.getValue().get(label).trim());
                 }
             }
             for (String token : label.split("[,; ]+")) {
                 int eq = token.indexOf('=');
-                if (eq > 0 && !loaded.settingValues().containsKey(token.substring(0, eq))) {
+                if (eq > 0 && requested.contains(token.substring(0, eq)) && !m.containsKey(token.substring(0, eq))) {
                     m.putIfAbsent(token.substring(0, eq), token.substring(eq + 1).trim());
                 }
             }
@@ -195,7 +199,7 @@ public final class ScoreStep {
         return out;
     }
 
-    /** Pairs every non-baseline setting with the baseline that agrees with it on every other setting column. */
+    /** Pairs every non-baseline setting with the baseline that agrees with it on every other setting column the baseline fills. */
     private static void baselinePairs(Path where, Campaign c, List<Map<String, String>> columns, String spec,
             List<int[]> pairs, List<String> without) {
         int eq = spec.indexOf('=');
@@ -232,7 +236,9 @@ public final class ScoreStep {
             for (int b : base) {
                 boolean same = true;
                 for (String n : names) {
-                    same &= columns.get(s).getOrDefault(n, "").equals(columns.get(b).getOrDefault(n, ""));
+                    // A column the baseline leaves empty (pause_us of a no-pause run) describes the treatment.
+                    String bv = columns.get(b).getOrDefault(n, "");
+                    same &= bv.isEmpty() || columns.get(s).getOrDefault(n, "").equals(bv);
                 }
                 if (same) {
                     if (match >= 0) {
@@ -251,24 +257,17 @@ public final class ScoreStep {
         }
     }
 
-    /** The swept column's numeric value per setting; NaN where empty; a non-number is refused. */
-    private static double[] numericValues(Path where, Campaign c, List<Map<String, String>> columns, String name) {
+    /** The swept column's numeric value per setting; NaN where empty or not a finite number. */
+    private static double[] numericValues(Campaign c, List<Map<String, String>> columns, String name) {
         double[] out = new double[c.settingCount()];
         for (int s = 0; s < out.length; s++) {
-            String text = columns.get(s).get(name);
-            if (text.isEmpty()) {
-                out[s] = Double.NaN;
-                continue;
-            }
             try {
-                out[s] = Double.parseDouble(text);
+                out[s] = Double.parseDouble(columns.get(s).get(name));
             } catch (NumberFormatException e) {
-                throw BadInputException.at(where, "setting '" + c.settings().get(s) + "'", "value '" + text + "' of "
-                        + name + " is not a number", "a swept parameter is numeric (or empty for none)");
+                out[s] = Double.NaN;
             }
             if (!Double.isFinite(out[s])) {
-                throw BadInputException.at(where, "setting '" + c.settings().get(s) + "'", "value '" + text + "' of "
-                        + name + " is not finite", "a swept parameter is a finite number");
+                out[s] = Double.NaN;
             }
         }
         return out;
