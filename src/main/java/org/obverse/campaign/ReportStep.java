@@ -11,6 +11,7 @@ import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
 import org.obverse.io.MagnetisationTable;
 import org.obverse.io.ScoreFiles;
+import org.obverse.report.CampaignPlots;
 import org.obverse.report.Figure;
 import org.obverse.report.HtmlReport;
 import org.obverse.report.ReportPlots;
@@ -83,11 +84,15 @@ public final class ReportStep {
         if (r.series() != null) {
             axis = axis.withGroups(groups(scored.results().get(0), scored, r.series()));
         }
-        List<Figure> figures = new ArrayList<>();
-        figures.add(ReportPlots.tts(scored.summary(), axis));
-        figures.add(ReportPlots.success(scored.summary(), axis));
+        List<Figure> figures = new ArrayList<>(CampaignPlots.all(scored.scores(), tables));
+        if (figures.isEmpty()) {
+            // No pause or chain-coupling grid: TTS and success against the settings or the swept value.
+            figures.add(ReportPlots.tts(scored.summary(), axis));
+            figures.add(ReportPlots.success(scored.summary(), axis));
+        }
         figures.add(ReportPlots.gaugeSpread(scored.summary()));
-        for (int k = 0; k < scored.summary().comparisons().size(); k++) {
+        // A scatter per --compare pair; baseline pairs are drawn together (pause-delta figures).
+        for (int k = 0; k < scored.compareCount(); k++) {
             figures.add(ReportPlots.comparison(scored.summary(), k));
         }
         if (bias != null) {

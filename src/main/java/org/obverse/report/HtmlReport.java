@@ -41,9 +41,9 @@ public final class HtmlReport {
                 .append("body{font-family:system-ui,Segoe UI,Helvetica,Arial,sans-serif;max-width:1100px;margin:2em auto;")
                 .append("padding:0 1em;color:#222;line-height:1.45}\n")
                 .append("table{border-collapse:collapse;margin:0.6em 0 1.2em;font-size:0.92em}\n")
-                .append("th,td{border:1px solid #ccc;padding:0.25em 0.6em;text-align:right}\n")
+                .append("th,td{border:1px solid #ccc;padding:0.25em 0.6em;text-align:right;white-space:nowrap}\n")
                 .append("th{background:#eef2f7}td.l,th.l{text-align:left}\n")
-                .append("figure{margin:1.2em 0}figure img{max-width:100%;border:1px solid #ddd}\n")
+                .append("figure{margin:1.2em 0}figure img{max-width:100%;height:auto;border:1px solid #ddd}\n")
                 .append("figcaption{font-size:0.9em;color:#444;max-width:860px}\n.flag{color:#b22;font-weight:bold}\n")
                 .append("code{background:#f4f4f4;padding:0 0.2em}\n</style>\n</head>\n<body>\n");
         h.append("<h1>Campaign scores</h1>\n");
@@ -76,11 +76,12 @@ public final class HtmlReport {
                 .append(". Binomial intervals per instance at ").append(num(100 * o.confidence()))
                 .append(" % (Wilson and Clopper–Pearson) are in <code>instances.csv</code>.</li>\n</ul>\n");
 
-        h.append("<h2>Settings</h2>\n<table>\n<tr><th class=\"l\">setting</th><th>instances</th><th>solved</th>")
+        h.append("<h2>Settings</h2>\n<table>\n<tr><th>#</th><th class=\"l\">setting</th><th>instances</th><th>solved</th>")
                 .append("<th>TTS (µs)</th><th>inner band</th><th>outer band</th><th>p</th>")
                 .append("<th>inner band</th><th>outer band</th></tr>\n");
+        int number = 0;
         for (Map<String, Object> r : tables.settings()) {
-            h.append("<tr><td class=\"l\">").append(esc((String) r.get("setting"))).append("</td><td>")
+            h.append("<tr><td>").append(++number).append("</td><td class=\"l\">").append(esc((String) r.get("setting"))).append("</td><td>")
                     .append(r.get("instances")).append("</td><td>").append(r.get("solved_instances")).append("</td><td>")
                     .append(num((Double) r.get("tts_us"))).append("</td><td>")
                     .append(range(r, "tts_band_low_us", "tts_band_high_us")).append("</td><td>")
@@ -90,8 +91,24 @@ public final class HtmlReport {
                     .append(range(r, "p_success_outer_low", "p_success_outer_high")).append("</td></tr>\n");
         }
         h.append("</table>\n");
+        h.append("<h2>Figures</h2>\n<ol>\n");
+        for (Figure f : figures) {
+            h.append("<li><a href=\"#fig-").append(f.name()).append("\"><code>").append(f.name())
+                    .append("</code></a></li>\n");
+        }
+        h.append("</ol>\n");
         figure(h, figures, "tts");
         figure(h, figures, "success");
+        boolean campaign = figures.stream().anyMatch(f -> f.name().startsWith("pause-") || f.name().startsWith("heat-")
+                || f.name().startsWith("coupling-"));
+        if (campaign) {
+            h.append("<h2>Pause and chain coupling</h2>\n");
+            for (Figure f : figures) {
+                if (f.name().startsWith("pause-") || f.name().startsWith("heat-") || f.name().startsWith("coupling-")) {
+                    figure(h, figures, f.name());
+                }
+            }
+        }
 
         if (!tables.sweep().isEmpty()) {
             h.append("<h2>Best setting of the sweep over ").append(esc(String.join(" × ", inputs.sweep())))
@@ -168,7 +185,8 @@ public final class HtmlReport {
                         .append(it.gauges()).append("</td><td>").append(it.reads()).append("</td><td>")
                         .append(num(it.bias())).append("</td><td>").append(num(it.stdError())).append("</td><td>")
                         .append(num(it.z())).append("</td><td class=\"l\">")
-                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : "no").append("</td></tr>\n");
+                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : it.flipped() ? "no" : "not tested (never flipped)")
+                        .append("</td></tr>\n");
             }
             h.append("</table>\n");
         }
@@ -187,7 +205,8 @@ public final class HtmlReport {
                         .append("</td><td>").append(it.gauges()).append("</td><td>").append(it.reads()).append("</td><td>")
                         .append(num(it.bias())).append("</td><td>").append(num(it.stdError())).append("</td><td>")
                         .append(num(it.z())).append("</td><td class=\"l\">")
-                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : "no").append("</td></tr>\n");
+                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : it.flipped() ? "no" : "not tested (never flipped)")
+                        .append("</td></tr>\n");
             }
             h.append("</table>\n");
         }
@@ -236,7 +255,7 @@ public final class HtmlReport {
     private static void figure(StringBuilder h, List<Figure> figures, String name) {
         for (Figure f : figures) {
             if (f.name().equals(name)) {
-                h.append("<figure><img alt=\"").append(esc(f.caption())).append("\" src=\"data:image/png;base64,")
+                h.append("<figure id=\"fig-").append(f.name()).append("\"><img alt=\"").append(esc(f.caption())).append("\" src=\"data:image/png;base64,")
                         .append(Base64.getEncoder().encodeToString(f.png())).append("\">\n<figcaption>")
                         .append(esc(f.caption())).append(" <a href=\"plots/").append(f.name()).append(".svg\">SVG</a>")
                         .append("</figcaption></figure>\n");

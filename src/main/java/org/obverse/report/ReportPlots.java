@@ -6,12 +6,9 @@ import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import org.knowm.xchart.BoxChart;
-import org.knowm.xchart.BoxChartBuilder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
-import org.knowm.xchart.style.BoxStyler;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.obverse.io.ScoreFiles;
@@ -87,28 +84,19 @@ public final class ReportPlots {
         List<CampaignSummary.SettingRow> rows = summary.settings();
         double q = summary.options().quantile();
         XYChart chart = base("TTS (" + label(q) + " over instances) against " + axis.title(), axis, "TTS (µs)");
-        // A log axis labels only decades: use it only when the values span more than one and a half.
-        double lo = Double.POSITIVE_INFINITY;
-        double hi = 0;
+        List<double[]> all = new ArrayList<>();
         for (CampaignSummary.SettingRow r : rows) {
-            for (double v : new double[] {r.tts().headline(), r.tts().outer()[0], r.tts().outer()[1]}) {
-                if (Double.isFinite(v) && v > 0) {
-                    lo = Math.min(lo, v);
-                    hi = Math.max(hi, v);
-                }
-            }
+            all.add(new double[] {r.tts().headline(), r.tts().outer()[0], r.tts().outer()[1]});
         }
-        boolean log = hi / lo > 30;
-        chart.getStyler().setYAxisLogarithmic(log);
-        if (!log && hi > 0) {
-            chart.getStyler().setYAxisMin(0.0);
-        }
+        Charts.yRange(chart, all, true);
+        boolean log = chart.getStyler().isYAxisLogarithmic();
         int missing = addBanded(chart, axis, rows.size(), s -> rows.get(s).tts().headline(), s -> rows.get(s).tts().band(),
                 s -> rows.get(s).tts().outer(), log, band(summary.options().band()), band(summary.options().outerBand()));
         String note = missing > 0 ? " " + missing + " point(s) are infinite or undefined and not drawn." : "";
         return Figure.render("tts", "TTS at the " + pct(summary.options().target()) + " target, the " + label(q)
-                + " over instances of the pooled TTS, with the " + band(summary.options().band()) + " (solid) and "
-                + band(summary.options().outerBand()) + " (dashed) hierarchical bootstrap bands." + note, chart);
+                + " over instances of the pooled TTS (headline: median of the bootstrap replicates), with the "
+                + band(summary.options().band()) + " (darker) and " + band(summary.options().outerBand())
+                + " (lighter) bootstrap bands shaded. " + Charts.counts(summary) + note, chart);
     }
 
     /** Median success probability over instances against the setting, with bands. */
@@ -131,34 +119,70 @@ public final class ReportPlots {
         addBanded(chart, axis, rows.size(), s -> rows.get(s).p().headline(), s -> rows.get(s).p().band(),
                 s -> rows.get(s).p().outer(), false, band(summary.options().band()), band(summary.options().outerBand()));
         return Figure.render("success", "Success probability per read, the " + label(q)
-                + " over instances of the pooled estimate, with the " + band(summary.options().band()) + " (solid) and "
-                + band(summary.options().outerBand()) + " (dashed) bootstrap bands.", chart);
+                + " over instances of the pooled estimate (headline: median of the bootstrap replicates), with the "
+                + band(summary.options().band()) + " (darker) and " + band(summary.options().outerBand())
+                + " (lighter) bootstrap bands shaded. " + Charts.counts(summary), chart);
     }
 
-    /** Box plot of per-gauge success (every gauge of every instance) for each setting. */
+    /**
+     * Per-gauge success by setting as a strip plot: every gauge of every instance a dot (spread
+     * sideways by its rank so equal values stay visible), the median over gauges a bar, the
+     * quartiles a vertical line. Legible with many settings, unlike side-by-side boxes.
+     */
     public static Figure gaugeSpread(CampaignSummary summary) throws IOException {
         Campaign c = summary.campaign();
-        BoxChart chart = new BoxChartBuilder().width(WIDTH).height(HEIGHT)
-                .title("Per-gauge success probability by setting").xAxisTitle("setting")
-                .yAxisTitle("success probability of one gauge").build();
-        BoxStyler st = chart.getStyler();
-        st.setBoxplotCalCulationMethod(BoxStyler.BoxplotCalCulationMethod.N_LESS_1_PLUS_1);
-        st.setLegendVisible(false);
-        st.setChartBackgroundColor(Color.WHITE);
-        st.setToolTipsEnabled(false);
-        st.setYAxisMin(0.0);
-        st.setYAxisMax(1.0);
-        st.setSeriesColors(new Color[] {INNER});
-        for (int s = 0; s < c.settingCount(); s++) {
-            double[] v = CampaignScoring.gaugeSuccess(c, s);
-            if (v.length > 0) {
-                chart.addSeries(c.settings().get(s), v);
-            }
+        int n = c.settingCount();
+        double[] x = new double[n];
+        String[] labels = new String[n];
+        for (int s = 0; s < n; s++) {
+            x[s] = s + 1;
+            labels[s] = c.settings().get(s);
         }
-        return Figure.render("gauges", "Distribution of the success probability of single gauges (all gauges of all "
-                + "instances) per setting: box from the first to the third quartile, line at the median, whiskers to "
-                + "1.5 interquartile ranges. A pooled mean far above the median means a few lucky gauges carry it.",
-                chart);
+        XYChart chart = base("Per-gauge success probability by setting", new Axis("setting", x, labels, false),
+                "success probability of one gauge");
+        chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+        chart.getStyler().setMarkerSize(5);
+        List<Double> dx = new ArrayList<>();
+        List<Double> dy = new ArrayList<>();
+        List<Double> mx = new ArrayList<>();
+        List<Double> my = new ArrayList<>();
+        double top = 0;
+        for (int s = 0; s < n; s++) {
+            double[] v = CampaignScoring.gaugeSuccess(c, s);
+            if (v.length == 0) {
+                continue;
+            }
+            double[] sorted = v.clone();
+            java.util.Arrays.sort(sorted);
+            for (int k = 0; k < sorted.length; k++) {
+                dx.add(s + 1 + 0.5 * ((k + 0.5) / sorted.length - 0.5));
+                dy.add(sorted[k]);
+                top = Math.max(top, sorted[k]);
+            }
+            double[] q = org.obverse.stats.Quantiles.of(v, 0.25, 0.5, 0.75);
+            XYSeries iqr = chart.addSeries("quartiles " + s, new double[] {s + 1, s + 1}, new double[] {q[0], q[2]});
+            iqr.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+            iqr.setMarker(SeriesMarkers.NONE);
+            iqr.setLineColor(new Color(0, 0, 0, 110));
+            iqr.setLineStyle(new BasicStroke(3f));
+            iqr.setShowInLegend(false);
+            mx.add((double) s + 1);
+            my.add(q[1]);
+        }
+        if (!dx.isEmpty()) {
+            XYSeries dots = chart.addSeries("one gauge", dx, dy);
+            dots.setMarker(SeriesMarkers.CIRCLE);
+            dots.setMarkerColor(Charts.translucent(INNER, 120));
+            XYSeries med = chart.addSeries("median over gauges", mx, my);
+            med.setMarker(SeriesMarkers.DIAMOND);
+            med.setMarkerColor(FLAG);
+        }
+        chart.getStyler().setYAxisMin(0.0);
+        chart.getStyler().setYAxisMax(top > 0 ? Math.min(1.0, 1.08 * top) : 1.0);
+        return Figure.render("gauges", "Success probability of single gauges (every gauge of every instance, one dot "
+                + "each) per setting; diamond: median over gauges; grey line: first to third quartile. A pooled figure "
+                + "far above the median means a few lucky gauges carry it. Settings are numbered as in the settings table. "
+                + Charts.counts(summary), chart);
     }
 
     /** Instance-wise TTS of A against B on log axes, with the diagonal. */
@@ -196,14 +220,28 @@ public final class ReportPlots {
             lo = Math.min(lo, Math.min(ta[i], tb[i]));
             hi = Math.max(hi, Math.max(ta[i], tb[i]));
         }
-        XYChart chart = new XYChartBuilder().width(640).height(560).title("TTS per instance: " + a + " against " + b)
-                .xAxisTitle("TTS under " + b + " (µs)").yAxisTitle("TTS under " + a + " (µs)").build();
+        XYChart chart = new XYChartBuilder().width(760).height(660).title("TTS per instance")
+                .xAxisTitle("TTS, " + b + " (µs)").yAxisTitle("TTS, " + a + " (µs)").build();
         style(chart);
+        chart.getStyler().setLegendPosition(Styler.LegendPosition.InsideNW);
         chart.getStyler().setXAxisLogarithmic(true);
         chart.getStyler().setYAxisLogarithmic(true);
+        if (lo <= hi) {
+            // Whole decades on both axes, so each axis has at least two labelled ticks.
+            double d0 = Math.pow(10, Math.floor(Math.log10(lo)));
+            double d1 = Math.pow(10, Math.max(Math.ceil(Math.log10(hi)), Math.log10(d0) + 1));
+            chart.getStyler().setXAxisMin(d0);
+            chart.getStyler().setXAxisMax(d1);
+            chart.getStyler().setYAxisMin(d0);
+            chart.getStyler().setYAxisMax(d1);
+            chart.getStyler().setXAxisDecimalPattern("#,##0.###");
+            chart.getStyler().setYAxisDecimalPattern("#,##0.###");
+        }
         chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
         if (!xs.isEmpty()) {
-            XYSeries diag = chart.addSeries("equal TTS", new double[] {lo / 1.2, hi * 1.2}, new double[] {lo / 1.2, hi * 1.2});
+            double d0 = Math.pow(10, Math.floor(Math.log10(lo)));
+            double d1 = Math.pow(10, Math.max(Math.ceil(Math.log10(hi)), Math.log10(d0) + 1));
+            XYSeries diag = chart.addSeries("equal TTS", new double[] {d0, d1}, new double[] {d0, d1});
             diag.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
             diag.setMarker(SeriesMarkers.NONE);
             diag.setLineColor(Color.GRAY);
@@ -213,10 +251,11 @@ public final class ReportPlots {
             pts.setMarker(SeriesMarkers.CIRCLE);
         }
         String note = undrawn > 0 ? " " + undrawn + " instance(s) with an infinite TTS are not drawn." : "";
-        return Figure.render("compare-" + (index + 1), "Each point is one instance; below the diagonal " + a
+        return Figure.render("compare-" + (index + 1), "TTS per instance, " + a + " (y) against " + b + " (x), "
+                + "log axes. Each point is one instance; below the diagonal " + a
                 + " is faster. " + row.counts().faster() + " of " + row.counts().paired() + " instances improved, "
                 + row.counts().ties() + " tied; two-sided sign test p = " + String.format(Locale.ROOT, "%.3g",
-                row.counts().signTestP()) + "." + note, chart);
+                row.counts().signTestP()) + ". " + Charts.counts(summary) + note, chart);
     }
 
     /** The bias map: z-score of each qubit's gauge-averaged device-frame magnetisation. */
@@ -247,11 +286,24 @@ public final class ReportPlots {
         List<Double> fx = new ArrayList<>();
         List<Double> fz = new ArrayList<>();
         double zMax = result.threshold();
+        List<Double> ux = new ArrayList<>();
+        List<Double> uz = new ArrayList<>();
         for (BiasDiagnostics.Item it : result.items()) {
             double z = Double.isFinite(it.z()) ? it.z() : Math.copySign(1e3, it.z());
+            if (!it.flipped()) {
+                // Never flipped by a gauge (locked coupler, pinned qubit): not tested, drawn on the axis.
+                ux.add((double) qubitIds.get(it.item()));
+                uz.add(0.0);
+                continue;
+            }
             zMax = Math.max(zMax, Math.abs(z));
             (it.flagged() ? fx : qx).add((double) qubitIds.get(it.item()));
             (it.flagged() ? fz : qz).add(z);
+        }
+        if (!ux.isEmpty()) {
+            XYSeries s = chart.addSeries("never flipped, not tested", ux, uz);
+            s.setMarker(SeriesMarkers.TRIANGLE_UP);
+            s.setMarkerColor(Color.GRAY);
         }
         double x0 = qubitIds.isEmpty() ? 0 : qubitIds.get(0);
         double x1 = qubitIds.isEmpty() ? 1 : qubitIds.get(qubitIds.size() - 1);
@@ -281,7 +333,10 @@ public final class ReportPlots {
                 + "(the logical part flips sign with the gauge and cancels, a device bias does not), divided by its "
                 + "standard error. Dashed lines: |z| = " + String.format(Locale.ROOT, "%.2f", result.threshold())
                 + ", the Bonferroni threshold for a family-wise false-positive rate of " + result.alpha() + ". "
-                + result.flagged().size() + (couplers ? " coupler(s)" : " qubit(s)") + " flagged.", chart);
+                + result.flagged().size() + (couplers ? " coupler(s)" : " qubit(s)") + " flagged. " + ux.size()
+                + (couplers ? " coupler(s)" : " qubit(s)") + " that no gauge flipped (locked chain couplers, pinned "
+                + "qubits) are left out of the test and of the Bonferroni count: their logical part never changes "
+                + "sign, so it cannot be told from a device bias (grey triangles on the axis).", chart);
     }
 
     private interface Value {
@@ -327,13 +382,22 @@ public final class ReportPlots {
             java.util.Arrays.sort(order, (a, b) -> Double.compare(axis.x()[a], axis.x()[b]));
             Color[] c = GROUP_COLORS[gi % GROUP_COLORS.length];
             String prefix = g.isEmpty() ? "" : g + ": ";
-            series(chart, prefix + outerName, axis, order, s -> outer.at(s)[0], log, c[2], DASHED, false, true);
-            series(chart, prefix + outerName + " ", axis, order, s -> outer.at(s)[1], log, c[2], DASHED, false, false);
-            series(chart, prefix + innerName, axis, order, s -> inner.at(s)[0], log, c[1], THIN, false, true);
-            series(chart, prefix + innerName + " ", axis, order, s -> inner.at(s)[1], log, c[1], THIN, false, false);
+            shade(chart, prefix + outerName, axis, order, outer, log, Charts.translucent(c[1], 45));
+            shade(chart, prefix + innerName, axis, order, inner, log, Charts.translucent(c[1], 95));
             series(chart, prefix + "estimate", axis, order, mid, log, c[0], new BasicStroke(2.4f), true, true);
         }
         return missing;
+    }
+
+    private static void shade(XYChart chart, String name, Axis axis, Integer[] order, Pair band, boolean log,
+            Color fill) {
+        List<Double> xs = new ArrayList<>();
+        List<double[]> ys = new ArrayList<>();
+        for (int s : order) {
+            xs.add(axis.x()[s]);
+            ys.add(new double[] {Double.NaN, band.at(s)[0], band.at(s)[1]});
+        }
+        Charts.band(chart, name, xs, ys, log, fill);
     }
 
     private static void series(XYChart chart, String name, Axis axis, Integer[] order, Value v, boolean log,
@@ -363,34 +427,30 @@ public final class ReportPlots {
     }
 
     private static XYChart base(String title, Axis axis, String yTitle) {
-        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT).title(title).xAxisTitle(axis.title())
+        boolean categories = axis.title().equals("setting");
+        // Settings are numbered 1 … S on a plain numeric axis (its ticks are always labelled); the
+        // key is the # column of the settings table and the caption.
+        XYChart chart = new XYChartBuilder().width(WIDTH + 120).height(HEIGHT).title(title)
+                .xAxisTitle(categories ? "setting number (key: the # column of the settings table)" : axis.title())
                 .yAxisTitle(yTitle).build();
         style(chart);
         chart.getStyler().setXAxisLogarithmic(axis.logarithmic());
         double lo = java.util.Arrays.stream(axis.x()).min().orElse(0);
         double hi = java.util.Arrays.stream(axis.x()).max().orElse(1);
-        if (!axis.logarithmic()) {
+        if (categories) {
+            chart.getStyler().setXAxisDecimalPattern("0");
+            chart.getStyler().setXAxisMin(0.0);
+            chart.getStyler().setXAxisMax(axis.labels().length + 1.0);
+        } else if (!axis.logarithmic()) {
             double pad = hi > lo ? 0.08 * (hi - lo) : 0.5;
             chart.getStyler().setXAxisMin(lo - pad);
             chart.getStyler().setXAxisMax(hi + pad);
-        }
-        if (axis.title().equals("setting")) {
-            String[] labels = axis.labels();
-            chart.setCustomXAxisTickLabelsFormatter(x -> {
-                long k = Math.round(x);
-                return Math.abs(x - k) < 1e-9 && k >= 1 && k <= labels.length ? labels[(int) k - 1] : "";
-            });
         }
         return chart;
     }
 
     private static void style(XYChart chart) {
-        org.knowm.xchart.style.XYStyler st = chart.getStyler();
-        st.setChartBackgroundColor(Color.WHITE);
-        st.setLegendPosition(Styler.LegendPosition.OutsideE);
-        st.setToolTipsEnabled(false);
-        st.setPlotGridLinesColor(new Color(0xdd, 0xdd, 0xdd));
-        chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        Charts.style(chart);
     }
 
     private static String label(double q) {

@@ -20,9 +20,9 @@ public final class CampaignTables {
     /** What to lay out. */
     public record Plan(int instances, double[] couplings, double[] pauseS, double[] pauseUs, int gauges, int reads,
             double annealUs) {
-        /** The grid the report tests use: 5 instances, 3 couplings, 4 × 2 pauses and the baseline, 4 gauges × 50 reads. */
+        /** The grid the report tests use: 12 instances, 3 couplings, 4 × 2 pauses and the baseline, 4 gauges × 50 reads. */
         public static Plan standard() {
-            return new Plan(5, new double[] {-1.2, -1.6, -2.0}, new double[] {0.3, 0.4, 0.5, 0.6},
+            return new Plan(12, new double[] {-1.2, -1.6, -2.0}, new double[] {0.3, 0.4, 0.5, 0.6},
                     new double[] {1, 10}, 4, 50, 2);
         }
     }
