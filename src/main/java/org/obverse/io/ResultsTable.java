@@ -226,9 +226,12 @@ public final class ResultsTable {
         private final Writer out;
         private final int extras;
 
-        private RowWriter(Writer out, List<String> extraColumns) throws IOException {
+        private RowWriter(Writer out, List<String> extraColumns, boolean header) throws IOException {
             this.out = out;
             this.extras = extraColumns.size();
+            if (!header) {
+                return;
+            }
             StringBuilder h = new StringBuilder(String.join(",", COLUMNS));
             for (String e : extraColumns) {
                 if (COLUMNS.contains(e)) {
@@ -241,7 +244,12 @@ public final class ResultsTable {
 
         /** Starts a table with the header. */
         public static RowWriter start(Writer out, List<String> extraColumns) throws IOException {
-            return new RowWriter(out, extraColumns);
+            return new RowWriter(out, extraColumns, true);
+        }
+
+        /** Rows with these extra columns, without a header: a part of a table written elsewhere. */
+        public static RowWriter continuing(Writer out, List<String> extraColumns) throws IOException {
+            return new RowWriter(out, extraColumns, false);
         }
 
         /** One row; gauge −1 writes an empty gauge field; a NaN energy (a discarded read) an empty energy; count ≥ 1. */
