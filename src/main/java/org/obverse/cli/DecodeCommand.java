@@ -1,31 +1,16 @@
 package org.obverse.cli;
 
+import org.obverse.campaign.DecodeStep;
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import org.obverse.io.ResultsTable;
 import java.util.concurrent.Callable;
 import org.obverse.embed.ChainBreakRule;
-import org.obverse.embed.ChainDecoder;
-import org.obverse.embed.Chains;
 import org.obverse.embed.DecodedSamples;
-import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
-import org.obverse.io.ChainList;
-import org.obverse.io.ChainsCodec;
-import org.obverse.io.NpyVectors;
-import org.obverse.io.ProblemCodec;
 import org.obverse.io.SampleCoding;
-import org.obverse.io.SampleFiles;
-import org.obverse.io.SampleReader;
-import org.obverse.io.SampleWriter;
-import org.obverse.io.SampleFormat;
-import org.obverse.model.IsingProblem;
-import org.obverse.model.VariableIndex;
-import org.obverse.samples.SampleBlock;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -116,96 +101,22 @@ public final class DecodeCommand implements Callable<Integer> {
                 extraValues.add(c.substring(eq + 1));
             }
         }
-        AtomicOutput.checkTarget(out, force);
-        VariableIndex qubits = ProblemCodec.read(problem).variables();
-        IsingProblem q = ProblemCodec.read(logical).spin();
-        ChainList list = ChainsCodec.read(chains);
-        Chains c = Chains.of(list.logicalIds(), list.qubitGroups());
-        ChainDecoder decoder;
-        try {
-            decoder = ChainDecoder.of(q, c, qubits, r, seed);
-        } catch (IllegalArgumentException e) {
-            throw BadInputException.at(chains, "", e.getMessage(), "give the chains that " + problem + " was embedded with");
-        }
         SampleCoding coding = binary ? SampleCoding.BINARY : SampleCoding.SPIN;
-        SampleBlock physical;
-        try (SampleReader in = SampleFiles.open(samples, qubits, coding)) {
-            physical = in.readRemaining();
-        }
-        DecodedSamples d;
-        try {
-            d = decoder.decode(physical);
-        } catch (IllegalArgumentException e) {
-            throw BadInputException.at(samples, "", e.getMessage(), "");
-        }
-        Path logicalName = Path.of(SampleFormat.of(samples).fileName("logical"));
-        AtomicOutput.writeDirectory(out, force, dir -> {
-            try (SampleWriter w = SampleFiles.create(dir.resolve(logicalName), q.variables(), false, coding)) {
-                w.writeBlock(d.logical());
-                w.commit();
-            }
-            NpyVectors.writeBool(dir.resolve("kept.npy"), false, d.kept());
-            NpyVectors.writeInt32(dir.resolve("broken.npy"), false, d.brokenChains());
-            NpyVectors.writeFloat64(dir.resolve("energies.npy"), false, d.energies());
-            StringBuilder csv = new StringBuilder("logical_id,length,broken_reads,broken_fraction\n");
-            long[] breaks = d.breaksPerChain();
-            Chains used = c.restrictedTo(q.variables());
-            for (int k = 0; k < breaks.length; k++) {
-                csv.append(used.logicalId(k)).append(',').append(used.length(k)).append(',').append(breaks[k]).append(',')
-                        .append(d.reads() == 0 ? 0.0 : (double) breaks[k] / d.reads()).append('\n');
-            }
-            Files.writeString(dir.resolve("chains.csv"), csv);
-            if (instance != null) {
-                try (java.io.Writer out = Files.newBufferedWriter(dir.resolve("results.csv"))) {
-                    writeResults(ResultsTable.RowWriter.start(out, extraNames), d, extraValues.toArray(new String[0]));
-                }
-            }
-        });
+        DecodeStep.Labels labels = instance == null ? null
+                : new DecodeStep.Labels(instance, setting, gauge == null ? -1 : gauge, runUs, extraNames, extraValues);
+        DecodeStep.Result res = DecodeStep.run(new DecodeStep.Request(problem, logical, chains, samples, r, seed, coding,
+                out, labels, force));
+        DecodedSamples d = res.decoded();
         PrintWriter w = spec.commandLine().getOut();
         w.printf("%d reads, %d kept (%s); broken chains: %.6f of all chain readings, %.6f of reads have one%n", d.reads(),
                 d.keptReads(), r.label(), d.brokenFraction(), d.brokenReadFraction());
-        long[] breaks = d.breaksPerChain();
-        int worst = -1;
-        for (int k = 0; k < breaks.length; k++) {
-            if (worst < 0 || breaks[k] > breaks[worst]) {
-                worst = k;
-            }
-        }
-        if (worst >= 0 && breaks[worst] > 0) {
+        int worst = res.mostBroken();
+        if (worst >= 0) {
+            int id = res.logical().id(worst);
             w.printf("most broken: chain of logical %d (length %d), broken in %d reads%n",
-                    q.variables().id(worst), c.chainOf(q.variables().id(worst)).length, breaks[worst]);
+                    id, res.chains().chainOf(id).length, d.breaksPerChain()[worst]);
         }
         w.printf("wrote %s%n", out);
         return Main.DONE;
-    }
-
-    /**
-     * One row per distinct (energy, broken chains) among the kept reads, with its count, and one
-     * per broken-chain count among the discarded reads, with an empty energy (a failure).
-     */
-    private void writeResults(ResultsTable.RowWriter rows, DecodedSamples d, String[] extra) throws IOException {
-        boolean[] kept = d.kept();
-        int[] broken = d.brokenChains();
-        double[] energies = d.energies();
-        java.util.Map<String, long[]> keptCounts = new java.util.LinkedHashMap<>();
-        java.util.TreeMap<Long, long[]> droppedCounts = new java.util.TreeMap<>();
-        int e = 0;
-        for (int k = 0; k < kept.length; k++) {
-            if (kept[k]) {
-                // One slot per distinct (energy bits, broken chains), holding (bits, broken, count).
-                long bits = Double.doubleToLongBits(energies[e++]);
-                int b = broken[k];
-                keptCounts.computeIfAbsent(bits + "/" + b, x -> new long[] {bits, b, 0})[2]++;
-            } else {
-                droppedCounts.computeIfAbsent((long) broken[k], x -> new long[1])[0]++;
-            }
-        }
-        int g = gauge == null ? -1 : gauge;
-        for (long[] slot : keptCounts.values()) {
-            rows.row(instance, setting, g, Double.longBitsToDouble(slot[0]), slot[2], slot[1], runUs, extra);
-        }
-        for (java.util.Map.Entry<Long, long[]> x : droppedCounts.entrySet()) {
-            rows.row(instance, setting, g, Double.NaN, x.getValue()[0], x.getKey(), runUs, extra);
-        }
     }
 }
