@@ -302,16 +302,21 @@ public final class CampaignCollectStep {
                 }
             }
         }
-        ChainDecoder decoder = ChainDecoder.of(logical.problem(), logical.chains(), physical.variables(), rule,
-                StreamSeeds.derive(plan.seed(), CampaignPrepareStep.DECODE_SEED, index));
-        DecodedSamples d = decoder.decode(block);
+        ChainDecoder decoder = DecodeStep.decoder(logical.problem(), logical.chains(), physical.variables(), rule,
+                StreamSeeds.derive(plan.seed(), CampaignPrepareStep.DECODE_SEED, index),
+                folder.resolve(CampaignFolder.chainsFile(j.instance())), folder.resolve(j.problem()));
+        DecodedSamples d = DecodeStep.decode(decoder, block, raw);
         writeDecoded(folder, j, logical.problem(), d);
-        String[] extra = {"logical", Double.toString(j.chainCoupling()), JobTable.number(j.annealUs()),
-                JobTable.number(j.pauseS()), JobTable.number(j.pauseUs()), j.gauged() ? "yes" : "no", j.schedule(), j.id()};
+        List<String> extra = List.of("logical", Double.toString(j.chainCoupling()), JobTable.number(j.annealUs()),
+                JobTable.number(j.pauseS()), JobTable.number(j.pauseUs()), j.gauged() ? "yes" : "no", j.schedule(), j.id());
         java.io.StringWriter text = new java.io.StringWriter();
         ResultsTable.RowWriter rows = ResultsTable.RowWriter.continuing(text, EXTRA_COLUMNS);
-        double best = writeRows(rows, d, j.instance(), CampaignFolder.setting(j.chainCoupling(), j.schedule(), j.gauged()),
-                j.gauge(), j.runUs(), extra);
+        DecodeStep.writeRows(rows, new DecodeStep.Labels(j.instance(), CampaignFolder.setting(j.chainCoupling(),
+                j.schedule(), j.gauged()), j.gauge(), j.runUs(), EXTRA_COLUMNS, extra), d);
+        double best = Double.NaN;
+        for (double e : d.energies()) {
+            best = Double.isNaN(best) ? e : Math.min(best, e);
+        }
         return new Collected(text.toString(), null, d.reads(), best);
     }
 
@@ -329,40 +334,6 @@ public final class CampaignCollectStep {
         }
         NpyVectors.writeBool(dir.resolve(j.id() + ".kept.npy"), true, d.kept());
         NpyVectors.writeInt32(dir.resolve(j.id() + ".broken.npy"), true, d.brokenChains());
-    }
-
-    /**
-     * One row per distinct (energy, broken chains) among the kept reads, with its count, in order
-     * of first appearance, then one per broken-chain count among the discarded reads, with an
-     * empty energy (a read that gave no answer). Returns the least energy, NaN where none.
-     */
-    static double writeRows(ResultsTable.RowWriter rows, DecodedSamples d, String instance, String setting, int gauge,
-                            double runUs, String[] extra) throws IOException {
-        boolean[] kept = d.kept();
-        int[] broken = d.brokenChains();
-        double[] energies = d.energies();
-        Map<String, long[]> keptCounts = new LinkedHashMap<>();
-        TreeMap<Long, long[]> droppedCounts = new TreeMap<>();
-        double best = Double.NaN;
-        int e = 0;
-        for (int k = 0; k < kept.length; k++) {
-            if (kept[k]) {
-                double energy = energies[e++];
-                long bits = Double.doubleToLongBits(energy);
-                int b = broken[k];
-                keptCounts.computeIfAbsent(bits + "/" + b, x -> new long[] {bits, b, 0})[2]++;
-                best = Double.isNaN(best) ? energy : Math.min(best, energy);
-            } else {
-                droppedCounts.computeIfAbsent((long) broken[k], x -> new long[1])[0]++;
-            }
-        }
-        for (long[] slot : keptCounts.values()) {
-            rows.row(instance, setting, gauge, Double.longBitsToDouble(slot[0]), slot[2], slot[1], runUs, extra);
-        }
-        for (Map.Entry<Long, long[]> x : droppedCounts.entrySet()) {
-            rows.row(instance, setting, gauge, Double.NaN, x.getValue()[0], x.getKey(), runUs, extra);
-        }
-        return best;
     }
 
     /** Rewrites ground.csv with the best energy seen filled in where no ground energy was known. */

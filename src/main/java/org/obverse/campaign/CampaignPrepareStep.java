@@ -13,19 +13,13 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.IntConsumer;
-import org.apache.commons.rng.simple.RandomSource;
 import org.obverse.anneal.AnnealSchedule;
 import org.obverse.anneal.StreamSeeds;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.QubitGraph;
 import org.obverse.device.ValueRange;
-import org.obverse.embed.ChainEmbedder;
 import org.obverse.embed.ChainStrength;
 import org.obverse.embed.Chains;
-import org.obverse.embed.EmbeddedProblem;
-import org.obverse.embed.EmbeddingNotFoundException;
-import org.obverse.embed.FinderLimits;
-import org.obverse.embed.RerouteEmbeddingFinder;
 import org.obverse.gauge.GaugeDesign;
 import org.obverse.gauge.LockPolicy;
 import org.obverse.io.AtomicOutput;
@@ -34,6 +28,7 @@ import org.obverse.io.CampaignPlan;
 import org.obverse.io.CampaignPlanCodec;
 import org.obverse.io.ChainList;
 import org.obverse.io.ChainsCodec;
+import org.obverse.io.ContentHash;
 import org.obverse.io.DeviceCodec;
 import org.obverse.io.GaugeManifest;
 import org.obverse.io.JobTable;
@@ -154,7 +149,7 @@ public final class CampaignPrepareStep {
                     String physicalHash = ProblemCodec.contentHash(physical);
                     for (CampaignPlan.Schedule s : plan.schedules()) {
                         String schedFile = "schedules/" + s.name() + ".csv";
-                        String schedHash = sha256(Files.readAllBytes(dir.resolve(schedFile)));
+                        String schedHash = ContentHash.sha256(Files.readAllBytes(dir.resolve(schedFile)));
                         double run = schedules.get(s.name()).runTimeMicros();
                         for (GaugeManifest.Entry e : g.manifest().gauges()) {
                             jobs.add(job(plan, jobs.size(), inst.name(), couplings[v], s, run, true, e.index(),
@@ -274,14 +269,9 @@ public final class CampaignPrepareStep {
             Chains c = byStructure.get(key);
             if (c == null) {
                 int index = byStructure.size();
-                try {
-                    c = RerouteEmbeddingFinder.findBest(q, graph, new FinderLimits(FINDER_ROUNDS, 0), FINDER_TRIES,
-                            RandomSource.XO_RO_SHI_RO_128_PP.create(StreamSeeds.derive(plan.seed(), CHAINS_SEED, index)));
-                } catch (EmbeddingNotFoundException e) {
-                    throw BadInputException.at(plan.file(), "instances[" + k + "]", "no chains found for "
-                            + plan.instances().get(k).name() + " on " + plan.device().getFileName() + ": "
-                            + e.getMessage(), "give chains with \"chains\", or a larger device");
-                }
+                c = EmbedStep.findChains(q, graph, null, plan.device(), plan.instances().get(k).problem(),
+                        new EmbedStep.Search(EmbedStep.Finder.REROUTE, StreamSeeds.derive(plan.seed(), CHAINS_SEED, index),
+                                FINDER_ROUNDS, FINDER_TRIES, 0)).chains();
                 byStructure.put(key, c);
                 notes.add(String.format("chains for %s%s: found on %d qubits, longest chain %d", plan.instances().get(k)
                         .name(), byStructure.size() == 1 && logical.size() > 1 ? " (and every instance of the same "
@@ -308,22 +298,8 @@ public final class CampaignPrepareStep {
     private static ProblemFile embed(IsingProblem logical, Chains chains, DeviceLimits device, double coupling,
                                      String mode, Path chainsFile) {
         ChainStrength strength = new ChainStrength(coupling, ChainStrength.Mode.named(mode));
-        EmbeddedProblem ep;
-        try {
-            ep = ChainEmbedder.embed(logical, chains, device, strength);
-        } catch (IllegalArgumentException e) {
-            throw BadInputException.at(chainsFile, "", e.getMessage(), "fix the chains, or leave them out to have them found");
-        }
-        ObjectNode meta = JsonFiles.MAPPER.createObjectNode();
-        meta.put("scale", ep.scale());
-        meta.put("chain_coupling", coupling);
-        meta.put("chain_coupling_mode", strength.mode().label());
-        meta.put("chain_couplers", ep.chainCouplerCount());
-        meta.put("chain_energy", ep.chainEnergy());
-        meta.put("logical_offset", logical.offset());
-        meta.put("logical_variables", logical.size());
-        meta.put("longest_chain", ep.chains().maxLength());
-        return ProblemFile.of(ep.physical(), meta);
+        return EmbedStep.physicalFile(logical, EmbedStep.embed(logical, chains, device, strength, Double.NaN, chainsFile,
+                null));
     }
 
     /** Copies every named input into inputs/ and returns the plan with its paths pointing there. */
@@ -403,11 +379,4 @@ public final class CampaignPrepareStep {
                 scheduleFile, scheduleHash, CampaignFolder.RAW + "/" + id + ".npy");
     }
 
-    static String sha256(byte[] bytes) {
-        try {
-            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(bytes));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException(e);
-        }
-    }
 }

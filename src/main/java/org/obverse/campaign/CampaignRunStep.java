@@ -15,8 +15,6 @@ import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.IntConsumer;
 import org.obverse.anneal.AnnealSchedule;
-import org.obverse.anneal.ReferenceSampler;
-import org.obverse.anneal.SampledReads;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.io.BadInputException;
 import org.obverse.io.CampaignPlan;
@@ -24,12 +22,11 @@ import org.obverse.io.CampaignPlanCodec;
 import org.obverse.io.ControlErrorsCodec;
 import org.obverse.io.JobTable;
 import org.obverse.io.JsonFiles;
-import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.ProblemFile;
+import org.obverse.io.SampleCoding;
 import org.obverse.io.SampleFiles;
 import org.obverse.io.SampleReader;
-import org.obverse.io.SampleWriter;
 import org.obverse.io.ScheduleCodec;
 
 /**
@@ -135,8 +132,7 @@ public final class CampaignRunStep {
 
     /** {@code raw/j00001.npy} → {@code raw/j00001.energies.npy}. */
     static Path energiesOf(Path raw) {
-        String n = raw.getFileName().toString();
-        return raw.resolveSibling(n.substring(0, n.lastIndexOf('.')) + ".energies.npy");
+        return SampleStep.beside(raw, ".energies.npy");
     }
 
     private static SamplerSettings baseSettings(CampaignPlan plan) {
@@ -177,14 +173,9 @@ public final class CampaignRunStep {
                 futures.add(pool.submit(() -> {
                     ProblemFile pf = problems.computeIfAbsent(j.problem(), p -> ProblemCodec.read(folder.resolve(p)));
                     AnnealSchedule a = schedules.computeIfAbsent(j.scheduleFile(), f -> readSchedule(folder.resolve(f)));
-                    SampledReads s = ReferenceSampler.of(perJob.withSchedule(a)).sample(pf.spin(), j.reads(), j.seed());
-                    Path raw = folder.resolve(j.raw());
                     // Energies first, samples last: a job counts as done only once its samples file appears.
-                    NpyVectors.writeFloat64(energiesOf(raw), true, s.energies());
-                    try (SampleWriter w = SampleFiles.create(raw, s.variables(), true)) {
-                        w.writeBlock(s.samples());
-                        w.commit();
-                    }
+                    SampleStep.sampleInto(pf, perJob.withSchedule(a), j.reads(), j.seed(), folder.resolve(j.raw()),
+                            SampleCoding.SPIN, true);
                     if (tick != null) {
                         tick.accept(done.incrementAndGet());
                     }
