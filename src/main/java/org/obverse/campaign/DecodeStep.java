@@ -17,6 +17,7 @@ import org.obverse.embed.Chains;
 import org.obverse.embed.DecodedSamples;
 import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
+import org.obverse.io.EnergyFrame;
 import org.obverse.io.ChainList;
 import org.obverse.io.ChainsCodec;
 import org.obverse.io.GaugeManifest;
@@ -38,7 +39,7 @@ import org.obverse.samples.SampleBlock;
  * physical problem) into logical reads under a chain-break rule, and writes the output folder:
  * {@code logical.npy} (or {@code .csv}, as the input; kept reads), {@code kept.npy},
  * {@code broken.npy}, {@code energies.npy} (logical energies of the kept reads),
- * {@code chains.csv} (breaks per chain) and, with labels, {@code results.csv}.
+ * {@code chains.csv} (breaks per chain) and, with labels, {@code results.csv} (logical frame).
  *
  * <p>{@link #writeRows} turns decoded reads into results rows on any
  * {@link ResultsTable.RowWriter}, so a campaign can collect rows of many jobs into one table
@@ -242,7 +243,7 @@ public final class DecodeStep {
             Writer table = r.labels() == null ? null : Files.newBufferedWriter(dir.resolve(RESULTS));
             try {
                 ResultsTable.RowWriter rows = table == null ? null
-                        : ResultsTable.RowWriter.start(table, r.labels().extraNames());
+                        : ResultsTable.RowWriter.start(table, EnergyFrame.LOGICAL, r.labels().extraNames());
                 for (int i = 0; i < inputs.size(); i++) {
                     Path in = inputs.get(i);
                     if (in == null) {
@@ -291,7 +292,7 @@ public final class DecodeStep {
             writeFolder(dir, logicalName, q, c.restrictedTo(q.variables()), d, r.coding());
             if (r.labels() != null) {
                 try (Writer out = Files.newBufferedWriter(dir.resolve(RESULTS))) {
-                    writeRows(ResultsTable.RowWriter.start(out, r.labels().extraNames()), r.labels(), d);
+                    writeRows(ResultsTable.RowWriter.start(out, EnergyFrame.LOGICAL, r.labels().extraNames()), r.labels(), d);
                 }
             }
         });

@@ -172,9 +172,11 @@ public final class DecodeCommand implements Callable<Integer> {
         List<String> extraValues = new ArrayList<>();
         for (String c : columns) {
             int eq = c.indexOf('=');
-            if (eq <= 0 || ResultsTable.COLUMNS.contains(c.substring(0, eq)) || extraNames.contains(c.substring(0, eq))) {
+            String name = eq <= 0 ? "" : c.substring(0, eq);
+            if (eq <= 0 || ResultsTable.COLUMNS.contains(name) || name.equals(ResultsTable.FRAME)
+                    || extraNames.contains(name)) {
                 throw new BadInputException("--column " + c + " must be NAME=VALUE with a new NAME that is not one of "
-                        + ResultsTable.COLUMNS);
+                        + ResultsTable.COLUMNS + " or " + ResultsTable.FRAME);
             }
             extraNames.add(c.substring(0, eq));
             extraValues.add(c.substring(eq + 1));

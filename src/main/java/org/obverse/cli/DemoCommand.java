@@ -121,7 +121,7 @@ public final class DemoCommand implements Callable<Integer> {
 
         Path results = dir.resolve("results.csv");
         try (Writer rows = Files.newBufferedWriter(results, StandardCharsets.UTF_8)) {
-            rows.write("instance,setting,gauge,energy,count,broken,run_us,chain_coupling,gauged\n");
+            rows.write("instance,setting,gauge,energy,count,broken,run_us,energy_frame,chain_coupling,gauged\n");
             for (double v : CHAIN_COUPLINGS) {
                 String vs = String.format(Locale.ROOT, "%.1f", v);
                 headline("chain coupling " + vs + ": embed, gauge, sample, un-gauge, audit, decode");

@@ -61,7 +61,8 @@ class DecodeManifestCommandTest extends CommandTestSupport {
             String[] f = row.split(",", -1);
             perGauge[Integer.parseInt(f[2])] += Long.parseLong(f[4]);
             assertThat(f[6]).as(row).isEqualTo("3"); // run_us: anneal 2 us plus the 1 us pause
-            assertThat(f[7]).isEqualTo("yes");
+            assertThat(f[7]).isEqualTo("logical");
+            assertThat(f[8]).isEqualTo("yes");
         }
         assertThat(perGauge).containsExactly(90, 90, 90);
 
