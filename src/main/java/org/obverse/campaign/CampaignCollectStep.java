@@ -55,7 +55,7 @@ import org.obverse.samples.SpinFlip;
  */
 public final class CampaignCollectStep {
     /** Extra columns of the campaign's results table, after the fixed ones. */
-    public static final List<String> EXTRA_COLUMNS = List.of("energy_frame", "chain_coupling", "anneal_us", "pause_s",
+    public static final List<String> EXTRA_COLUMNS = List.of("chain_coupling", "anneal_us", "pause_s",
             "pause_us", "gauged", "schedule", "job");
 
     private CampaignCollectStep() {
@@ -161,11 +161,9 @@ public final class CampaignCollectStep {
             pool.shutdownNow();
         }
 
-        StringBuilder table = new StringBuilder(String.join(",", ResultsTable.COLUMNS));
-        for (String c : EXTRA_COLUMNS) {
-            table.append(',').append(c);
-        }
-        table.append('\n');
+        java.io.StringWriter header = new java.io.StringWriter();
+        ResultsTable.RowWriter.start(header, EXTRA_COLUMNS);
+        StringBuilder table = new StringBuilder(header.toString());
         List<String> failed = new ArrayList<>();
         int collected = 0;
         int missing = 0;
@@ -307,7 +305,7 @@ public final class CampaignCollectStep {
                 folder.resolve(CampaignFolder.chainsFile(j.instance())), folder.resolve(j.problem()));
         DecodedSamples d = DecodeStep.decode(decoder, block, raw);
         writeDecoded(folder, j, logical.problem(), d);
-        List<String> extra = List.of("logical", Double.toString(j.chainCoupling()), JobTable.number(j.annealUs()),
+        List<String> extra = List.of(Double.toString(j.chainCoupling()), JobTable.number(j.annealUs()),
                 JobTable.number(j.pauseS()), JobTable.number(j.pauseUs()), j.gauged() ? "yes" : "no", j.schedule(), j.id());
         java.io.StringWriter text = new java.io.StringWriter();
         ResultsTable.RowWriter rows = ResultsTable.RowWriter.continuing(text, EXTRA_COLUMNS);

@@ -4,20 +4,26 @@ import java.io.IOException;
 import java.io.Writer;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
+import java.util.function.IntConsumer;
+import org.obverse.anneal.StreamSeeds;
 import org.obverse.embed.ChainBreakRule;
 import org.obverse.embed.ChainDecoder;
 import org.obverse.embed.Chains;
 import org.obverse.embed.DecodedSamples;
 import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
+import org.obverse.io.EnergyFrame;
 import org.obverse.io.ChainList;
 import org.obverse.io.ChainsCodec;
+import org.obverse.io.GaugeManifest;
 import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
+import org.obverse.io.ProblemFile;
 import org.obverse.io.ResultsTable;
 import org.obverse.io.SampleCoding;
 import org.obverse.io.SampleFiles;
@@ -33,7 +39,7 @@ import org.obverse.samples.SampleBlock;
  * physical problem) into logical reads under a chain-break rule, and writes the output folder:
  * {@code logical.npy} (or {@code .csv}, as the input; kept reads), {@code kept.npy},
  * {@code broken.npy}, {@code energies.npy} (logical energies of the kept reads),
- * {@code chains.csv} (breaks per chain) and, with labels, {@code results.csv}.
+ * {@code chains.csv} (breaks per chain) and, with labels, {@code results.csv} (logical frame).
  *
  * <p>{@link #writeRows} turns decoded reads into results rows on any
  * {@link ResultsTable.RowWriter}, so a campaign can collect rows of many jobs into one table
@@ -78,6 +84,11 @@ public final class DecodeStep {
                 throw new IllegalArgumentException(extraNames.size() + " extra columns but " + extraValues.size()
                         + " values");
             }
+        }
+
+        /** The same labels for another gauge (−1 for none). */
+        public Labels withGauge(int g) {
+            return new Labels(instance, setting, g, runUs, extraNames, extraValues);
         }
 
         /** Labels without extra columns. */
@@ -126,6 +137,144 @@ public final class DecodeStep {
         }
     }
 
+    /**
+     * What to decode for every gauge of a manifest: the un-gauged reads of gauge i are
+     * {@code samples/<stem>.npy} (or {@code .csv}), in the source frame, as {@code ungauge}
+     * writes them.
+     *
+     * @param manifest     the gauges' manifest; its source problem is the physical problem
+     * @param samples      the folder of un-gauged reads
+     * @param logical      the logical problem
+     * @param chains       the chains, or null for the chains the manifest records
+     * @param rule         the chain-break rule
+     * @param seed         seed of the tie coins; gauge i uses {@link #gaugeSeed}(seed, i)
+     * @param coding       how samples are stored, in and out
+     * @param out          the output folder: {@code <stem>/} per gauge (the files of one decode)
+     *                     and, with labels, {@code results.csv} over all gauges
+     * @param labels       labels of the results rows (the gauge is set per gauge), or null
+     * @param allowMissing skip a gauge without reads instead of refusing
+     * @param force        replace an existing output folder
+     * @param progress     reports gauges decoded
+     */
+    public record ManifestRequest(Path manifest, Path samples, Path logical, Path chains, ChainBreakRule rule, long seed,
+                                  SampleCoding coding, Path out, Labels labels, boolean allowMissing, boolean force,
+                                  StepProgress progress) {
+        public ManifestRequest {
+            if (progress == null) {
+                progress = StepProgress.NONE;
+            }
+        }
+    }
+
+    /** One decoded gauge. */
+    public record GaugeDone(int gauge, Path input, Path folder, DecodedSamples decoded) {
+    }
+
+    /**
+     * What was decoded for a manifest.
+     *
+     * @param done    the decoded gauges in index order
+     * @param missing gauges skipped for want of reads
+     * @param results the results table, or null
+     */
+    public record ManifestResult(List<GaugeDone> done, List<Integer> missing, Path results) {
+    }
+
+    /** The tie-coin seed of gauge {@code index}, derived from the run's seed. */
+    public static long gaugeSeed(long seed, int index) {
+        return StreamSeeds.derive(seed, StreamSeeds.GAUGES, index);
+    }
+
+    /** Decodes the un-gauged reads of every gauge of a manifest into one folder. */
+    public static ManifestResult runManifest(ManifestRequest r) throws IOException {
+        AtomicOutput.checkTarget(r.out(), r.force());
+        SourceFiles src = new SourceFiles(r.manifest());
+        GaugeManifest m = src.manifest;
+        Path problemPath = src.resolve(m.problem());
+        ProblemFile pf = src.problem();
+        SourceFiles.requireHash(problemPath, ProblemCodec.contentHash(pf), m.problem().sha256(), "source problem");
+        VariableIndex qubits = pf.variables();
+        IsingProblem q = ProblemCodec.read(r.logical()).spin();
+        Path chainsFile = r.chains();
+        ChainList list;
+        if (chainsFile == null) {
+            if (m.chains() == null) {
+                throw BadInputException.at(r.manifest(), "chains", "records no chains (the gauges were drawn without them)",
+                        "give the chains the source problem was embedded with");
+            }
+            chainsFile = src.resolve(m.chains());
+            list = ChainsCodec.read(chainsFile);
+            SourceFiles.requireHash(chainsFile, ChainsCodec.contentHash(list), m.chains().sha256(), "chains");
+        } else {
+            list = ChainsCodec.read(chainsFile);
+        }
+        Chains c = Chains.of(list.logicalIds(), list.qubitGroups());
+        decoder(q, c, qubits, r.rule(), r.seed(), chainsFile, problemPath);
+        if (!Files.isDirectory(r.samples())) {
+            throw BadInputException.at(r.samples(), "", "is not a folder", "give the folder of un-gauged reads");
+        }
+        List<Path> inputs = new ArrayList<>();
+        List<Integer> missing = new ArrayList<>();
+        for (GaugeManifest.Entry e : m.gauges()) {
+            Path npy = r.samples().resolve(SampleFormat.NPY.fileName(e.stem()));
+            Path csv = r.samples().resolve(SampleFormat.CSV.fileName(e.stem()));
+            boolean hasNpy = Files.exists(npy);
+            boolean hasCsv = Files.exists(csv);
+            if (hasNpy && hasCsv) {
+                throw BadInputException.at(r.samples(), e.stem(), "both " + npy.getFileName() + " and "
+                        + csv.getFileName() + " exist", "keep one samples file per gauge");
+            }
+            if (!hasNpy && !hasCsv) {
+                if (!r.allowMissing()) {
+                    throw BadInputException.at(r.samples(), "", "no un-gauged reads for gauge " + e.index()
+                            + " (expected " + npy.getFileName() + " or " + csv.getFileName() + ")",
+                            "un-gauge its raw samples first, or allow missing gauges if it was not run");
+                }
+                missing.add(e.index());
+                inputs.add(null);
+            } else {
+                inputs.add(hasNpy ? npy : csv);
+            }
+        }
+        Chains used = c.restrictedTo(q.variables());
+        List<GaugeDone> done = new ArrayList<>();
+        IntConsumer tick = r.progress().start("decode", m.gauges().size() - missing.size(), 0);
+        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+            Writer table = r.labels() == null ? null : Files.newBufferedWriter(dir.resolve(RESULTS));
+            try {
+                ResultsTable.RowWriter rows = table == null ? null
+                        : ResultsTable.RowWriter.start(table, EnergyFrame.LOGICAL, r.labels().extraNames());
+                for (int i = 0; i < inputs.size(); i++) {
+                    Path in = inputs.get(i);
+                    if (in == null) {
+                        continue;
+                    }
+                    GaugeManifest.Entry e = m.gauges().get(i);
+                    ChainDecoder decoder = ChainDecoder.of(q, c, qubits, r.rule(), gaugeSeed(r.seed(), e.index()));
+                    SampleBlock physical;
+                    try (SampleReader reader = SampleFiles.open(in, qubits, r.coding())) {
+                        physical = reader.readRemaining();
+                    }
+                    DecodedSamples d = decode(decoder, physical, in);
+                    Path sub = Files.createDirectory(dir.resolve(e.stem()));
+                    writeFolder(sub, Path.of(SampleFormat.of(in).fileName("logical")), q, used, d, r.coding());
+                    if (rows != null) {
+                        writeRows(rows, r.labels().withGauge(e.index()), d);
+                    }
+                    done.add(new GaugeDone(e.index(), in, r.out().resolve(e.stem()), d));
+                    if (tick != null) {
+                        tick.accept(done.size());
+                    }
+                }
+            } finally {
+                if (table != null) {
+                    table.close();
+                }
+            }
+        });
+        return new ManifestResult(done, missing, r.labels() == null ? null : r.out().resolve(RESULTS));
+    }
+
     public static Result run(Request r) throws IOException {
         AtomicOutput.checkTarget(r.out(), r.force());
         VariableIndex qubits = ProblemCodec.read(r.problem()).variables();
@@ -140,21 +289,27 @@ public final class DecodeStep {
         DecodedSamples d = decode(decoder, physical, r.samples());
         Path logicalName = Path.of(SampleFormat.of(r.samples()).fileName("logical"));
         AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
-            try (SampleWriter w = SampleFiles.create(dir.resolve(logicalName), q.variables(), false, r.coding())) {
-                w.writeBlock(d.logical());
-                w.commit();
-            }
-            NpyVectors.writeBool(dir.resolve(KEPT), false, d.kept());
-            NpyVectors.writeInt32(dir.resolve(BROKEN), false, d.brokenChains());
-            NpyVectors.writeFloat64(dir.resolve(ENERGIES), false, d.energies());
-            Files.writeString(dir.resolve(CHAINS), chainsTable(d, c.restrictedTo(q.variables())));
+            writeFolder(dir, logicalName, q, c.restrictedTo(q.variables()), d, r.coding());
             if (r.labels() != null) {
                 try (Writer out = Files.newBufferedWriter(dir.resolve(RESULTS))) {
-                    writeRows(ResultsTable.RowWriter.start(out, r.labels().extraNames()), r.labels(), d);
+                    writeRows(ResultsTable.RowWriter.start(out, EnergyFrame.LOGICAL, r.labels().extraNames()), r.labels(), d);
                 }
             }
         });
         return new Result(d, q.variables(), c, r.out());
+    }
+
+    /** The files of one decoded file of reads, into an existing folder. */
+    private static void writeFolder(Path dir, Path logicalName, IsingProblem q, Chains used, DecodedSamples d,
+                                    SampleCoding coding) throws IOException {
+        try (SampleWriter w = SampleFiles.create(dir.resolve(logicalName), q.variables(), false, coding)) {
+            w.writeBlock(d.logical());
+            w.commit();
+        }
+        NpyVectors.writeBool(dir.resolve(KEPT), false, d.kept());
+        NpyVectors.writeInt32(dir.resolve(BROKEN), false, d.brokenChains());
+        NpyVectors.writeFloat64(dir.resolve(ENERGIES), false, d.energies());
+        Files.writeString(dir.resolve(CHAINS), chainsTable(d, used));
     }
 
     /**

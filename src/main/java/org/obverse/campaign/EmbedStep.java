@@ -4,6 +4,7 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
+import java.util.List;
 import org.apache.commons.rng.simple.RandomSource;
 import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
@@ -38,6 +39,9 @@ import org.obverse.model.IsingProblem;
  * chain coupling.
  */
 public final class EmbedStep {
+    /** Meta keys that mark a problem as the physical problem of an embedding. */
+    public static final List<String> EMBEDDING_META = List.of("chain_coupling", "chain_couplers", "chain_energy");
+
     private EmbedStep() {
     }
 

@@ -15,6 +15,7 @@ import org.obverse.anneal.SamplerSettings;
 import org.obverse.anneal.StreamSeeds;
 import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
+import org.obverse.io.EnergyFrame;
 import org.obverse.io.GaugeManifest;
 import org.obverse.io.ManifestCodec;
 import org.obverse.io.NpyVectors;
@@ -31,7 +32,8 @@ import org.obverse.io.SampleWriter;
  * {@code OUT} (.npy or .csv) and {@code <stem>.energies.npy} beside it, or every gauged problem
  * of a manifest into a fresh folder ({@code <stem>.npy}, {@code <stem>.energies.npy}), gauge i
  * with the seed {@link #gaugeSeed}. Optionally also the results table of the reads (one row per
- * distinct energy). Energies are those of the sampled problem's spin form, bit for bit.
+ * distinct energy), in the frame {@link #frameOf} says. Energies are those of the sampled
+ * problem's spin form, bit for bit.
  *
  * <p>{@link #sampleInto} samples one problem already in memory into one target file, the call
  * a campaign makes per job.
@@ -105,7 +107,23 @@ public final class SampleStep {
      * @param done    one entry per sampled problem, in gauge order
      * @param results the results table written, or null
      */
-    public record Result(List<Done> done, Path results) {
+    public record Result(List<Done> done, Path results, EnergyFrame frame) {
+    }
+
+    /**
+     * The frame of a sampled problem's energies: physical where its meta records an embedding
+     * (the keys {@code embed} writes, which a gauged problem keeps), logical otherwise (a problem
+     * sampled directly is its own logical problem).
+     */
+    public static EnergyFrame frameOf(ProblemFile problem) {
+        if (problem.meta() != null) {
+            for (String key : EmbedStep.EMBEDDING_META) {
+                if (problem.meta().has(key)) {
+                    return EnergyFrame.PHYSICAL;
+                }
+            }
+        }
+        return EnergyFrame.LOGICAL;
     }
 
     /** The seed gauge {@code index} of a manifest is sampled with, derived from the run's seed. */
@@ -136,10 +154,10 @@ public final class SampleStep {
         NpyVectors.writeFloat64(energiesFile, r.force(), s.energies());
         if (resultsFile != null) {
             StringWriter table = new StringWriter();
-            writeRows(ResultsTable.RowWriter.start(table, List.of()), r.labels(), -1, runUs, s.energies());
+            writeRows(ResultsTable.RowWriter.start(table, frameOf(pf), List.of()), r.labels(), -1, runUs, s.energies());
             AtomicOutput.writeText(resultsFile, r.force(), table.toString());
         }
-        return new Result(List.of(done(-1, r.out(), energiesFile, s)), resultsFile);
+        return new Result(List.of(done(-1, r.out(), energiesFile, s)), resultsFile, frameOf(pf));
     }
 
     private static Result manifest(Request r, ReferenceSampler sampler, double runUs) throws IOException {
@@ -147,7 +165,8 @@ public final class SampleStep {
         Path folder = r.manifest().toAbsolutePath().getParent();
         List<Done> done = new ArrayList<>();
         StringWriter table = new StringWriter();
-        ResultsTable.RowWriter rows = r.labels() == null ? null : ResultsTable.RowWriter.start(table, List.of());
+        ResultsTable.RowWriter[] rows = new ResultsTable.RowWriter[1];
+        EnergyFrame[] frame = new EnergyFrame[1];
         IntConsumer tick = r.progress().start("sample", m.gauges().size(),
                 (long) m.gauges().size() * r.reads() * r.settings().sweeps());
         AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
@@ -161,24 +180,32 @@ public final class SampleStep {
                             + "…, the manifest records " + e.sha256().substring(0, 12) + "…)",
                             "restore the file or draw the gauges again");
                 }
+                EnergyFrame f = frameOf(pf);
+                if (frame[0] == null) {
+                    frame[0] = f;
+                    rows[0] = r.labels() == null ? null : ResultsTable.RowWriter.start(table, f, List.of());
+                } else if (frame[0] != f) {
+                    throw BadInputException.at(file, "meta", "records no embedding while other gauged problems of "
+                            + r.manifest() + " do", "draw the gauges again from one source problem");
+                }
                 SampledReads s = sampler.sample(pf.spin(), r.reads(), gaugeSeed(r.seed(), e.index()));
                 Path samples = dir.resolve(SampleFormat.NPY.fileName(e.stem()));
                 Path energies = dir.resolve(e.stem() + ".energies.npy");
                 writeSamples(samples, s, false, r.coding());
                 NpyVectors.writeFloat64(energies, false, s.energies());
                 done.add(done(e.index(), r.out().resolve(samples.getFileName()), r.out().resolve(energies.getFileName()), s));
-                if (rows != null) {
-                    writeRows(rows, r.labels(), e.index(), runUs, s.energies());
+                if (rows[0] != null) {
+                    writeRows(rows[0], r.labels(), e.index(), runUs, s.energies());
                 }
                 if (tick != null) {
                     tick.accept(done.size());
                 }
             }
-            if (rows != null) {
+            if (rows[0] != null) {
                 Files.writeString(dir.resolve(RESULTS), table.toString());
             }
         });
-        return new Result(done, rows == null ? null : r.out().resolve(RESULTS));
+        return new Result(done, rows[0] == null ? null : r.out().resolve(RESULTS), frame[0]);
     }
 
     /**

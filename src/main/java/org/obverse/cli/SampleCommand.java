@@ -8,6 +8,7 @@ import org.obverse.anneal.AnnealSchedule;
 import org.obverse.anneal.ControlErrors;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.io.BadInputException;
+import org.obverse.io.EnergyFrame;
 import org.obverse.io.ControlErrorsCodec;
 import org.obverse.io.SampleCoding;
 import org.obverse.io.ScheduleCodec;
@@ -76,8 +77,9 @@ public final class SampleCommand implements Callable<Integer> {
 
     @Option(names = "--instance", paramLabel = "NAME",
             description = "also write the results table (spec/results.md) of the reads, for this instance: OUT's stem + "
-                    + ".results.csv with --problem, OUT/results.csv with --manifest. Energies are the sampled problem's "
-                    + "(for an embedded problem, decode --instance gives logical ones).")
+                    + ".results.csv with --problem, OUT/results.csv with --manifest. Energies are the sampled problem's: "
+                    + "energy_frame physical for an embedded problem (decode --instance gives logical ones), logical "
+                    + "otherwise; run_us is the schedule's run time.")
     String instance;
 
     @Option(names = "--setting", paramLabel = "LABEL", description = "the setting label of the results rows (with --instance)")
@@ -98,6 +100,10 @@ public final class SampleCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         SampleStep.Result r = SampleStep.run(new SampleStep.Request(input.problem, input.manifest, settings, reads, seed,
                 out, coding, labels, force, (phase, total, work) -> Progress.of(err, phase, total, work, false)));
+        if (r.results() != null && r.frame() == EnergyFrame.PHYSICAL) {
+            w.printf("the results rows hold physical energies (the problem records an embedding): energy_frame physical;"
+                    + " decode --instance gives logical ones%n");
+        }
         if (input.problem != null) {
             SampleStep.Done s = r.done().get(0);
             w.printf("sampled %d reads of %d variables (%d sweeps, %s us a read), minimum energy %s%n", s.reads(),

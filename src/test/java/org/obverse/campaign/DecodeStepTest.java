@@ -54,8 +54,8 @@ class DecodeStepTest extends QuietTest {
         // Chain a breaks in two reads, chain b in one: a is the most broken.
         assertThat(r.mostBroken()).isEqualTo(0);
         List<String> rows = Files.readAllLines(dir.resolve("out/results.csv"));
-        assertThat(rows.subList(1, rows.size())).containsExactly("tiny,V=-2,3,-1,1,0,2.5,-2", "tiny,V=-2,3,1,1,0,2.5,-2",
-                "tiny,V=-2,3,,1,1,2.5,-2", "tiny,V=-2,3,,1,2,2.5,-2");
+        assertThat(rows.subList(1, rows.size())).containsExactly("tiny,V=-2,3,-1,1,0,2.5,logical,-2",
+                "tiny,V=-2,3,1,1,0,2.5,logical,-2", "tiny,V=-2,3,,1,1,2.5,logical,-2", "tiny,V=-2,3,,1,2,2.5,logical,-2");
         assertThat(Files.readString(dir.resolve("out/chains.csv")))
                 .isEqualTo("logical_id,length,broken_reads,broken_fraction\n0,2,2,0.5\n1,2,1,0.25\n");
 
