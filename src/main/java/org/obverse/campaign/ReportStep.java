@@ -34,8 +34,8 @@ public final class ReportStep {
     /**
      * What to report. magnetisation, correlations and series may be null; alpha is the
      * family-wise false-positive rate of the bias flags; balanced says every qubit (coupler) is
-     * flipped in exactly half of the gauges; series names an extra column of the results table
-     * whose values become one line each in the setting plots.
+     * flipped in exactly half of the gauges; series names extra columns of the results table
+     * (comma separated) whose combined values become one line each in the setting plots.
      */
     public record Request(ScoreStep.Request scoring, Path magnetisation, Path correlations, double alpha,
                           boolean balanced, String series, Path out, boolean force) {
@@ -121,17 +121,21 @@ public final class ReportStep {
         return new Result(scored, r.out().resolve(PAGE), figures.size(), bias, couplerBias);
     }
 
-    /** The value of column name for each setting, as "name = value". */
-    private static String[] groups(Path results, ScoreStep.Result scored, String name) {
-        Map<String, String> column = scored.loaded().settingValues().get(name);
-        if (column == null) {
-            throw BadInputException.at(results, "--series " + name, "is not an extra column of the table, or it "
-                    + "takes more than one value within a setting", "name a column that is constant within each setting");
-        }
+    /** For each setting, its values of the named columns (comma separated), as "name = value, …". */
+    private static String[] groups(Path results, ScoreStep.Result scored, String names) {
         List<String> settings = scored.summary().campaign().settings();
         String[] out = new String[settings.size()];
-        for (int s = 0; s < out.length; s++) {
-            out[s] = name + " = " + column.get(settings.get(s));
+        java.util.Arrays.fill(out, "");
+        for (String name : names.split(",")) {
+            String n = name.trim();
+            Map<String, String> column = scored.loaded().settingValues().get(n);
+            if (column == null || settings.stream().anyMatch(s -> column.get(s) == null)) {
+                throw BadInputException.at(results, "--series " + n, "is not an extra column of the table, or it "
+                        + "takes more than one value within a setting", "name a column that is constant within each setting");
+            }
+            for (int s = 0; s < out.length; s++) {
+                out[s] += (out[s].isEmpty() ? "" : ", ") + n + " = " + column.get(settings.get(s));
+            }
         }
         return out;
     }
