@@ -7,7 +7,11 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import com.fasterxml.jackson.databind.JsonNode;
+import org.obverse.device.CellLattice;
 import org.obverse.io.AtomicOutput;
+import org.obverse.io.DeviceCodec;
+import org.obverse.io.JsonFiles;
 import org.obverse.io.BadInputException;
 import org.obverse.io.MagnetisationTable;
 import org.obverse.io.ScoreFiles;
@@ -38,7 +42,13 @@ public final class ReportStep {
      * (comma separated) whose combined values become one line each in the setting plots.
      */
     public record Request(ScoreStep.Request scoring, Path magnetisation, Path correlations, double alpha,
-                          boolean balanced, String series, Path out, boolean force) {
+                          boolean balanced, String series, Path out, boolean force, Path device) {
+        /** Without a device file (the bias map is drawn by qubit id). */
+        public Request(ScoreStep.Request scoring, Path magnetisation, Path correlations, double alpha,
+                       boolean balanced, String series, Path out, boolean force) {
+            this(scoring, magnetisation, correlations, alpha, balanced, series, out, force, null);
+        }
+
         public Request {
             Objects.requireNonNull(scoring, "scoring");
             Objects.requireNonNull(out, "out");
@@ -96,7 +106,8 @@ public final class ReportStep {
             figures.add(ReportPlots.comparison(scored.summary(), k));
         }
         if (bias != null) {
-            figures.add(ReportPlots.biasMap(bias, qubits));
+            CellLattice lattice = r.device() == null ? null : lattice(r.device());
+            figures.add(lattice == null ? ReportPlots.biasMap(bias, qubits) : ReportPlots.biasGrid(bias, qubits, lattice));
         }
         if (couplerBias != null) {
             figures.add(ReportPlots.couplerMap(couplerBias, couplers.size()));
@@ -119,6 +130,15 @@ public final class ReportStep {
             Files.writeString(dir.resolve("scores.json"), json);
         });
         return new Result(scored, r.out().resolve(PAGE), figures.size(), bias, couplerBias);
+    }
+
+    /** The cell lattice a device file records under meta.lattice (written by 'device lattice'), or null. */
+    private static CellLattice lattice(Path device) {
+        JsonNode shape = JsonFiles.read(device, DeviceCodec.KIND).path("meta").path("lattice");
+        if (!shape.path("rows").isInt() || !shape.path("cols").isInt() || !shape.path("shore").isInt()) {
+            return null;
+        }
+        return CellLattice.of(shape.get("rows").asInt(), shape.get("cols").asInt(), shape.get("shore").asInt());
     }
 
     /** For each setting, its values of the named columns (comma separated), as "name = value, …". */

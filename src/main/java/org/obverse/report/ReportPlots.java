@@ -11,6 +11,7 @@ import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
+import org.obverse.device.CellLattice;
 import org.obverse.io.ScoreFiles;
 import org.obverse.stats.BiasDiagnostics;
 import org.obverse.stats.Campaign;
@@ -261,6 +262,67 @@ public final class ReportPlots {
     /** The bias map: z-score of each qubit's gauge-averaged device-frame magnetisation. */
     public static Figure biasMap(BiasDiagnostics.Result result, List<Integer> qubitIds) throws IOException {
         return biasMap(result, qubitIds, false);
+    }
+
+    /**
+     * The bias map on a cell lattice: each qubit at its cell-grid position (cell column and row;
+     * inside a cell the vertical side's qubits left, the horizontal side's right), tested qubits
+     * coloured by the sign of z and sized by |z|, flagged ones marked, never-flipped ones grey.
+     */
+    public static Figure biasGrid(BiasDiagnostics.Result result, List<Integer> qubitIds, CellLattice lattice)
+            throws IOException {
+        int t = lattice.shore();
+        int width = Math.max(WIDTH, 80 + lattice.cols() * (2 * t + 1) * 22);
+        int height = Math.max(420, 120 + lattice.rows() * 70);
+        XYChart chart = new XYChartBuilder().width(width).height(height)
+                .title("Device-frame magnetisation averaged over gauges, by cell").xAxisTitle("cell column")
+                .yAxisTitle("− cell row (row 0 at the top)").build();
+        style(chart);
+        chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+        List<List<Double>> xs = new ArrayList<>();
+        List<List<Double>> ys = new ArrayList<>();
+        String[] names = {"z > 0", "z < 0", "flagged", "never flipped, not tested"};
+        for (int k = 0; k < names.length; k++) {
+            xs.add(new ArrayList<>());
+            ys.add(new ArrayList<>());
+        }
+        int outside = 0;
+        for (BiasDiagnostics.Item it : result.items()) {
+            int q = qubitIds.get(it.item());
+            if (q < 0 || q >= lattice.qubitCount()) {
+                outside++;
+                continue;
+            }
+            // Cell (row, col) spans [col, col + 0.8]; its 2t qubits spread evenly inside.
+            double x = lattice.colOf(q) + 0.8 * (lattice.sideOf(q) * t + lattice.indexOf(q)) / Math.max(1, 2 * t - 1);
+            double y = -lattice.rowOf(q) - 0.15 * lattice.sideOf(q);
+            int k = !it.flipped() ? 3 : it.flagged() ? 2 : it.z() >= 0 ? 0 : 1;
+            xs.get(k).add(x);
+            ys.get(k).add(y);
+        }
+        Color[] colors = {MAIN, new Color(0xe0, 0x86, 0x3c), FLAG, Color.GRAY};
+        for (int k = 0; k < names.length; k++) {
+            if (!xs.get(k).isEmpty()) {
+                XYSeries s = chart.addSeries(names[k], xs.get(k), ys.get(k));
+                s.setMarkerColor(colors[k]);
+                s.setMarker(k == 2 ? SeriesMarkers.DIAMOND : k == 3 ? SeriesMarkers.TRIANGLE_UP : SeriesMarkers.CIRCLE);
+            }
+        }
+        chart.getStyler().setXAxisMin(-0.3);
+        chart.getStyler().setXAxisMax(lattice.cols() + 0.1);
+        chart.getStyler().setYAxisMin(-lattice.rows() + 0.5);
+        chart.getStyler().setYAxisMax(0.5);
+        chart.getStyler().setXAxisDecimalPattern("0");
+        chart.getStyler().setYAxisDecimalPattern("0");
+        long untested = result.items().stream().filter(i -> !i.flipped()).count();
+        return Figure.render("bias", "Each point is a qubit at its place in the " + lattice.rows() + " × "
+                + lattice.cols() + " cell lattice (within a cell: the vertical side's " + t + " qubits on the upper "
+                + "row, the horizontal side's on the lower, left to right), coloured by the sign of z = bias / standard "
+                + "error of its gauge-averaged device-frame magnetisation. " + result.flagged().size() + " qubit(s) "
+                + "flagged at |z| > " + String.format(Locale.ROOT, "%.2f", result.threshold()) + " (Bonferroni, "
+                + "family-wise false-positive rate " + result.alpha() + "); " + untested + " qubit(s) that no gauge "
+                + "flipped (pinned) are left out of the test (grey)." + (outside > 0 ? " " + outside
+                + " qubit id(s) outside the lattice are not drawn." : ""), chart);
     }
 
     /** The coupler map: z-score of each coupler's gauge-averaged device-frame correlation (x: coupler number). */

@@ -58,4 +58,39 @@ class CampaignReportTest extends QuietTest {
         assertThat(out.resolve("baseline.csv")).exists();
         assertThat(out.resolve("sweep.csv")).exists();
     }
+
+    @Test
+    void theBiasMapOfACellLatticeLeavesPinnedQubitsUntested() throws Exception {
+        Path camp = dir.resolve("camp");
+        CampaignTables.write(camp, new CampaignTables.Plan(3, new double[] {-1.6}, new double[] {0.4},
+                new double[] {1}, 2, 20, 2), Seeds.rng(42));
+        Path device = dir.resolve("device.json");
+        java.io.StringWriter sink = new java.io.StringWriter();
+        int code = org.obverse.cli.Main.run(new String[] {"device", "lattice", "--rows", "2", "--cols", "2", "--shore",
+            "2", "--field", "-2,2", "--coupling", "-2,1", "--out", device.toString()}, new java.io.PrintWriter(sink),
+                new java.io.PrintWriter(sink));
+        assertThat(code).as(sink.toString()).isZero();
+        // 16 qubits, 8 gauges of 400 reads. Qubit 3 is pinned (sign +1 in every gauge) and fully
+        // magnetised: any test would flag it, so it must be left out. Qubit 9 carries a device
+        // bias of 0.5 (mean spin 0.5 whatever the gauge): z ≈ 0.5 / √(0.75 / 3200) ≈ 33, flagged.
+        StringBuilder m = new StringBuilder("qubit,gauge,reads,sum_spin,sign\n");
+        for (int q = 0; q < 16; q++) {
+            for (int g = 0; g < 8; g++) {
+                int sign = q == 3 ? 1 : ((g + q) % 2 == 0 ? 1 : -1);
+                long sum = q == 3 ? 400 : q == 9 ? 200 : 0;
+                m.append(q).append(',').append(g).append(",400,").append(sum).append(',').append(sign).append('\n');
+            }
+        }
+        Path mag = dir.resolve("mag.csv");
+        Files.writeString(mag, m);
+        ScoreStep.Request scoring = new ScoreStep.Request(List.of(camp), null, 0.99, 0.95, 0.5,
+                new double[] {0.35, 0.65}, new double[] {0.05, 0.95}, 50, 5, 1, List.of(), null, List.of(), 1e-9, 1e-9,
+                Resampling.INSTANCES, null);
+        ReportStep.Result r = ReportStep.run(new ReportStep.Request(scoring, mag, null, 0.01, false, null,
+                dir.resolve("report"), false, device));
+        assertThat(r.bias().flagged()).extracting(org.obverse.stats.BiasDiagnostics.Item::item).containsExactly(9);
+        String html = Files.readString(dir.resolve("report/report.html"));
+        assertThat(html).contains("2 × 2 cell lattice").contains("1 qubit(s) that no gauge flipped (pinned) are left out")
+                .contains("not tested (never flipped)");
+    }
 }
