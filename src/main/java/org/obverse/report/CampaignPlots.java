@@ -390,6 +390,9 @@ public final class CampaignPlots {
             line.setMarker(gi == 0 ? SeriesMarkers.CIRCLE : SeriesMarkers.SQUARE);
         }
         Charts.yRange(c, all, tts);
+        if (!tts) {
+            c.getStyler().setYAxisDecimalPattern("0.###");
+        }
         Charts.xPad(c, l.couplings);
         boolean paused = l.pauses.size() >= 2 || !l.pauses.get(0).isEmpty();
         return Figure.render(name, (tts ? "TTS" : "Success probability per read") + ", the " + quantile(l)
