@@ -36,6 +36,13 @@ public record PathIntegralSettings(EnergyScales energyScales, double temperature
         }
     }
 
+    /** One line for people: the method, P, T with its units, the energy scales (the illustrative pair says so). */
+    public String describe() {
+        return "simulated quantum annealing (path integral), " + slices + (slices == 1 ? " slice (the classical limit)"
+                : " slices") + ", k_B T = " + temperature + " " + energyScales.units() + ", energy scales: "
+                + energyScales.name();
+    }
+
     /** β = 1/T. */
     public double beta() {
         return 1.0 / temperature;
