@@ -294,7 +294,7 @@ class PathIntegralThermalStateTest extends QuietTest {
     void oneSpinMatchesTheClosedForm() {
         // Hoeffding (Hoeffding, J. Am. Stat. Assoc. 58, 13, 1963): the mean of N independent ±1
         // reads lies within √(2 ln(2/δ)/N) of its expectation except with probability δ = 1e-6.
-        int reads = 20_000;
+        int reads = 10_000;
         double stat = Math.sqrt(2 * Math.log(2 / DELTA) / reads);
         Object[][] cases = {
             {EnergyScales.illustrative(), 0.3, 1.0, 0.2, 16},
