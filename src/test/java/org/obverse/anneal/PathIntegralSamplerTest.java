@@ -55,6 +55,32 @@ class PathIntegralSamplerTest extends QuietTest {
     }
 
     @Test
+    void aFixedSeedGivesThePinnedReads() {
+        // Golden vector (our own run of this version, kept so that a change in the order of
+        // draws or moves shows): the integer ring, 3 sweeps of ramp, 10 at s = 0.3, no sweep in
+        // the quench; T = 0.2, P = 6, seed 42. Read r is row r (bit k set: spin k is +1).
+        String pinned = "+--+- -+++- +-+-- +--+- +-++- -+-+- +--+- --++- +-+-- -++++ +-+-+ -++++";
+        double[] energies = {-8, 0, -2, -8, -4, 0, -8, 2, -2, -2, 0, -2};
+        SamplerSettings s = SamplerSettings.defaults()
+                .withSchedule(AnnealSchedule.withPauseAndQuench(2.0, 0.3, 2.0, 0.1)).withSweepsPerMicrosecond(5)
+                .withPathIntegral(new PathIntegralSettings(EnergyScales.illustrative(), 0.2, 6));
+        IsingProblem ring = PathIntegralThermalStateTest.integerRing();
+        for (boolean integer : new boolean[] {true, false}) {
+            SampledReads r = PathIntegralSampler.of(s, integer).sample(ring, 12, 42);
+            StringBuilder b = new StringBuilder();
+            for (int i = 0; i < r.reads(); i++) {
+                b.append(i == 0 ? "" : " ");
+                for (int k = 0; k < ring.size(); k++) {
+                    b.append(r.samples().spin(i, k) > 0 ? '+' : '-');
+                }
+            }
+            assertThat(b.toString()).isEqualTo(pinned);
+            assertThat(r.energies()).containsExactly(energies);
+            assertThat(r.sweeps()).isEqualTo(13);
+        }
+    }
+
+    @Test
     void integerAndDoubleKernelsGiveTheSameReads() {
         IsingProblem ring = PathIntegralThermalStateTest.integerRing();
         // A ramp (a table per sweep), a pause at s = 0.3, and a hold at s = 1 where A = 0
