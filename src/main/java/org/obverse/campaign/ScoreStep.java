@@ -228,6 +228,17 @@ public final class ScoreStep {
         Set<String> names = new LinkedHashSet<>();
         columns.forEach(m -> names.addAll(m.keySet()));
         names.remove(key);
+        // A column whose baseline values and other values have nothing in common (a schedule's name)
+        // describes the treatment, as the baseline column does: it is not matched.
+        names.removeIf(n -> {
+            Set<String> inBase = new java.util.HashSet<>();
+            Set<String> inOthers = new java.util.HashSet<>();
+            for (int s = 0; s < c.settingCount(); s++) {
+                (base.contains(s) ? inBase : inOthers).add(columns.get(s).getOrDefault(n, ""));
+            }
+            inBase.retainAll(inOthers);
+            return inBase.isEmpty();
+        });
         for (int s = 0; s < c.settingCount(); s++) {
             if (base.contains(s)) {
                 continue;

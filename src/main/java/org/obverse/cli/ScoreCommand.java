@@ -76,6 +76,11 @@ public final class ScoreCommand implements Callable<Integer> {
                         : given == 0 ? "ground = best energy seen" : given + " ground energies given",
                 c.settingCount(), fmt(opts.target()), opts.quantile() == 0.5 ? "median" : "quantile " + fmt(opts.quantile()),
                 opts.replicates(), opts.seed(), opts.resampling().label());
+        if (opts.resampling().drawsInstances() && c.instanceCount() < FEW_INSTANCES) {
+            o.printf(Locale.ROOT, "note: only %d instances; an instance bootstrap of so few is coarse (its inner band may "
+                    + "be one instance's value wide); --resample gauges-only shows how well these instances were "
+                    + "measured%n", c.instanceCount());
+        }
         String bandName = pct(opts.band()) + " band";
         String outerName = pct(opts.outerBand()) + " band";
         int w = Math.max(7, c.settings().stream().mapToInt(String::length).max().orElse(7));
@@ -117,6 +122,9 @@ public final class ScoreCommand implements Callable<Integer> {
                     fmt((Double) r.get("best_fraction")));
         }
     }
+
+    /** Below this many instances the score notes that an instance bootstrap is coarse. */
+    static final int FEW_INSTANCES = 8;
 
     private static String pct(double[] b) {
         return fmt(100 * b[0]) + "-" + fmt(100 * b[1]) + " %";

@@ -73,6 +73,10 @@ public final class HtmlReport {
                 .append(o.replicates()).append(" replicates, seed ").append(o.seed()).append(", percentiles ")
                 .append(num(100 * o.band()[0])).append("–").append(num(100 * o.band()[1])).append(" and ")
                 .append(num(100 * o.outerBand()[0])).append("–").append(num(100 * o.outerBand()[1]))
+                .append(o.resampling().drawsInstances() && c.instanceCount() < 8 ? ". <b>Only " + c.instanceCount()
+                        + " instances:</b> an instance bootstrap of so few is coarse (an inner band may be one instance's "
+                        + "value wide); <code>--resample gauges-only</code> shows how well these instances were measured"
+                        : "")
                 .append(". Binomial intervals per instance at ").append(num(100 * o.confidence()))
                 .append(" % (Wilson and Clopper–Pearson) are in <code>instances.csv</code>.</li>\n</ul>\n");
 
