@@ -285,8 +285,9 @@ public final class ScoreStep {
     }
 
     /**
-     * Settings grouped by the values of the setting columns that are not swept (and that vary
-     * between settings); each group's settings in ascending first swept value (empty first).
+     * Settings grouped by the values of the setting columns that are not swept, that vary
+     * between settings and that the swept values do not determine; each group's settings in
+     * ascending first swept value (empty first).
      */
     private static List<SweepGroup> sweepGroups(Campaign c, List<Map<String, String>> columns, List<String> sweep,
             double[] firstValue) {
@@ -294,6 +295,18 @@ public final class ScoreStep {
         columns.forEach(m -> fixed.addAll(m.keySet()));
         fixed.removeAll(sweep);
         fixed.removeIf(n -> columns.stream().map(m -> m.getOrDefault(n, "")).distinct().count() < 2);
+        // A column that the swept values determine (a schedule's name) describes the swept setting, not a group.
+        fixed.removeIf(n -> {
+            Map<List<String>, String> seen = new java.util.HashMap<>();
+            for (Map<String, String> m : columns) {
+                List<String> key = sweep.stream().map(w -> m.getOrDefault(w, "")).toList();
+                String prev = seen.putIfAbsent(key, m.getOrDefault(n, ""));
+                if (prev != null && !prev.equals(m.getOrDefault(n, ""))) {
+                    return false;
+                }
+            }
+            return true;
+        });
         Map<String, List<Integer>> byKey = new LinkedHashMap<>();
         for (int s = 0; s < c.settingCount(); s++) {
             List<String> parts = new ArrayList<>();

@@ -11,7 +11,8 @@ import org.apache.commons.rng.UniformRandomProvider;
 /**
  * An invented campaign folder with known success rates, laid out as a campaign run leaves it:
  * {@code results.csv} (the columns of spec/results.md plus chain_coupling, anneal_us, pause_s,
- * pause_us — empty for the no-pause baseline —, gauged and energy_frame) and {@code ground.csv}.
+ * pause_us — empty for the no-pause baseline —, gauged, energy_frame and the schedule's name) and
+ * {@code ground.csv}.
  * Pause grid × chain couplings × gauged, one row per (instance, setting, gauge) outcome with a
  * count. Success rates are invented: a pause near s = 0.45 helps, a longer pause more, a chain
  * coupling of −1.6 is best, gauging helps a little; each instance has its own hardness.
@@ -46,7 +47,7 @@ public final class CampaignTables {
     public static List<Cell> write(Path dir, Plan plan, UniformRandomProvider rng) throws IOException {
         Files.createDirectories(dir);
         StringBuilder r = new StringBuilder("instance,setting,gauge,energy,count,broken,run_us,chain_coupling,anneal_us,"
-                + "pause_s,pause_us,gauged,energy_frame\n");
+                + "pause_s,pause_us,gauged,energy_frame,schedule\n");
         StringBuilder g = new StringBuilder("instance,ground_energy,ground_source\n");
         List<Cell> cells = new ArrayList<>();
         for (int i = 0; i < plan.instances(); i++) {
@@ -68,6 +69,9 @@ public final class CampaignTables {
                                 : " sp=" + num(pause[0]) + " tp=" + num(pause[1])) + (gauged ? " gauged" : " plain");
                         double rate = rate(hardness, cc, pause[0], pause[1], gauged);
                         double run = plan.annealUs() + (Double.isNaN(pause[1]) ? 0 : pause[1]);
+                        // The schedule's name, a setting column that only says which treatment it is.
+                        String schedule = "a" + num(plan.annealUs()) + (Double.isNaN(pause[0]) ? ""
+                                : "-p" + num(pause[0]) + "x" + num(pause[1]));
                         int slots = gauged ? plan.gauges() : 1;
                         long per = gauged ? plan.reads() : (long) plan.reads() * plan.gauges();
                         long[] succ = new long[slots];
@@ -81,7 +85,7 @@ public final class CampaignTables {
                             String tail = "," + num(run) + "," + num(cc) + "," + num(plan.annealUs()) + ","
                                     + (Double.isNaN(pause[0]) ? "" : num(pause[0])) + ","
                                     + (Double.isNaN(pause[1]) ? "" : num(pause[1])) + "," + (gauged ? "yes" : "no")
-                                    + ",logical\n";
+                                    + ",logical," + schedule + "\n";
                             if (succ[k] > 0) {
                                 r.append(inst).append(',').append(label).append(',').append(gauge).append(',')
                                         .append(num(ground)).append(',').append(succ[k]).append(",0").append(tail);
