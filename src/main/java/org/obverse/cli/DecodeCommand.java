@@ -92,7 +92,12 @@ public final class DecodeCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        ChainBreakRule r = ChainBreakRule.named(rule);
+        ChainBreakRule r;
+        try {
+            r = ChainBreakRule.named(rule);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--rule: " + e.getMessage());
+        }
         List<String> extraNames = new ArrayList<>();
         List<String> extraValues = new ArrayList<>();
         if (instance != null || setting != null || gauge != null || !columns.isEmpty()) {

@@ -8,6 +8,7 @@ import java.security.SecureRandom;
 import java.util.Arrays;
 import java.util.concurrent.Callable;
 import org.apache.commons.rng.simple.RandomSource;
+import org.obverse.io.BadInputException;
 import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.QubitGraph;
@@ -86,7 +87,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
                 }
                 couplers[i] = new int[] {Integer.parseInt(ab[0].trim()), Integer.parseInt(ab[1].trim())};
             } catch (NumberFormatException e) {
-                throw new IllegalArgumentException("--remove-couplers: '" + removeCouplers[i]
+                throw new BadInputException("--remove-couplers: '" + removeCouplers[i]
                         + "' is not a coupler; write it as A-B, e.g. 0-4");
             }
         }
@@ -126,7 +127,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
 
     private static ValueRange range(double[] v, String option) {
         if (v.length != 2 || !(v[0] <= v[1]) || Arrays.stream(v).anyMatch(x -> !Double.isFinite(x))) {
-            throw new IllegalArgumentException(option + " " + Arrays.toString(v) + " is not a range; give LO,HI with LO <= HI");
+            throw new BadInputException(option + " " + Arrays.toString(v) + " is not a range; give LO,HI with LO <= HI");
         }
         return ValueRange.of(v[0], v[1]);
     }

@@ -166,10 +166,10 @@ public final class EmbedCommand implements Callable<Integer> {
             }
         }
         if (!finder.equals("reroute")) {
-            throw new IllegalArgumentException("--finder '" + finder + "' is not one of reroute, clique");
+            throw new BadInputException("--finder '" + finder + "' is not one of reroute, clique");
         }
         if (rounds < 1 || !(timeLimit >= 0)) {
-            throw new IllegalArgumentException("--rounds must be >= 1 and --time-limit >= 0");
+            throw new BadInputException("--rounds must be >= 1 and --time-limit >= 0");
         }
         long s = seed != null ? seed : new SecureRandom().nextLong();
         long start = System.nanoTime();

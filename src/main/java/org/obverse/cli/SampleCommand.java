@@ -208,7 +208,12 @@ public final class SampleCommand implements Callable<Integer> {
      * energy} computes for the same file and samples.
      */
     private SampledReads sample(ReferenceSampler sampler, ProblemFile pf, long s) {
-        return sampler.sample(pf.spin(), reads, s);
+        try {
+            return sampler.sample(pf.spin(), reads, s);
+        } catch (IllegalArgumentException e) {
+            // The settings do not suit this problem (e.g. the multi-spin kernel and its couplings).
+            throw new BadInputException(e.getMessage(), e);
+        }
     }
 
     private static void writeSamples(Path target, SampledReads s, boolean force, SampleCoding coding) throws IOException {

@@ -332,7 +332,7 @@ public final class SpectrumCommand implements Callable<Integer> {
             case "lanczos":
                 return SolverChoice.LANCZOS;
             default:
-                throw new IllegalArgumentException("--solver '" + name + "' is not one of auto, dense, lanczos");
+                throw new BadInputException("--solver '" + name + "' is not one of auto, dense, lanczos");
         }
     }
 

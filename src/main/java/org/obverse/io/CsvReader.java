@@ -116,7 +116,7 @@ public final class CsvReader implements Closeable {
     /** A parse error at the current record naming the column and the value. */
     public BadInputException error(int column, String value, String problem, String remedy) {
         return BadInputException.at(file, "line " + recordLine + ", column " + header[column],
-                "value '" + value + "' " + problem, remedy);
+                "value '" + Messages.excerpt(value) + "' " + problem, remedy);
     }
 
     private String[] next() throws IOException {

@@ -128,7 +128,7 @@ final class CsvSampleReader extends SampleReader {
                 id = -1;
             }
             if (id < 0) {
-                throw BadInputException.at(file, "line 1, column " + ids.size(), "header value '" + t
+                throw BadInputException.at(file, "line 1, column " + ids.size(), "header value '" + Messages.excerpt(t)
                         + "' is not a variable id (an integer >= 0)", "the first line must list the variable ids");
             }
             ids.add(id);
@@ -237,7 +237,7 @@ final class CsvSampleReader extends SampleReader {
                         "give one value per header id");
             }
             if (s == 0) {
-                throw BadInputException.at(file, place(col), "holds '" + token + "'; " + coding.rule(),
+                throw BadInputException.at(file, place(col), "holds '" + Messages.excerpt(token.toString()) + "'; " + coding.rule(),
                         coding == SampleCoding.SPIN ? "write -1 or 1 (0/1 files need the binary coding)" : "write 0 or 1");
             }
             rows[base + target[col]] = (byte) s;

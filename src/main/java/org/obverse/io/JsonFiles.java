@@ -53,7 +53,7 @@ public final class JsonFiles {
         } catch (JsonProcessingException e) {
             String where = e.getLocation() == null ? ""
                     : "line " + e.getLocation().getLineNr() + ", column " + e.getLocation().getColumnNr();
-            throw BadInputException.at(file, where, "is not valid JSON (" + e.getOriginalMessage() + ")",
+            throw BadInputException.at(file, where, "is not valid JSON (" + Messages.excerpt(e.getOriginalMessage()) + ")",
                     "fix the file's syntax");
         } catch (IOException e) {
             throw BadInputException.at(file, "", "cannot be parsed (" + e.getMessage() + ")", "fix the file");

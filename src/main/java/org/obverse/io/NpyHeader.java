@@ -218,7 +218,7 @@ public final class NpyHeader {
         }
 
         private static String quote(String t) {
-            return t.length() > 120 ? "\"" + t.substring(0, 120) + "...\"" : "\"" + t + "\"";
+            return "\"" + Messages.excerpt(t) + "\"";
         }
 
         private void space() {
@@ -325,7 +325,7 @@ public final class NpyHeader {
                         shape = tuple();
                         break;
                     default:
-                        throw bad("unknown key '" + key + "'");
+                        throw bad("unknown key '" + Messages.excerpt(key) + "'");
                 }
                 if (!take(',')) {
                     expect('}');
@@ -341,7 +341,7 @@ public final class NpyHeader {
             }
             NpyDtype dtype = NpyDtype.parse(descr);
             if (dtype == null) {
-                throw BadInputException.at(file, "header", "dtype '" + descr + "' is not supported",
+                throw BadInputException.at(file, "header", "dtype '" + Messages.excerpt(descr) + "' is not supported",
                         "use a plain little- or big-endian integer, bool or float dtype");
             }
             return new NpyHeader(major, dtype, fortran, shape, total);
