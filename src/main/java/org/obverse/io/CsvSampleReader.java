@@ -2,7 +2,6 @@ package org.obverse.io;
 
 import java.io.IOException;
 import java.io.InputStream;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -40,7 +39,7 @@ final class CsvSampleReader extends SampleReader {
     }
 
     static CsvSampleReader open(Path file, VariableIndex expected, SampleCoding coding) throws IOException {
-        InputStream in = Files.newInputStream(file);
+        InputStream in = InputFiles.openStream(file);
         try {
             CsvSampleReader r = new CsvSampleReader(file, in, coding);
             int[] ids = r.header();
