@@ -121,7 +121,7 @@ public final class DecodeCommand implements Callable<Integer> {
                 extraValues.add(c.substring(eq + 1));
             }
         }
-        AtomicOutput.checkTarget(out, force);
+        AtomicOutput.checkTarget(out, force, AtomicOutput.inputs(problem, logical, chains, samples));
         VariableIndex qubits = ProblemCodec.read(problem).variables();
         IsingProblem q = ProblemCodec.read(logical).spin();
         ChainList list = ChainsCodec.read(chains);
@@ -144,7 +144,7 @@ public final class DecodeCommand implements Callable<Integer> {
             throw BadInputException.at(samples, "", e.getMessage(), "");
         }
         Path logicalName = Path.of(SampleFormat.of(samples).fileName("logical"));
-        AtomicOutput.writeDirectory(out, force, dir -> {
+        AtomicOutput.writeDirectory(out, force, AtomicOutput.inputs(problem, logical, chains, samples), dir -> {
             try (SampleWriter w = SampleFiles.create(dir.resolve(logicalName), q.variables(), false, coding)) {
                 w.writeBlock(d.logical());
                 w.commit();

@@ -2,6 +2,7 @@ package org.obverse.cli;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.security.SecureRandom;
@@ -76,7 +77,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        AtomicOutput.checkTarget(out, force);
+        AtomicOutput.checkTarget(out, force, List.of());
         CellLattice lattice = CellLattice.of(rows, cols, shore);
         int[][] couplers = new int[removeCouplers.length][];
         for (int i = 0; i < couplers.length; i++) {
@@ -117,7 +118,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
         if (random) {
             meta.put("seed", s);
         }
-        AtomicOutput.writeText(out, force, JsonFiles.text(root));
+        AtomicOutput.writeText(out, force, List.of(), JsonFiles.text(root));
         PrintWriter w = spec.commandLine().getOut();
         w.printf("%s: %d of %d qubits, %d of %d couplers%s%n", lattice, g.qubits().size(), full.qubits().size(),
                 g.couplerCount(), full.couplerCount(), random ? " (random defects, seed " + s + ")" : "");

@@ -2,6 +2,7 @@ package org.obverse.cli;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.security.SecureRandom;
@@ -97,7 +98,8 @@ public final class EmbedCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        AtomicOutput.checkTarget(out, force);
+        List<Path> read = AtomicOutput.inputs(logical, chains, device);
+        AtomicOutput.checkTarget(out, force, read);
         IsingProblem q = ProblemCodec.read(logical).spin();
         ObjectNode deviceJson = JsonFiles.read(device, DeviceCodec.KIND);
         DeviceLimits d = DeviceCodec.fromJson(device, deviceJson);
@@ -111,7 +113,7 @@ public final class EmbedCommand implements Callable<Integer> {
             c = Chains.of(list.logicalIds(), list.qubitGroups());
         } else {
             writeChains = chainsOut != null ? chainsOut : siblingChains(out);
-            AtomicOutput.checkTarget(writeChains, force);
+            AtomicOutput.checkTarget(writeChains, force, read);
             c = find(q, g, deviceJson, w);
         }
         ChainStrength strength = new ChainStrength(chainCoupling, ChainStrength.Mode.named(mode));
@@ -132,10 +134,15 @@ public final class EmbedCommand implements Callable<Integer> {
         meta.put("logical_offset", q.offset());
         meta.put("logical_variables", q.size());
         meta.put("longest_chain", ep.chains().maxLength());
-        if (writeChains != null) {
-            ChainsCodec.write(writeChains, force, new ChainList(ep.chains().logicalIds().toArray(), ep.chains().qubitGroups()));
-        }
-        ProblemCodec.write(out, force, ProblemFile.of(ep.physical(), meta));
+        // The problem and the chains found for it are published together.
+        boolean withChains = writeChains != null;
+        AtomicOutput.writeFiles(withChains ? List.of(out, writeChains) : List.of(out), force, read, files -> {
+            ProblemCodec.write(files.get(0), false, ProblemFile.of(ep.physical(), meta));
+            if (withChains) {
+                ChainsCodec.write(files.get(1), false,
+                        new ChainList(ep.chains().logicalIds().toArray(), ep.chains().qubitGroups()));
+            }
+        });
         w.printf("embedded %d logical variables on %d qubits: longest chain %d, %d chain couplers%n", q.size(),
                 ep.physical().size(), ep.chains().maxLength(), ep.chainCouplerCount());
         w.printf("scale %s, chain coupling %s (%s), chain energy %s: E_phys = %s * E_logical + %s for unbroken reads%n",

@@ -1,9 +1,11 @@
 package org.obverse.cli;
 
+import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.concurrent.Callable;
+import org.obverse.io.AtomicOutput;
 import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.SampleCoding;
@@ -62,7 +64,9 @@ public final class EnergyCommand implements Callable<Integer> {
         energies = Arrays.copyOf(energies, (int) reads);
         PrintWriter w = spec.commandLine().getOut();
         if (out != null) {
-            NpyVectors.writeFloat64(out, force, energies);
+            double[] all = energies;
+            AtomicOutput.writeFiles(List.of(out), force, AtomicOutput.inputs(problem, samples),
+                    files -> NpyVectors.writeFloat64(files.get(0), false, all));
             w.printf("wrote %d energies to %s%n", reads, out);
             return Main.DONE;
         }

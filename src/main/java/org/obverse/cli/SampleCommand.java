@@ -116,20 +116,23 @@ public final class SampleCommand implements Callable<Integer> {
         if (input.problem != null) {
             ProblemFile pf = ProblemCodec.read(input.problem);
             Path energiesFile = energiesBeside(out);
-            AtomicOutput.checkTarget(out, force);
-            AtomicOutput.checkTarget(energiesFile, force);
-            SampledReads s = sample(sampler, pf, seed);
+            List<Path> read = AtomicOutput.inputs(input.problem, schedule, errors);
             Path resultsFile = instance == null ? null : besideWith(out, ".results.csv");
-            if (resultsFile != null) {
-                AtomicOutput.checkTarget(resultsFile, force);
+            List<Path> targets = resultsFile == null ? List.of(out, energiesFile) : List.of(out, energiesFile, resultsFile);
+            for (Path t : targets) {
+                AtomicOutput.checkTarget(t, force, read);
             }
-            writeSamples(out, s, force, coding);
-            NpyVectors.writeFloat64(energiesFile, force, s.energies());
-            if (resultsFile != null) {
-                StringWriter table = new StringWriter();
-                addRows(ResultsTable.RowWriter.start(table, List.of()), s.energies(), -1, runUs);
-                AtomicOutput.writeText(resultsFile, force, table.toString());
-            }
+            SampledReads s = sample(sampler, pf, seed);
+            // Samples, energies and results are published together, after all are written.
+            AtomicOutput.writeFiles(targets, force, read, files -> {
+                writeSamples(files.get(0), s, false, coding);
+                NpyVectors.writeFloat64(files.get(1), false, s.energies());
+                if (resultsFile != null) {
+                    StringWriter table = new StringWriter();
+                    addRows(ResultsTable.RowWriter.start(table, List.of()), s.energies(), -1, runUs);
+                    Files.writeString(files.get(2), table.toString());
+                }
+            });
             w.printf("sampled %d reads of %d variables (%d sweeps, %s us a read), minimum energy %s%n", s.reads(),
                     s.variables().size(), s.sweeps(), s.runTimeMicros(), s.minimumEnergy());
             w.printf("wrote %s and %s%n", out, energiesFile);
@@ -140,7 +143,11 @@ public final class SampleCommand implements Callable<Integer> {
         List<String> lines = new ArrayList<>();
         StringWriter table = new StringWriter();
         ResultsTable.RowWriter rows = instance == null ? null : ResultsTable.RowWriter.start(table, List.of());
-        AtomicOutput.writeDirectory(out, force, dir -> {
+        List<Path> read = AtomicOutput.inputs(input.manifest, schedule, errors);
+        for (GaugeManifest.Entry e : m.gauges()) {
+            read.add(folder.resolve(e.problem()).normalize());
+        }
+        AtomicOutput.writeDirectory(out, force, read, dir -> {
             for (GaugeManifest.Entry e : m.gauges()) {
                 Path file = folder.resolve(e.problem()).normalize();
                 ProblemFile pf = ProblemCodec.read(file);

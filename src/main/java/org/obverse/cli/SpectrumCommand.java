@@ -134,7 +134,7 @@ public final class SpectrumCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        AtomicOutput.checkTarget(out, force);
+        AtomicOutput.checkTarget(out, force, inputs());
         EnergyScales sched = schedule == null ? EnergyScales.illustrative() : readSchedule(schedule, scheduleUnits);
         SpectrumSettings settings = new SpectrumSettings(levels, solverChoice(solver), tolerance,
                 SectorBasis.Sector.REACHABLE);
@@ -190,7 +190,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         }
         Figure levelsPng = LevelsPlot.levels(title, g.s(), rows, spectrum.relevantLevel(), m.sStar(), pw.from(), pw.to(), unit);
         Figure gapPng = LevelsPlot.gap(title, g.s(), g.gaps(), m.sStar(), m.gapMin(), pw.from(), pw.to(), unit);
-        AtomicOutput.writeDirectory(out, force, dir -> {
+        AtomicOutput.writeDirectory(out, force, inputs(), dir -> {
             Files.writeString(dir.resolve("levels.csv"), levelsCsv(g));
             Files.writeString(dir.resolve("gap.csv"), gapCsv(g));
             Files.writeString(dir.resolve("summary.json"), JsonFiles.text(summary));
@@ -258,7 +258,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         summary.put("seconds", Math.round(seconds * 1000) / 1000.0);
         Figure plot = LevelsPlot.chainScan(sw.logical.getFileName() + " — " + (sched.isIllustrative()
                 ? "illustrative schedule" : sched.name()), x, sStar, gapMin);
-        AtomicOutput.writeDirectory(out, force, dir -> {
+        AtomicOutput.writeDirectory(out, force, inputs(), dir -> {
             Files.writeString(dir.resolve("chain_scan.csv"), csv.toString());
             Files.writeString(dir.resolve("summary.json"), JsonFiles.text(summary));
             Files.write(dir.resolve("chain_scan.png"), plot.png());
@@ -334,6 +334,11 @@ public final class SpectrumCommand implements Callable<Integer> {
             default:
                 throw new BadInputException("--solver '" + name + "' is not one of auto, dense, lanczos");
         }
+    }
+
+    private java.util.List<Path> inputs() {
+        return input.sweep == null ? AtomicOutput.inputs(input.problem, schedule)
+                : AtomicOutput.inputs(input.problem, schedule, input.sweep.logical, input.sweep.chains, input.sweep.device);
     }
 
     /** Reads a schedule table: CSV with columns s, A, B (others ignored); errors name the line. */

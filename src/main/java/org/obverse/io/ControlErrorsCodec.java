@@ -69,6 +69,6 @@ public final class ControlErrorsCodec {
 
     /** Writes an errors file atomically. */
     public static void write(Path file, boolean force, ControlErrors e) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(e)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(e)));
     }
 }

@@ -153,6 +153,6 @@ public final class ManifestCodec {
     }
 
     public static void write(Path file, boolean force, GaugeManifest m) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(m)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(m)));
     }
 }

@@ -61,6 +61,6 @@ public final class ScheduleCodec {
 
     /** Writes a schedule file atomically. */
     public static void write(Path file, boolean force, AnnealSchedule schedule) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(schedule)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(schedule)));
     }
 }
