@@ -221,8 +221,9 @@ public final class NpyHeader {
             return "\"" + Messages.excerpt(t) + "\"";
         }
 
+        // Python's white space between the dict's tokens (a line break is allowed inside braces).
         private void space() {
-            while (p < s.length() && Character.isWhitespace(s.charAt(p))) {
+            while (p < s.length() && " \t\n\r".indexOf(s.charAt(p)) >= 0) {
                 p++;
             }
         }
@@ -332,9 +333,14 @@ public final class NpyHeader {
                     break;
                 }
             }
-            space();
-            if (p != s.length()) {
-                throw bad("unexpected text after the dict at character " + p);
+            // After the dict: padding of spaces only, and the final newline (numpy.lib.format).
+            while (p < s.length() - 1 && s.charAt(p) == ' ') {
+                p++;
+            }
+            if (p != s.length() - 1 || s.charAt(p) != '\n') {
+                throw bad(p < s.length() - 1 || p == s.length() ? "the header must be padded with spaces and end with a "
+                        + "newline; found " + Messages.excerpt(s.substring(Math.min(p, s.length()), Math.min(p + 1, s.length())))
+                        + " at character " + p : "the header must end with a newline");
             }
             if (descr == null || fortran == null || shape == null) {
                 throw bad("the dict must have the keys descr, fortran_order and shape");
