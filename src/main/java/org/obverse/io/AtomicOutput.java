@@ -124,7 +124,11 @@ public final class AtomicOutput {
             throws IOException {
         try (Publication p = Publication.begin(target, force, inputs)) {
             Files.createDirectory(p.payload());
-            filler.fill(p.payload());
+            try {
+                filler.fill(p.payload());
+            } catch (IOException e) {
+                throw naming(e, target);
+            }
             p.publish();
         }
     }
@@ -148,7 +152,11 @@ public final class AtomicOutput {
             for (Publication p : ps) {
                 temps.add(p.payload());
             }
-            filler.fill(temps);
+            try {
+                filler.fill(temps);
+            } catch (IOException e) {
+                throw naming(e, targets.size() == 1 ? targets.get(0) : targets.get(0).toAbsolutePath().getParent());
+            }
             for (Publication p : ps) {
                 p.checkPublishable();
             }
@@ -184,6 +192,18 @@ public final class AtomicOutput {
             }
         }
         return false;
+    }
+
+    /**
+     * An I/O failure that says which output it hit: a failure without a file name (a full
+     * disk reported by a stream) gets the output's name.
+     */
+    static IOException naming(IOException e, Path output) {
+        if (e instanceof java.nio.file.FileSystemException && ((java.nio.file.FileSystemException) e).getFile() != null) {
+            return e;
+        }
+        String m = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+        return new IOException("writing " + output + ": " + m, e);
     }
 
     private static BadInputException exists(Path target) {

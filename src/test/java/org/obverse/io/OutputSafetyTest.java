@@ -126,7 +126,8 @@ class OutputSafetyTest extends QuietTest {
         assertThatThrownBy(() -> AtomicOutput.writeFiles(List.of(a, b), false, List.of(), files -> {
             Files.writeString(files.get(0), "samples");
             throw new IOException("No space left on device");
-        })).isInstanceOf(IOException.class);
+        })).isInstanceOf(IOException.class).hasMessageContaining("No space left on device")
+                .hasMessageContaining(dir.toString());
         assertThat(a).doesNotExist();
         assertThat(b).doesNotExist();
         assertThat(leftovers(dir)).isEmpty();
