@@ -341,7 +341,10 @@ public final class AtomicOutput {
                     throw exists(target);
                 }
                 Path tmp = Files.createTempDirectory(parent, "." + name + TMP_TAG);
-                Files.writeString(tmp.resolve(OWNER), ownerLine() + name + "\n");
+                // The marker appears whole (written aside, then renamed), so no reader sees half of it.
+                Path part = tmp.resolve(OWNER + ".part");
+                Files.writeString(part, ownerLine() + name + "\n");
+                Files.move(part, tmp.resolve(OWNER), StandardCopyOption.ATOMIC_MOVE);
                 Files.createDirectory(tmp.resolve(NEW));
                 Publication p = new Publication(abs, tmp, force, lockFile, ch, lock);
                 register(p);
@@ -487,16 +490,25 @@ public final class AtomicOutput {
 
     /** Whether a temporary folder's owner is a live process (the same one that made it). */
     static boolean ownerAlive(Path tmp) throws IOException {
+        Path abs = tmp.toAbsolutePath().normalize();
+        synchronized (ACTIVE) {
+            for (Publication p : ACTIVE) {
+                if (p.tmp.equals(abs)) {
+                    return true;
+                }
+            }
+        }
         Path marker = tmp.resolve(OWNER);
         List<String> lines;
         try {
             lines = Files.readAllLines(marker, StandardCharsets.UTF_8);
         } catch (NoSuchFileException e) {
-            FileTime t = Files.getLastModifiedTime(tmp, LinkOption.NOFOLLOW_LINKS);
-            return System.currentTimeMillis() - t.toMillis() < UNMARKED_GRACE_MILLIS;
+            lines = List.of();
         }
         if (lines.isEmpty()) {
-            return false;
+            // Being made right now, or a run killed before its marker: wait a while before judging.
+            FileTime t = Files.getLastModifiedTime(tmp, LinkOption.NOFOLLOW_LINKS);
+            return System.currentTimeMillis() - t.toMillis() < UNMARKED_GRACE_MILLIS;
         }
         String[] f = lines.get(0).trim().split(" ");
         long pid;
@@ -530,16 +542,20 @@ public final class AtomicOutput {
         }
         String mine = "." + name + TMP_TAG;
         for (Path tmp : found) {
-            if (!Files.isDirectory(tmp, LinkOption.NOFOLLOW_LINKS) || ownerAlive(tmp)) {
-                continue;
-            }
-            String n = tmp.getFileName().toString();
-            boolean ours = n.startsWith(mine) && n.length() > mine.length() && n.indexOf(TMP_TAG, mine.length()) < 0;
-            if (ours) {
-                restoreAside(tmp, parent.resolve(name));
-                deleteTree(tmp);
-            } else if (!Files.exists(tmp.resolve(OLD))) {
-                deleteTree(tmp);
+            try {
+                if (!Files.isDirectory(tmp, LinkOption.NOFOLLOW_LINKS) || ownerAlive(tmp)) {
+                    continue;
+                }
+                String n = tmp.getFileName().toString();
+                boolean ours = n.startsWith(mine) && n.length() > mine.length() && n.indexOf(TMP_TAG, mine.length()) < 0;
+                if (ours) {
+                    restoreAside(tmp, parent.resolve(name));
+                    deleteTree(tmp);
+                } else if (!Files.exists(tmp.resolve(OLD))) {
+                    deleteTree(tmp);
+                }
+            } catch (NoSuchFileException | java.io.UncheckedIOException e) {
+                // finished and removed by its own run meanwhile
             }
         }
     }
