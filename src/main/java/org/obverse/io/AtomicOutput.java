@@ -341,13 +341,19 @@ public final class AtomicOutput {
                     throw exists(target);
                 }
                 Path tmp = Files.createTempDirectory(parent, "." + name + TMP_TAG);
-                // The marker appears whole (written aside, then renamed), so no reader sees half of it.
-                Path part = tmp.resolve(OWNER + ".part");
-                Files.writeString(part, ownerLine() + name + "\n");
-                Files.move(part, tmp.resolve(OWNER), StandardCopyOption.ATOMIC_MOVE);
-                Files.createDirectory(tmp.resolve(NEW));
+                // Registered at once, so that SIGTERM or Ctrl-C from here on removes it.
                 Publication p = new Publication(abs, tmp, force, lockFile, ch, lock);
                 register(p);
+                try {
+                    // The marker appears whole (written aside, then renamed), so no reader sees half of it.
+                    Path part = tmp.resolve(OWNER + ".part");
+                    Files.writeString(part, ownerLine() + name + "\n");
+                    Files.move(part, tmp.resolve(OWNER), StandardCopyOption.ATOMIC_MOVE);
+                    Files.createDirectory(tmp.resolve(NEW));
+                } catch (IOException | RuntimeException e) {
+                    p.close();
+                    throw e;
+                }
                 return p;
             } catch (IOException | RuntimeException | Error e) {
                 if (lock != null) {
@@ -411,14 +417,14 @@ public final class AtomicOutput {
             }
             try {
                 restoreAside(tmp, target);
-            } catch (IOException e) {
-                // best effort at exit; the next run retries from the marker
+            } catch (IOException | RuntimeException e) {
+                // best effort at exit: keep the old output in the temporary folder for the next run
                 return;
             }
-            for (int i = 0; i < 3 && Files.exists(tmp); i++) {
+            for (int i = 0; i < 5 && Files.exists(tmp, LinkOption.NOFOLLOW_LINKS); i++) {
                 try {
                     deleteTree(tmp);
-                } catch (IOException e) {
+                } catch (IOException | RuntimeException e) {
                     // the writer may still add files; try again
                 }
             }

@@ -128,7 +128,8 @@ class OutputAttackTest extends CommandTestSupport {
         String prefix = "." + target.getFileName() + ".obverse-tmp-";
         while (System.nanoTime() < until) {
             try (Stream<Path> s = Files.list(target.getParent())) {
-                if (s.anyMatch(q -> q.getFileName().toString().startsWith(prefix))) {
+                // The owner marker is written after the folder is registered for cleanup.
+                if (s.anyMatch(q -> q.getFileName().toString().startsWith(prefix) && Files.exists(q.resolve("owner")))) {
                     Thread.sleep(200); // let it start writing
                     return;
                 }
