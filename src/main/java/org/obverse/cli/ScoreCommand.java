@@ -43,13 +43,13 @@ public final class ScoreCommand implements Callable<Integer> {
         PrintWriter o = spec.commandLine().getOut();
         PrintWriter e = spec.commandLine().getErr();
         if (out != null) {
-            AtomicOutput.checkTarget(out, force);
+            AtomicOutput.checkTarget(out, force, scoring.inputs());
         }
         ScoreStep.Result scored = scoring.score(e);
         ScoreFiles.Tables tables = ScoreFiles.tables(scored.scores());
         String jsonText = ScoreFiles.json(scored.scores(), tables);
         if (out != null) {
-            AtomicOutput.writeDirectory(out, force, dir -> {
+            AtomicOutput.writeDirectory(out, force, scoring.inputs(), dir -> {
                 ScoreFiles.writeCsv(dir, tables);
                 java.nio.file.Files.writeString(dir.resolve("scores.json"), jsonText);
             });

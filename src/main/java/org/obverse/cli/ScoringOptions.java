@@ -111,7 +111,17 @@ final class ScoringOptions {
                 threads, pairs, baseline, sweep, absoluteTolerance, relativeTolerance, scheme, progress);
     }
 
-    /** Scores the campaign as these options ask. */
+    /** Every file or folder read (results tables, campaign folders, ground energies): an output must not overlap them. */
+    List<Path> inputs() {
+        List<Path> in = new ArrayList<>(positional);
+        in.addAll(results);
+        if (ground != null) {
+            in.add(ground);
+        }
+        return in;
+    }
+
+        /** Scores the campaign as these options ask. */
     ScoreStep.Result score(PrintWriter err) throws IOException {
         return ScoreStep.run(request(err));
     }
