@@ -56,6 +56,16 @@ final class NpySampleWriter extends SampleWriter {
     }
 
     @Override
+    byte storedDown() {
+        return coding.encode(-1);
+    }
+
+    @Override
+    void writeStored(byte[] stored, int count) throws IOException {
+        npy.writeBytes(stored, 0, count * n);
+    }
+
+    @Override
     public void commit() throws IOException {
         npy.commit();
     }

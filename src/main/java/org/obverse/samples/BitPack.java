@@ -71,7 +71,7 @@ final class BitPack {
             int row0 = at + r * n;
             if (packBlock(src, row0, n, words, ((toRead + r) >>> 6) * n, binary) != 0) {
                 for (int j = 0; j < 64; j++) {
-                    int bad = firstBad(src, row0 + j * n, n, binary);
+                    int bad = firstBadScalar(src, row0 + j * n, n, binary);
                     if (bad >= 0) {
                         return bad;
                     }
@@ -107,10 +107,10 @@ final class BitPack {
                 words[base + k] = (words[base + k] & clear) | ((long) ((u >>> 1) & 1) << shift);
             }
         }
-        return bad == 0 ? -1 : firstBad(src, row, n, binary);
+        return bad == 0 ? -1 : firstBadScalar(src, row, n, binary);
     }
 
-    private static int firstBad(byte[] src, int row, int n, boolean binary) {
+    private static int firstBadScalar(byte[] src, int row, int n, boolean binary) {
         for (int k = 0; k < n; k++) {
             int v = src[row + k];
             if (binary ? (v & ~1) != 0 : v != 1 && v != -1) {
@@ -118,6 +118,29 @@ final class BitPack {
             }
         }
         return -1;
+    }
+
+    /** SWAR check of len values from src[from …]; −1 or the index of the first bad one. */
+    static int firstBad(byte[] src, int from, int len, boolean binary) {
+        int end = from + len;
+        int i = from;
+        for (; i + 256 <= end; i += 256) {
+            long bad = 0;
+            for (int p = i; p < i + 256; p += 8) {
+                long x = (long) LONGS.get(src, p);
+                if (binary) {
+                    bad |= x & ~ONES;
+                } else {
+                    long t = x ^ ONES;
+                    bad |= t ^ (((t & SIGNS) >>> 7) * 0xFE);
+                }
+            }
+            if (bad != 0) {
+                return firstBadScalar(src, i, 256, binary);
+            }
+        }
+        int left = end - i;
+        return left == 0 ? -1 : firstBadScalar(src, i, left, binary);
     }
 
     /** 64 rows from src[row0 …] into the n words at base; nonzero where some value is bad. */

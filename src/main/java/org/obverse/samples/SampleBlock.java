@@ -94,6 +94,19 @@ public final class SampleBlock {
         return BitPack.pack(src, fromRow * n, count, n, words, toRead, binary);
     }
 
+    /**
+     * Checks stored values without packing them, eight at a time and branch-free: −1/+1, or
+     * 0/1 where {@code binary}.
+     *
+     * @return −1 where all of {@code values[from … from+len)} are valid, else the index of the first bad one
+     */
+    public static int firstBadValue(byte[] values, int from, int len, boolean binary) {
+        if (from < 0 || len < 0 || (long) from + len > values.length) {
+            throw new IllegalArgumentException(len + " values from " + from + " do not fit " + values.length);
+        }
+        return BitPack.firstBad(values, from, len, binary);
+    }
+
     /** Unpacks reads {@code fromRead … fromRead+count-1} into row-major ±1 values at {@code out[0…]}. */
     public void unpackRows(int fromRead, int count, byte[] out) {
         unpackRows(fromRead, count, out, (byte) -1, (byte) 1);
