@@ -8,48 +8,24 @@ import java.nio.ByteOrder;
  * Kernels between row-major stored bytes (one byte a spin, a row a read) and the bit-sliced
  * words of a {@link SampleBlock}, without a branch on the data.
  *
- * <p>Packing takes eight columns of eight reads at a time as eight little-endian longs. The
- * check is SWAR: a spin byte b is valid iff b ⊕ 0x01 is 0x00 or 0xFE, that is iff it equals
- * its own sign bit times 0xFE; a binary byte iff its bits 1–7 are clear. The bit of each byte
- * (the inverted sign of a spin, bit 0 of a binary value) is gathered into one byte per read
- * by a multiply, the eight bytes form an 8 × 8 bit matrix, and a transpose (three
- * delta swaps, Warren, Hacker's Delight, 2nd ed., Addison-Wesley 2012, §7-3) turns it into
- * one byte per column: eight reads of that column's word. Any bad value found by the
- * block-wide OR of the checks sends the block to a scalar scan that finds the first one.
- * Unpacking is the mirror image, with a table that spreads a byte's bits over eight bytes.
- * Rows that do not fill a group of 8 (or 64) reads and columns past the last multiple of 8
- * go through plain, still branch-free, loops.
+ * <p>Packing reads eight columns of a read as one little-endian long. The check is SWAR: a
+ * spin byte b is valid iff t = b ⊕ 0x01 is 0x00 or 0xFE, that is iff t equals its own sign
+ * bit times 0xFE; a binary byte iff its bits 1–7 are clear. The bit that matters (the sign of
+ * t, or bit 0 of a binary value) of read j is shifted to bit j of its byte, so eight reads
+ * OR into one long whose byte i holds column i's eight reads; an 8 × 8 byte transpose (three
+ * rounds of delta swaps, Warren, Hacker's Delight, 2nd ed., Addison-Wesley 2012, §7-3) of the
+ * eight such longs of 64 reads gives the column words. A block whose OR of checks is nonzero
+ * is scanned again in row order for its first bad value. Unpacking is the mirror image: bit j
+ * of every byte, moved to bit 0 and multiplied by (down ⊕ up), is read j's row. Reads that
+ * do not fill a group of 8 (or 64) and columns past the last multiple of 8 go through plain,
+ * still branch-free, loops.
  */
 final class BitPack {
     private static final VarHandle LONGS = MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
     private static final long ONES = 0x0101010101010101L;
     private static final long SIGNS = 0x8080808080808080L;
-    // Multiplying 0/1 bytes by this gathers byte i's bit into bit 56 + i.
-    private static final long GATHER = 0x0102040810204080L;
-    /** Byte b spread over eight bytes: byte i = bit i of b (0 or 1). */
-    private static final long[] SPREAD = new long[256];
-
-    static {
-        for (int b = 0; b < 256; b++) {
-            long v = 0;
-            for (int i = 0; i < 8; i++) {
-                v |= (long) ((b >>> i) & 1) << (8 * i);
-            }
-            SPREAD[b] = v;
-        }
-    }
 
     private BitPack() {
-    }
-
-    /** Transposes an 8 × 8 bit matrix held as bit 8·row + column. */
-    static long transpose8(long x) {
-        long t = (x ^ (x >>> 7)) & 0x00AA00AA00AA00AAL;
-        x = x ^ t ^ (t << 7);
-        t = (x ^ (x >>> 14)) & 0x0000CCCC0000CCCCL;
-        x = x ^ t ^ (t << 14);
-        t = (x ^ (x >>> 28)) & 0x00000000F0F0F0F0L;
-        return x ^ t ^ (t << 28);
     }
 
     /**
@@ -147,53 +123,61 @@ final class BitPack {
     private static long packBlock(byte[] src, int row0, int n, long[] words, int base, boolean binary) {
         long bad = 0;
         int n8 = n & ~7;
+        long[] ms = new long[8];
         for (int k0 = 0; k0 < n8; k0 += 8) {
-            long c0 = 0;
-            long c1 = 0;
-            long c2 = 0;
-            long c3 = 0;
-            long c4 = 0;
-            long c5 = 0;
-            long c6 = 0;
-            long c7 = 0;
+            // m[g]: byte i = column k0 + i, bit j = read 8g + j (the bit sits at 8i + 7 for a
+            // spin's sign, 8i for a binary value, and one shift per read moves it to 8i + j).
             for (int g = 0; g < 8; g++) {
                 long m = 0;
                 int p = row0 + 8 * g * n + k0;
-                for (int j = 0; j < 8; j++, p += n) {
-                    long x = (long) LONGS.get(src, p);
-                    long up;
-                    if (binary) {
+                if (binary) {
+                    for (int j = 0; j < 8; j++, p += n) {
+                        long x = (long) LONGS.get(src, p);
                         bad |= x & ~ONES;
-                        up = x & ONES;
-                    } else {
-                        long t = x ^ ONES;
+                        m |= (x & ONES) << j;
+                    }
+                } else {
+                    for (int j = 0; j < 8; j++, p += n) {
+                        long t = (long) LONGS.get(src, p) ^ ONES; // 0x00 for +1, 0xFE for -1
                         long s = t & SIGNS;
                         bad |= t ^ ((s >>> 7) * 0xFE);
-                        up = (~x & SIGNS) >>> 7;
+                        m |= s >>> (7 - j);
                     }
-                    m |= ((up * GATHER) >>> 56) << (8 * j);
+                    m = ~m; // set where s = +1
                 }
-                // Now byte j = read 8g + j, bit i = column k0 + i; transposed, byte i = column, bit j = read.
-                m = transpose8(m);
-                int sh = 8 * g;
-                c0 |= (m & 0xFF) << sh;
-                c1 |= ((m >>> 8) & 0xFF) << sh;
-                c2 |= ((m >>> 16) & 0xFF) << sh;
-                c3 |= ((m >>> 24) & 0xFF) << sh;
-                c4 |= ((m >>> 32) & 0xFF) << sh;
-                c5 |= ((m >>> 40) & 0xFF) << sh;
-                c6 |= ((m >>> 48) & 0xFF) << sh;
-                c7 |= (m >>> 56) << sh;
+                ms[g] = m;
             }
+            long m0 = ms[0];
+            long m1 = ms[1];
+            long m2 = ms[2];
+            long m3 = ms[3];
+            long m4 = ms[4];
+            long m5 = ms[5];
+            long m6 = ms[6];
+            long m7 = ms[7];
+            // An 8 x 8 byte transpose: word i takes byte i of m0 … m7.
+            long t;
+            t = ((m0 >>> 8) ^ m1) & 0x00FF00FF00FF00FFL; m1 ^= t; m0 ^= t << 8;
+            t = ((m2 >>> 8) ^ m3) & 0x00FF00FF00FF00FFL; m3 ^= t; m2 ^= t << 8;
+            t = ((m4 >>> 8) ^ m5) & 0x00FF00FF00FF00FFL; m5 ^= t; m4 ^= t << 8;
+            t = ((m6 >>> 8) ^ m7) & 0x00FF00FF00FF00FFL; m7 ^= t; m6 ^= t << 8;
+            t = ((m0 >>> 16) ^ m2) & 0x0000FFFF0000FFFFL; m2 ^= t; m0 ^= t << 16;
+            t = ((m1 >>> 16) ^ m3) & 0x0000FFFF0000FFFFL; m3 ^= t; m1 ^= t << 16;
+            t = ((m4 >>> 16) ^ m6) & 0x0000FFFF0000FFFFL; m6 ^= t; m4 ^= t << 16;
+            t = ((m5 >>> 16) ^ m7) & 0x0000FFFF0000FFFFL; m7 ^= t; m5 ^= t << 16;
+            t = ((m0 >>> 32) ^ m4) & 0x00000000FFFFFFFFL; m4 ^= t; m0 ^= t << 32;
+            t = ((m1 >>> 32) ^ m5) & 0x00000000FFFFFFFFL; m5 ^= t; m1 ^= t << 32;
+            t = ((m2 >>> 32) ^ m6) & 0x00000000FFFFFFFFL; m6 ^= t; m2 ^= t << 32;
+            t = ((m3 >>> 32) ^ m7) & 0x00000000FFFFFFFFL; m7 ^= t; m3 ^= t << 32;
             int w = base + k0;
-            words[w] = c0;
-            words[w + 1] = c1;
-            words[w + 2] = c2;
-            words[w + 3] = c3;
-            words[w + 4] = c4;
-            words[w + 5] = c5;
-            words[w + 6] = c6;
-            words[w + 7] = c7;
+            words[w] = m0;
+            words[w + 1] = m1;
+            words[w + 2] = m2;
+            words[w + 3] = m3;
+            words[w + 4] = m4;
+            words[w + 5] = m5;
+            words[w + 6] = m6;
+            words[w + 7] = m7;
         }
         for (int k = n8; k < n; k++) {
             long c = 0;
@@ -239,11 +223,10 @@ final class BitPack {
                         | ((words[w + 5] >>> sh) & 0xFF) << 40
                         | ((words[w + 6] >>> sh) & 0xFF) << 48
                         | ((words[w + 7] >>> sh) & 0xFF) << 56;
-                // Byte i = column k0 + i, bit j = read; transposed, byte j = read, bit i = column.
-                m = transpose8(m);
+                // Byte i = column k0 + i, bit j = read: bit j of every byte, moved to bit 0, is read j's row.
                 int p = row0 + k0;
                 for (int j = 0; j < 8; j++, p += n) {
-                    LONGS.set(out, p, downs ^ (SPREAD[(int) ((m >>> (8 * j)) & 0xFF)] * diff));
+                    LONGS.set(out, p, downs ^ (((m >>> j) & ONES) * diff));
                 }
             }
             for (int k = n8; k < n; k++) {

@@ -17,19 +17,6 @@ import org.obverse.testsupport.Seeds;
 class BitPackTest extends QuietTest {
 
     @Test
-    void transposeMovesBitRowColumnToColumnRow() {
-        Seeds.forEachCase(200, 7100, (rng, seed) -> {
-            long x = rng.nextLong();
-            long y = BitPack.transpose8(x);
-            for (int i = 0; i < 8; i++) {
-                for (int j = 0; j < 8; j++) {
-                    assertThat((y >>> (8 * i + j)) & 1).isEqualTo((x >>> (8 * j + i)) & 1);
-                }
-            }
-        });
-    }
-
-    @Test
     void packMatchesThePlainDefinition() {
         Seeds.forEachCase(300, 7200, (rng, seed) -> {
             int n = width(rng);
