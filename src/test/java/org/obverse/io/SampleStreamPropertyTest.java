@@ -60,6 +60,39 @@ class SampleStreamPropertyTest extends QuietTest {
         });
     }
 
+    /** Blocks large enough that their chunks are written behind on a helper thread, mixed with plain rows. */
+    @Test
+    void largeBlocksWrittenBehindKeepTheirOrder() {
+        Seeds.forEachCase(4, 8300, (rng, seed) -> {
+            int n = 300 + rng.nextInt(900);
+            int reads = 2000 + rng.nextInt(3000);
+            byte[] spins = new byte[reads * n];
+            for (int i = 0; i < spins.length; i++) {
+                spins[i] = (byte) (rng.nextBoolean() ? 1 : -1);
+            }
+            SampleBlock block = SampleBlock.fromSpins(spins, reads, n);
+            VariableIndex ids = VariableIndex.of(java.util.stream.IntStream.range(0, n).toArray());
+            SampleCoding c = seed % 2 == 0 ? SampleCoding.SPIN : SampleCoding.BINARY;
+            Path p = dir.resolve("big" + seed + ".npy");
+            try (SampleWriter w = SampleFiles.create(p, ids, false, c)) {
+                w.writeBlock(block);
+                w.writeRows(spins, 0, 3);
+                w.writeBlock(block);
+                assertThat(w.readsWritten()).isEqualTo(2L * reads + 3);
+                w.commit();
+            }
+            byte[] file = Files.readAllBytes(p);
+            int data = file.length - (2 * reads + 3) * n;
+            for (int i = 0; i < (2 * reads + 3) * n; i++) {
+                int r = i / n;
+                int src = r < reads ? i : r < reads + 3 ? i - reads * n : i - (reads + 3) * n;
+                if (file[data + i] != c.encode(spins[src])) {
+                    throw new AssertionError("byte " + i + " is " + file[data + i]);
+                }
+            }
+        });
+    }
+
     @Test
     void firstBadValueIsNamedAlikeByBothReadPaths() {
         Seeds.forEachCase(80, 8200, (rng, seed) -> {
