@@ -10,6 +10,8 @@ package org.obverse.samples;
  * {@link #words()} directly. Cost: n · ⌈reads / 64⌉ longs.
  */
 public final class SampleBlock {
+    /** Chunks of at least this many stored bytes are packed on two cores. */
+    private static final long PARALLEL_BYTES = 1L << 20;
     private final int reads;
     private final int variables;
     private final long[] words;
@@ -91,7 +93,19 @@ public final class SampleBlock {
             throw new IllegalArgumentException(count + " rows from row " + fromRow + " into read " + toRead
                     + " do not fit " + src.length + " values or " + reads + " reads of " + n);
         }
-        return BitPack.pack(src, fromRow * n, count, n, words, toRead, binary);
+        int at = fromRow * n;
+        // Large chunks: two halves on two cores, split at a 64-read boundary so that each
+        // writes its own words; the first half's bad value comes first in row order.
+        int headRows = (64 - (toRead & 63)) & 63;
+        if ((long) count * n >= PARALLEL_BYTES && count - headRows >= 128) {
+            int split = headRows + ((count - headRows) / 128) * 64;
+            java.util.concurrent.ForkJoinTask<Integer> second = java.util.concurrent.ForkJoinTask.adapt(
+                    () -> BitPack.pack(src, at + split * n, count - split, n, words, toRead + split, binary)).fork();
+            int first = BitPack.pack(src, at, split, n, words, toRead, binary);
+            int later = second.join();
+            return first >= 0 ? first : later;
+        }
+        return BitPack.pack(src, at, count, n, words, toRead, binary);
     }
 
     /**

@@ -70,6 +70,36 @@ class BitPackTest extends QuietTest {
         });
     }
 
+    /** Chunks large enough to be packed in two halves on two cores: same words, same first bad value. */
+    @Test
+    void largeChunksPackedInHalvesMatchThePlainDefinition() {
+        Seeds.forEachCase(6, 7600, (rng, seed) -> {
+            int n = 700 + rng.nextInt(600);
+            int count = 1600 + rng.nextInt(400);
+            int toRead = rng.nextInt(100);
+            byte[] src = new byte[count * n];
+            for (int i = 0; i < src.length; i++) {
+                src[i] = (byte) (rng.nextBoolean() ? 1 : -1);
+            }
+            SampleBlock fast = SampleBlock.allDown(toRead + count, n);
+            assertThat(fast.packChecked(src, 0, count, toRead, false)).isEqualTo(-1);
+            for (int r = 0; r < count; r += 1 + rng.nextInt(50)) {
+                for (int k = 0; k < n; k += 1 + rng.nextInt(40)) {
+                    assertThat(fast.spin(toRead + r, k)).isEqualTo(src[r * n + k]);
+                }
+            }
+            assertThat(SampleBlock.fromSpins(src, count, n).toSpins()).containsExactly(src);
+            // Bad values in both halves: the one in the first half is named.
+            int late = src.length - 1 - rng.nextInt(n * 10);
+            int early = rng.nextInt(src.length / 3);
+            src[late] = 5;
+            src[early] = 0;
+            assertThat(SampleBlock.allDown(toRead + count, n).packChecked(src, 0, count, toRead, false)).isEqualTo(early);
+            src[early] = 1;
+            assertThat(SampleBlock.allDown(toRead + count, n).packChecked(src, 0, count, toRead, false)).isEqualTo(late);
+        });
+    }
+
     @Test
     void packRowsNamesReadAndColumn() {
         byte[] src = new byte[130 * 9];
