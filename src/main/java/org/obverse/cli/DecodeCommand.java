@@ -1,31 +1,17 @@
 package org.obverse.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
-import org.obverse.io.ResultsTable;
 import java.util.concurrent.Callable;
+import org.obverse.campaign.DecodeStep;
 import org.obverse.embed.ChainBreakRule;
-import org.obverse.embed.ChainDecoder;
-import org.obverse.embed.Chains;
 import org.obverse.embed.DecodedSamples;
-import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
-import org.obverse.io.ChainList;
-import org.obverse.io.ChainsCodec;
-import org.obverse.io.NpyVectors;
-import org.obverse.io.ProblemCodec;
+import org.obverse.io.ResultsTable;
 import org.obverse.io.SampleCoding;
-import org.obverse.io.SampleFiles;
-import org.obverse.io.SampleReader;
-import org.obverse.io.SampleWriter;
-import org.obverse.io.SampleFormat;
-import org.obverse.model.IsingProblem;
-import org.obverse.model.VariableIndex;
-import org.obverse.samples.SampleBlock;
+import org.obverse.io.ScheduleCodec;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -37,6 +23,9 @@ import picocli.CommandLine.Spec;
                 + "logical samples under a chain-break rule: DIR/logical.npy (or .csv, as the input; kept reads, columns = "
                 + "ascending logical ids), DIR/kept.npy (bool per read), DIR/broken.npy (int32 broken chains per read), "
                 + "DIR/energies.npy (logical energies of the kept reads), DIR/chains.csv (breaks per chain).",
+            "With --manifest M, --samples is the folder of un-gauged reads (ungauge's output) and every gauge is "
+                + "decoded into DIR/<stem>/ with the files above; P is the manifest's source problem and the chains "
+                + "default to the manifest's.",
             "discard drops every read with a broken chain (it still counts as a read when scoring); majority takes each "
                 + "chain's majority (a tie: the value with the lower energy given the other chains, then the spin of one of "
                 + "the chain's qubits drawn with --seed); descend is majority then greedy single flips on the logical "
@@ -45,22 +34,30 @@ public final class DecodeCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--problem", required = true, paramLabel = "P", description = "the physical problem the samples answer")
+    @Option(names = "--problem", paramLabel = "P", description = "the physical problem the samples answer")
     Path problem;
+
+    @Option(names = "--manifest", paramLabel = "M",
+            description = "a gauges manifest: decode every gauge's un-gauged reads (instead of --problem)")
+    Path manifest;
 
     @Option(names = "--logical", required = true, paramLabel = "Q", description = "the logical problem")
     Path logical;
 
-    @Option(names = "--chains", required = true, paramLabel = "C", description = "the chains (obverse.chains/1)")
+    @Option(names = "--chains", paramLabel = "C",
+            description = "the chains (obverse.chains/1); with --manifest, default: the chains it records")
     Path chains;
 
-    @Option(names = "--samples", required = true, paramLabel = "S", description = "physical samples (.npy int8 or .csv, -1/+1)")
+    @Option(names = "--samples", required = true, paramLabel = "S",
+            description = "physical samples (.npy int8 or .csv, -1/+1); with --manifest, the folder of un-gauged reads")
     Path samples;
 
     @Option(names = "--rule", required = true, paramLabel = "discard|majority|descend", description = "the chain-break rule")
     String rule;
 
-    @Option(names = "--seed", defaultValue = "0", paramLabel = "S", description = "seed of the tie coin (default ${DEFAULT-VALUE})")
+    @Option(names = "--seed", defaultValue = "0", paramLabel = "S",
+            description = "seed of the tie coin (default ${DEFAULT-VALUE}); with --manifest gauge i uses a seed derived "
+                    + "from S and i")
     long seed;
 
     @Option(names = "--out", required = true, paramLabel = "DIR", description = "output folder")
@@ -68,6 +65,9 @@ public final class DecodeCommand implements Callable<Integer> {
 
     @Option(names = "--force", description = "replace an existing output folder")
     boolean force;
+
+    @Option(names = "--allow-missing", description = "with --manifest: skip a gauge without un-gauged reads")
+    boolean allowMissing;
 
     @Option(names = "--instance", paramLabel = "NAME",
             description = "also write DIR/results.csv, the results table (spec/results.md) of these reads, for this instance")
@@ -79,9 +79,13 @@ public final class DecodeCommand implements Callable<Integer> {
     @Option(names = "--gauge", paramLabel = "I", description = "the gauge index of the results rows (default: none)")
     Integer gauge;
 
-    @Option(names = "--run-us", paramLabel = "T", defaultValue = "1",
-            description = "time of one anneal in microseconds, pause included, for the results rows (default ${DEFAULT-VALUE})")
-    double runUs;
+    @Option(names = "--run-us", paramLabel = "T",
+            description = "time of one anneal in microseconds, pause included, for the results rows (or --schedule)")
+    Double runUs;
+
+    @Option(names = "--schedule", paramLabel = "F",
+            description = "the anneal schedule the reads were taken with (obverse.schedule/1): run_us = its run time")
+    Path schedule;
 
     @Option(names = "--column", paramLabel = "NAME=VALUE",
             description = "an extra column of the results rows, e.g. --column chain_coupling=-1.6 (repeatable)")
@@ -92,120 +96,91 @@ public final class DecodeCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
+        if ((problem == null) == (manifest == null)) {
+            throw new BadInputException("give either --problem P (one samples file) or --manifest M (every gauge)");
+        }
+        if (problem != null && chains == null) {
+            throw new BadInputException("--chains C is needed with --problem: the chains P was embedded with");
+        }
+        if (manifest != null && gauge != null) {
+            throw new BadInputException("--gauge I goes with --problem; with --manifest every row carries its gauge's index");
+        }
+        if (problem != null && allowMissing) {
+            throw new BadInputException("--allow-missing goes with --manifest");
+        }
         ChainBreakRule r = ChainBreakRule.named(rule);
-        List<String> extraNames = new ArrayList<>();
-        List<String> extraValues = new ArrayList<>();
-        if (instance != null || setting != null || gauge != null || !columns.isEmpty()) {
-            if (instance == null || instance.isEmpty() || setting == null) {
-                throw new BadInputException("--instance NAME and --setting LABEL go together (and with --gauge, --column)"
-                        + "; give both to write DIR/results.csv");
-            }
-            if (!(runUs > 0) || Double.isInfinite(runUs)) {
-                throw new BadInputException("--run-us " + runUs + " must be a positive number of microseconds");
-            }
-            if (gauge != null && gauge < 0) {
-                throw new BadInputException("--gauge " + gauge + " must be a gauge index >= 0");
-            }
-            for (String c : columns) {
-                int eq = c.indexOf('=');
-                if (eq <= 0 || ResultsTable.COLUMNS.contains(c.substring(0, eq)) || extraNames.contains(c.substring(0, eq))) {
-                    throw new BadInputException("--column " + c + " must be NAME=VALUE with a new NAME that is not one of "
-                            + ResultsTable.COLUMNS);
-                }
-                extraNames.add(c.substring(0, eq));
-                extraValues.add(c.substring(eq + 1));
-            }
-        }
-        AtomicOutput.checkTarget(out, force);
-        VariableIndex qubits = ProblemCodec.read(problem).variables();
-        IsingProblem q = ProblemCodec.read(logical).spin();
-        ChainList list = ChainsCodec.read(chains);
-        Chains c = Chains.of(list.logicalIds(), list.qubitGroups());
-        ChainDecoder decoder;
-        try {
-            decoder = ChainDecoder.of(q, c, qubits, r, seed);
-        } catch (IllegalArgumentException e) {
-            throw BadInputException.at(chains, "", e.getMessage(), "give the chains that " + problem + " was embedded with");
-        }
+        DecodeStep.Labels labels = labels();
         SampleCoding coding = binary ? SampleCoding.BINARY : SampleCoding.SPIN;
-        SampleBlock physical;
-        try (SampleReader in = SampleFiles.open(samples, qubits, coding)) {
-            physical = in.readRemaining();
-        }
-        DecodedSamples d;
-        try {
-            d = decoder.decode(physical);
-        } catch (IllegalArgumentException e) {
-            throw BadInputException.at(samples, "", e.getMessage(), "");
-        }
-        Path logicalName = Path.of(SampleFormat.of(samples).fileName("logical"));
-        AtomicOutput.writeDirectory(out, force, dir -> {
-            try (SampleWriter w = SampleFiles.create(dir.resolve(logicalName), q.variables(), false, coding)) {
-                w.writeBlock(d.logical());
-                w.commit();
-            }
-            NpyVectors.writeBool(dir.resolve("kept.npy"), false, d.kept());
-            NpyVectors.writeInt32(dir.resolve("broken.npy"), false, d.brokenChains());
-            NpyVectors.writeFloat64(dir.resolve("energies.npy"), false, d.energies());
-            StringBuilder csv = new StringBuilder("logical_id,length,broken_reads,broken_fraction\n");
-            long[] breaks = d.breaksPerChain();
-            Chains used = c.restrictedTo(q.variables());
-            for (int k = 0; k < breaks.length; k++) {
-                csv.append(used.logicalId(k)).append(',').append(used.length(k)).append(',').append(breaks[k]).append(',')
-                        .append(d.reads() == 0 ? 0.0 : (double) breaks[k] / d.reads()).append('\n');
-            }
-            Files.writeString(dir.resolve("chains.csv"), csv);
-            if (instance != null) {
-                try (java.io.Writer out = Files.newBufferedWriter(dir.resolve("results.csv"))) {
-                    writeResults(ResultsTable.RowWriter.start(out, extraNames), d, extraValues.toArray(new String[0]));
-                }
-            }
-        });
         PrintWriter w = spec.commandLine().getOut();
+        if (manifest != null) {
+            PrintWriter err = spec.commandLine().getErr();
+            DecodeStep.ManifestResult res = DecodeStep.runManifest(new DecodeStep.ManifestRequest(manifest, samples,
+                    logical, chains, r, seed, coding, out, labels, allowMissing, force,
+                    (phase, total, work) -> Progress.of(err, phase, total, work, false)));
+            long reads = 0;
+            long kept = 0;
+            for (DecodeStep.GaugeDone g : res.done()) {
+                reads += g.decoded().reads();
+                kept += g.decoded().keptReads();
+                w.printf("%s: %d reads, %d kept; %.6f of reads have a broken chain%n", g.folder().getFileName(),
+                        g.decoded().reads(), g.decoded().keptReads(), g.decoded().brokenReadFraction());
+            }
+            w.printf("decoded %d gauges (%s): %d reads, %d kept%s%n", res.done().size(), r.label(), reads, kept,
+                    res.missing().isEmpty() ? "" : "; skipped gauges without reads: " + res.missing());
+            w.printf("wrote %s%n", out);
+            return Main.DONE;
+        }
+        DecodeStep.Result res = DecodeStep.run(new DecodeStep.Request(problem, logical, chains, samples, r, seed, coding,
+                out, labels == null ? null : labels.withGauge(gauge == null ? -1 : gauge), force));
+        DecodedSamples d = res.decoded();
         w.printf("%d reads, %d kept (%s); broken chains: %.6f of all chain readings, %.6f of reads have one%n", d.reads(),
                 d.keptReads(), r.label(), d.brokenFraction(), d.brokenReadFraction());
-        long[] breaks = d.breaksPerChain();
-        int worst = -1;
-        for (int k = 0; k < breaks.length; k++) {
-            if (worst < 0 || breaks[k] > breaks[worst]) {
-                worst = k;
-            }
-        }
-        if (worst >= 0 && breaks[worst] > 0) {
+        int worst = res.mostBroken();
+        if (worst >= 0) {
+            int id = res.logical().id(worst);
             w.printf("most broken: chain of logical %d (length %d), broken in %d reads%n",
-                    q.variables().id(worst), c.chainOf(q.variables().id(worst)).length, breaks[worst]);
+                    id, res.chains().chainOf(id).length, d.breaksPerChain()[worst]);
         }
         w.printf("wrote %s%n", out);
         return Main.DONE;
     }
 
-    /**
-     * One row per distinct (energy, broken chains) among the kept reads, with its count, and one
-     * per broken-chain count among the discarded reads, with an empty energy (a failure).
-     */
-    private void writeResults(ResultsTable.RowWriter rows, DecodedSamples d, String[] extra) throws IOException {
-        boolean[] kept = d.kept();
-        int[] broken = d.brokenChains();
-        double[] energies = d.energies();
-        java.util.Map<String, long[]> keptCounts = new java.util.LinkedHashMap<>();
-        java.util.TreeMap<Long, long[]> droppedCounts = new java.util.TreeMap<>();
-        int e = 0;
-        for (int k = 0; k < kept.length; k++) {
-            if (kept[k]) {
-                // One slot per distinct (energy bits, broken chains), holding (bits, broken, count).
-                long bits = Double.doubleToLongBits(energies[e++]);
-                int b = broken[k];
-                keptCounts.computeIfAbsent(bits + "/" + b, x -> new long[] {bits, b, 0})[2]++;
-            } else {
-                droppedCounts.computeIfAbsent((long) broken[k], x -> new long[1])[0]++;
+    /** The labels of the results rows, or null when none are asked for; the run time never has a default. */
+    private DecodeStep.Labels labels() {
+        if (instance == null && setting == null && gauge == null && columns.isEmpty() && runUs == null
+                && schedule == null) {
+            return null;
+        }
+        if (instance == null || instance.isEmpty() || setting == null) {
+            throw new BadInputException("--instance NAME and --setting LABEL go together (and with --gauge, --column, "
+                    + "--run-us, --schedule); give both to write DIR/results.csv");
+        }
+        if ((runUs == null) == (schedule == null)) {
+            throw new BadInputException(runUs == null
+                    ? "results rows need the run time of one anneal: give --run-us T or --schedule F (the schedule the "
+                            + "reads were taken with); there is no default"
+                    : "give the run time once: --run-us T or --schedule F, not both");
+        }
+        double t = runUs != null ? runUs : ScheduleCodec.read(schedule).runTimeMicros();
+        if (!(t > 0) || Double.isInfinite(t)) {
+            throw new BadInputException("--run-us " + t + " must be a positive number of microseconds");
+        }
+        if (gauge != null && gauge < 0) {
+            throw new BadInputException("--gauge " + gauge + " must be a gauge index >= 0");
+        }
+        List<String> extraNames = new ArrayList<>();
+        List<String> extraValues = new ArrayList<>();
+        for (String c : columns) {
+            int eq = c.indexOf('=');
+            String name = eq <= 0 ? "" : c.substring(0, eq);
+            if (eq <= 0 || ResultsTable.COLUMNS.contains(name) || name.equals(ResultsTable.FRAME)
+                    || extraNames.contains(name)) {
+                throw new BadInputException("--column " + c + " must be NAME=VALUE with a new NAME that is not one of "
+                        + ResultsTable.COLUMNS + " or " + ResultsTable.FRAME);
             }
+            extraNames.add(c.substring(0, eq));
+            extraValues.add(c.substring(eq + 1));
         }
-        int g = gauge == null ? -1 : gauge;
-        for (long[] slot : keptCounts.values()) {
-            rows.row(instance, setting, g, Double.longBitsToDouble(slot[0]), slot[2], slot[1], runUs, extra);
-        }
-        for (java.util.Map.Entry<Long, long[]> x : droppedCounts.entrySet()) {
-            rows.row(instance, setting, g, Double.NaN, x.getValue()[0], x.getKey(), runUs, extra);
-        }
+        return new DecodeStep.Labels(instance, setting, -1, t, extraNames, extraValues);
     }
 }

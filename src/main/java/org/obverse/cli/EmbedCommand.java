@@ -1,32 +1,12 @@
 package org.obverse.cli;
 
-import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
+import org.obverse.campaign.EmbedStep;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.security.SecureRandom;
 import java.util.concurrent.Callable;
-import org.apache.commons.rng.simple.RandomSource;
-import org.obverse.device.CellLattice;
-import org.obverse.device.DeviceLimits;
-import org.obverse.device.QubitGraph;
-import org.obverse.embed.ChainEmbedder;
 import org.obverse.embed.ChainStrength;
-import org.obverse.embed.Chains;
-import org.obverse.embed.CliqueEmbedding;
 import org.obverse.embed.EmbeddedProblem;
-import org.obverse.embed.EmbeddingNotFoundException;
-import org.obverse.embed.FinderLimits;
-import org.obverse.embed.RerouteEmbeddingFinder;
-import org.obverse.io.AtomicOutput;
-import org.obverse.io.BadInputException;
-import org.obverse.io.ChainList;
-import org.obverse.io.ChainsCodec;
-import org.obverse.io.DeviceCodec;
-import org.obverse.io.JsonFiles;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
-import org.obverse.model.IsingProblem;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -97,96 +77,41 @@ public final class EmbedCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        AtomicOutput.checkTarget(out, force);
-        IsingProblem q = ProblemCodec.read(logical).spin();
-        ObjectNode deviceJson = JsonFiles.read(device, DeviceCodec.KIND);
-        DeviceLimits d = DeviceCodec.fromJson(device, deviceJson);
-        QubitGraph g = d.graph().orElseThrow(() -> BadInputException.at(device, "", "lists no working graph",
-                "give \"qubits\" and \"couplers\"; embedding needs them"));
-        PrintWriter w = spec.commandLine().getOut();
-        Chains c;
-        Path writeChains = null;
-        if (chains != null) {
-            ChainList list = ChainsCodec.read(chains);
-            c = Chains.of(list.logicalIds(), list.qubitGroups());
-        } else {
-            writeChains = chainsOut != null ? chainsOut : siblingChains(out);
-            AtomicOutput.checkTarget(writeChains, force);
-            c = find(q, g, deviceJson, w);
-        }
         ChainStrength strength = new ChainStrength(chainCoupling, ChainStrength.Mode.named(mode));
-        EmbeddedProblem ep;
-        try {
-            ep = ChainEmbedder.embed(q, c, d, strength, scale == null ? Double.NaN : scale);
-        } catch (IllegalArgumentException e) {
-            Path about = chains != null ? chains : device;
-            throw BadInputException.at(about, "", e.getMessage(), chains != null
-                    ? "fix the chains, or leave out --chains to have them found" : "");
+        EmbedStep.Search search = null;
+        if (chains == null) {
+            EmbedStep.Finder f;
+            try {
+                f = EmbedStep.Finder.named(finder);
+            } catch (IllegalArgumentException e) {
+                throw new IllegalArgumentException("--finder '" + finder + "' is not one of reroute, clique");
+            }
+            if (f == EmbedStep.Finder.REROUTE && (rounds < 1 || !(timeLimit >= 0))) {
+                throw new IllegalArgumentException("--rounds must be >= 1 and --time-limit >= 0");
+            }
+            long s = seed != null || f == EmbedStep.Finder.CLIQUE ? (seed == null ? 0 : seed) : new SecureRandom().nextLong();
+            search = new EmbedStep.Search(f, s, Math.max(rounds, 1), tries, Math.max(timeLimit, 0));
         }
-        ObjectNode meta = JsonFiles.MAPPER.createObjectNode();
-        meta.put("scale", ep.scale());
-        meta.put("chain_coupling", chainCoupling);
-        meta.put("chain_coupling_mode", strength.mode().label());
-        meta.put("chain_couplers", ep.chainCouplerCount());
-        meta.put("chain_energy", ep.chainEnergy());
-        meta.put("logical_offset", q.offset());
-        meta.put("logical_variables", q.size());
-        meta.put("longest_chain", ep.chains().maxLength());
-        if (writeChains != null) {
-            ChainsCodec.write(writeChains, force, new ChainList(ep.chains().logicalIds().toArray(), ep.chains().qubitGroups()));
+        EmbedStep.Result r = EmbedStep.run(new EmbedStep.Request(logical, chains, device, strength,
+                scale == null ? Double.NaN : scale, out, chainsOut, search, force));
+        PrintWriter w = spec.commandLine().getOut();
+        EmbedStep.Found found = r.found();
+        if (found != null && found.lattice() != null) {
+            w.printf("native clique of %d variables in %s (at most %d without defects): chains of length %d%n",
+                    r.logical().size(), found.lattice(), found.cliqueMax(), r.embedded().chains().maxLength());
+        } else if (found != null) {
+            w.printf("found chains (rip-up and reroute, seed %d, best of up to %d tries) in %.1f s%n",
+                    found.search().seed(), found.search().tries(), found.seconds());
         }
-        ProblemCodec.write(out, force, ProblemFile.of(ep.physical(), meta));
-        w.printf("embedded %d logical variables on %d qubits: longest chain %d, %d chain couplers%n", q.size(),
+        EmbeddedProblem ep = r.embedded();
+        w.printf("embedded %d logical variables on %d qubits: longest chain %d, %d chain couplers%n", r.logical().size(),
                 ep.physical().size(), ep.chains().maxLength(), ep.chainCouplerCount());
         w.printf("scale %s, chain coupling %s (%s), chain energy %s: E_phys = %s * E_logical + %s for unbroken reads%n",
                 ep.scale(), chainCoupling, strength.mode().label(), ep.chainEnergy(), ep.scale(), ep.chainEnergy());
-        if (writeChains != null) {
-            w.printf("wrote %s%n", writeChains);
+        if (r.chainsWritten() != null) {
+            w.printf("wrote %s%n", r.chainsWritten());
         }
         w.printf("wrote %s%n", out);
         return Main.DONE;
-    }
-
-    private Chains find(IsingProblem q, QubitGraph g, ObjectNode deviceJson, PrintWriter w) {
-        if (finder.equals("clique")) {
-            JsonNode shape = deviceJson.path("meta").path("lattice");
-            if (!shape.path("rows").isInt() || !shape.path("cols").isInt() || !shape.path("shore").isInt()) {
-                throw BadInputException.at(device, "\"meta\".\"lattice\"", "is missing",
-                        "--finder clique needs a device made by 'obverse device lattice'; use --finder reroute");
-            }
-            CellLattice lattice = CellLattice.of(shape.get("rows").asInt(), shape.get("cols").asInt(),
-                    shape.get("shore").asInt());
-            try {
-                Chains c = CliqueEmbedding.avoidingDefects(lattice, g, q.variables());
-                w.printf("native clique of %d variables in %s (at most %d without defects): chains of length %d%n",
-                        q.size(), lattice, CliqueEmbedding.maxSize(lattice), c.maxLength());
-                return c;
-            } catch (IllegalArgumentException e) {
-                throw BadInputException.at(logical, "", e.getMessage(), "");
-            }
-        }
-        if (!finder.equals("reroute")) {
-            throw new IllegalArgumentException("--finder '" + finder + "' is not one of reroute, clique");
-        }
-        if (rounds < 1 || !(timeLimit >= 0)) {
-            throw new IllegalArgumentException("--rounds must be >= 1 and --time-limit >= 0");
-        }
-        long s = seed != null ? seed : new SecureRandom().nextLong();
-        long start = System.nanoTime();
-        try {
-            Chains c = RerouteEmbeddingFinder.findBest(q, g, new FinderLimits(rounds, (long) (timeLimit * 1000)), tries,
-                    RandomSource.XO_RO_SHI_RO_128_PP.create(s));
-            w.printf("found chains (rip-up and reroute, seed %d, best of up to %d tries) in %.1f s%n", s, tries,
-                    (System.nanoTime() - start) / 1e9);
-            return c;
-        } catch (EmbeddingNotFoundException e) {
-            throw BadInputException.at(logical, "", e.getMessage() + " (seed " + s + ")", "");
-        }
-    }
-
-    private static Path siblingChains(Path problem) {
-        String name = problem.getFileName().toString();
-        String stem = name.endsWith(".json") ? name.substring(0, name.length() - 5) : name;
-        return problem.resolveSibling(stem + ".chains.json");
     }
 }

@@ -26,6 +26,7 @@ import picocli.CommandLine.Command;
             ReportCommand.class,
             SampleCommand.class,
             SpectrumCommand.class,
+            CampaignCommand.class,
             DemoCommand.class,
         })
 public final class Main implements Runnable {

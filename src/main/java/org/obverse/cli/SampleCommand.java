@@ -1,32 +1,16 @@
 package org.obverse.cli;
 
-import java.io.IOException;
+import org.obverse.campaign.SampleStep;
 import java.io.PrintWriter;
-import java.io.StringWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import org.obverse.io.ResultsTable;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.concurrent.Callable;
 import org.obverse.anneal.AnnealSchedule;
 import org.obverse.anneal.ControlErrors;
-import org.obverse.anneal.ReferenceSampler;
-import org.obverse.anneal.SampledReads;
 import org.obverse.anneal.SamplerSettings;
-import org.obverse.anneal.StreamSeeds;
-import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
+import org.obverse.io.EnergyFrame;
 import org.obverse.io.ControlErrorsCodec;
-import org.obverse.io.GaugeManifest;
-import org.obverse.io.ManifestCodec;
-import org.obverse.io.NpyVectors;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
 import org.obverse.io.SampleCoding;
-import org.obverse.io.SampleFiles;
-import org.obverse.io.SampleFormat;
-import org.obverse.io.SampleWriter;
 import org.obverse.io.ScheduleCodec;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
@@ -93,8 +77,9 @@ public final class SampleCommand implements Callable<Integer> {
 
     @Option(names = "--instance", paramLabel = "NAME",
             description = "also write the results table (spec/results.md) of the reads, for this instance: OUT's stem + "
-                    + ".results.csv with --problem, OUT/results.csv with --manifest. Energies are the sampled problem's "
-                    + "(for an embedded problem, decode --instance gives logical ones).")
+                    + ".results.csv with --problem, OUT/results.csv with --manifest. Energies are the sampled problem's: "
+                    + "energy_frame physical for an embedded problem (decode --instance gives logical ones), logical "
+                    + "otherwise; run_us is the schedule's run time.")
     String instance;
 
     @Option(names = "--setting", paramLabel = "LABEL", description = "the setting label of the results rows (with --instance)")
@@ -106,67 +91,32 @@ public final class SampleCommand implements Callable<Integer> {
             throw new BadInputException("--reads " + reads + ": need at least 1 read");
         }
         SamplerSettings settings = settings();
-        ReferenceSampler sampler = ReferenceSampler.of(settings);
         PrintWriter w = spec.commandLine().getOut();
         SampleCoding coding = binary ? SampleCoding.BINARY : SampleCoding.SPIN;
         if ((instance == null) != (setting == null) || (instance != null && instance.isEmpty())) {
             throw new BadInputException("--instance NAME and --setting LABEL go together; give both to write the results table");
         }
-        double runUs = settings.schedule().runTimeMicros();
+        SampleStep.Labels labels = instance == null ? null : new SampleStep.Labels(instance, setting);
+        PrintWriter err = spec.commandLine().getErr();
+        SampleStep.Result r = SampleStep.run(new SampleStep.Request(input.problem, input.manifest, settings, reads, seed,
+                out, coding, labels, force, (phase, total, work) -> Progress.of(err, phase, total, work, false)));
+        if (r.results() != null && r.frame() == EnergyFrame.PHYSICAL) {
+            w.printf("the results rows hold physical energies (the problem records an embedding): energy_frame physical;"
+                    + " decode --instance gives logical ones%n");
+        }
         if (input.problem != null) {
-            ProblemFile pf = ProblemCodec.read(input.problem);
-            Path energiesFile = energiesBeside(out);
-            AtomicOutput.checkTarget(out, force);
-            AtomicOutput.checkTarget(energiesFile, force);
-            SampledReads s = sample(sampler, pf, seed);
-            Path resultsFile = instance == null ? null : besideWith(out, ".results.csv");
-            if (resultsFile != null) {
-                AtomicOutput.checkTarget(resultsFile, force);
-            }
-            writeSamples(out, s, force, coding);
-            NpyVectors.writeFloat64(energiesFile, force, s.energies());
-            if (resultsFile != null) {
-                StringWriter table = new StringWriter();
-                addRows(ResultsTable.RowWriter.start(table, List.of()), s.energies(), -1, runUs);
-                AtomicOutput.writeText(resultsFile, force, table.toString());
-            }
+            SampleStep.Done s = r.done().get(0);
             w.printf("sampled %d reads of %d variables (%d sweeps, %s us a read), minimum energy %s%n", s.reads(),
-                    s.variables().size(), s.sweeps(), s.runTimeMicros(), s.minimumEnergy());
-            w.printf("wrote %s and %s%n", out, energiesFile);
+                    s.variables(), s.sweeps(), s.runUs(), s.minimumEnergy());
+            w.printf("wrote %s and %s%n", s.samples(), s.energies());
             return Main.DONE;
         }
-        GaugeManifest m = ManifestCodec.read(input.manifest);
-        Path folder = input.manifest.toAbsolutePath().getParent();
-        List<String> lines = new ArrayList<>();
-        StringWriter table = new StringWriter();
-        ResultsTable.RowWriter rows = instance == null ? null : ResultsTable.RowWriter.start(table, List.of());
-        AtomicOutput.writeDirectory(out, force, dir -> {
-            for (GaugeManifest.Entry e : m.gauges()) {
-                Path file = folder.resolve(e.problem()).normalize();
-                ProblemFile pf = ProblemCodec.read(file);
-                String hash = ProblemCodec.contentHash(pf);
-                if (!hash.equals(e.sha256())) {
-                    throw BadInputException.at(file, "", "the gauged problem of gauge " + e.index()
-                            + " changed since the gauges were made (content hash " + hash.substring(0, 12)
-                            + "…, the manifest records " + e.sha256().substring(0, 12) + "…)",
-                            "restore the file or draw the gauges again");
-                }
-                SampledReads s = sample(sampler, pf, StreamSeeds.derive(seed, StreamSeeds.GAUGES, e.index()));
-                writeSamples(dir.resolve(SampleFormat.NPY.fileName(e.stem())), s, false, coding);
-                NpyVectors.writeFloat64(dir.resolve(e.stem() + ".energies.npy"), false, s.energies());
-                lines.add(String.format("%s: %d reads, minimum energy %s", e.stem(), s.reads(), s.minimumEnergy()));
-                if (rows != null) {
-                    addRows(rows, s.energies(), e.index(), runUs);
-                }
-            }
-            if (rows != null) {
-                Files.writeString(dir.resolve("results.csv"), table.toString());
-            }
-        });
-        w.printf("sampled %d gauges, %d reads each (%d sweeps, %s us a read), into %s%n", m.gauges().size(), reads,
+        w.printf("sampled %d gauges, %d reads each (%d sweeps, %s us a read), into %s%n", r.done().size(), reads,
                 settings.sweeps(), settings.schedule().runTimeMicros(), out);
-        for (String line : lines) {
-            w.println(line);
+        for (SampleStep.Done s : r.done()) {
+            String stem = s.samples().getFileName().toString();
+            w.println(String.format("%s: %d reads, minimum energy %s", stem.substring(0, stem.length() - 4), s.reads(),
+                    s.minimumEnergy()));
         }
         return Main.DONE;
     }
@@ -201,47 +151,5 @@ public final class SampleCommand implements Callable<Integer> {
             s = s.withThreads(threads);
         }
         return s;
-    }
-
-    /**
-     * Samples the problem's spin form, so the energies are bit for bit those {@code obverse
-     * energy} computes for the same file and samples.
-     */
-    private SampledReads sample(ReferenceSampler sampler, ProblemFile pf, long s) {
-        return sampler.sample(pf.spin(), reads, s);
-    }
-
-    private static void writeSamples(Path target, SampledReads s, boolean force, SampleCoding coding) throws IOException {
-        try (SampleWriter writer = SampleFiles.create(target, s.variables(), force, coding)) {
-            writer.writeBlock(s.samples());
-            writer.commit();
-        }
-    }
-
-    /** One results row per distinct energy, with its count (no chains here: broken 0). */
-    private void addRows(ResultsTable.RowWriter rows, double[] energies, int gauge, double runUs) throws IOException {
-        java.util.Map<Long, long[]> counts = new java.util.LinkedHashMap<>();
-        for (double e : energies) {
-            counts.computeIfAbsent(Double.doubleToLongBits(e), k -> new long[1])[0]++;
-        }
-        for (java.util.Map.Entry<Long, long[]> c : counts.entrySet()) {
-            rows.row(instance, setting, gauge, Double.longBitsToDouble(c.getKey()), c.getValue()[0], 0, runUs);
-        }
-    }
-
-    /** {@code dir/run.npy} → {@code dir/run.energies.npy}. */
-    static Path energiesBeside(Path samples) {
-        return besideWith(samples, ".energies.npy");
-    }
-
-    /** {@code dir/run.npy} → {@code dir/run<suffix>}. */
-    static Path besideWith(Path samples, String suffix) {
-        SampleFormat.of(samples);
-        String name = samples.getFileName().toString();
-        int dot = name.lastIndexOf('.');
-        String stem = dot > 0 ? name.substring(0, dot) : name;
-        Path parent = samples.getParent();
-        Path e = Path.of(stem + suffix);
-        return parent == null ? e : parent.resolve(e);
     }
 }

@@ -24,8 +24,19 @@ public final class ProblemCodec {
     private ProblemCodec() {
     }
 
-    /** Reads and validates a problem file. */
+    /**
+     * Reads and validates a problem file: {@code obverse.problem/1} JSON, or by its ending an
+     * {@code .npy} Q matrix or an {@code .npz} archive of h and J ({@link NpyProblemCodec}).
+     */
     public static ProblemFile read(Path file) {
+        Path name = file.getFileName();
+        String lower = name == null ? "" : name.toString().toLowerCase(java.util.Locale.ROOT);
+        if (lower.endsWith(".npy")) {
+            return NpyProblemCodec.readMatrix(file);
+        }
+        if (lower.endsWith(".npz")) {
+            return NpyProblemCodec.readArchive(file);
+        }
         return fromJson(file, JsonFiles.read(file, KIND));
     }
 
@@ -187,7 +198,11 @@ public final class ProblemCodec {
         AtomicOutput.writeText(file, force, JsonFiles.text(toJson(pf)));
     }
 
-    /** SHA-256 of the problem's canonical form: what the manifest binds (layout and meta order don't matter). */
+    /**
+     * SHA-256 of the problem's canonical form: what the manifest binds (layout and meta order
+     * don't matter). An {@code .npy} or {@code .npz} problem hashes as the problem it decodes to,
+     * so it hashes the same as the JSON file of the same problem without meta.
+     */
     public static String contentHash(ProblemFile pf) {
         return ContentHash.of(toJson(pf));
     }

@@ -21,11 +21,22 @@ import org.obverse.stats.SuccessRule;
  * {@link Campaign}, so a table never sits in memory row by row. Ground energies come from a
  * file; without one, an instance's least energy seen over the whole table is used and marked
  * as such (the file is then read twice).
+ *
+ * <p>Frames: a row's energies are in the frame of its {@value #FRAME} column (logical where the
+ * column is absent), and so is a ground energy. Reading refuses a row whose frame differs from
+ * its instance's ground energy's and, without ground energies, an instance with rows in both
+ * frames.
  */
 public final class ResultsTable {
     /** The columns every results table has. */
     public static final List<String> COLUMNS = List.of("instance", "setting", "gauge", "energy", "count", "broken",
             "run_us");
+
+    /**
+     * The optional column saying whose energies a row holds ({@link EnergyFrame}); a table or a
+     * ground-energy file without it holds logical energies.
+     */
+    public static final String FRAME = "energy_frame";
 
     private static final java.util.regex.Pattern DECIMAL =
             java.util.regex.Pattern.compile("[-+]?(\\d+\\.?\\d*|\\.\\d+)([eE][-+]?\\d+)?");
@@ -71,20 +82,47 @@ public final class ResultsTable {
     }
 
     /**
-     * Reads a results table into counts. ground may be null (best seen is used then).
+     * The frames of a ground-energy file's instances, from its optional {@value #FRAME} column
+     * (an instance without one, or a file without the column, is logical).
+     */
+    public static Map<String, EnergyFrame> readGroundFrames(Path file) throws IOException {
+        Map<String, EnergyFrame> out = new HashMap<>();
+        try (CsvReader csv = CsvReader.open(file)) {
+            int[] col = csv.require("a ground-energy file", "instance", "ground_energy");
+            int f = csv.column(FRAME);
+            if (f < 0) {
+                return out;
+            }
+            String[] r;
+            while ((r = csv.record()) != null) {
+                out.put(r[col[0]], frame(csv, f, r[f]));
+            }
+        }
+        return out;
+    }
+
+    /**
+     * Reads a results table into counts. ground may be null (best seen is used then); the
+     * frames of ground energies come from groundFile's {@value #FRAME} column, and ground
+     * energies given without a file are logical.
      *
      * @throws BadInputException at the first bad row, or naming an instance with no ground energy
      */
     public static Loaded read(Path file, Map<String, Double> ground, Path groundFile, SuccessRule rule)
             throws IOException {
         Map<String, Double> best = null;
+        Map<String, EnergyFrame> groundFrames = ground == null || groundFile == null ? Map.of()
+                : readGroundFrames(groundFile);
+        Map<String, EnergyFrame> frames = new HashMap<>();
         if (ground == null) {
             best = new HashMap<>();
             try (CsvReader csv = CsvReader.open(file)) {
                 int[] col = csv.require("a results table", COLUMNS.toArray(new String[0]));
+                int frameCol = csv.column(FRAME);
                 String[] r;
                 while ((r = csv.record()) != null) {
                     Row row = parse(csv, col, r);
+                    checkFrame(csv, frameCol, r, row.instance, frames, null, null);
                     if (!Double.isNaN(row.energy)) {
                         best.merge(row.instance, row.energy, Math::min);
                     }
@@ -101,8 +139,9 @@ public final class ResultsTable {
             int[] col = csv.require("a results table", COLUMNS.toArray(new String[0]));
             List<String> header = csv.header();
             List<Integer> extraIdx = new ArrayList<>();
+            int frameCol = csv.column(FRAME);
             for (int i = 0; i < header.size(); i++) {
-                if (!COLUMNS.contains(header.get(i))) {
+                if (!COLUMNS.contains(header.get(i)) && i != frameCol) {
                     extras.add(header.get(i));
                     extraIdx.add(i);
                     values.put(header.get(i), new LinkedHashMap<>());
@@ -112,6 +151,9 @@ public final class ResultsTable {
             String[] r;
             while ((r = csv.record()) != null) {
                 Row row = parse(csv, col, r);
+                if (ground != null) {
+                    checkFrame(csv, frameCol, r, row.instance, frames, groundFrames, groundFile);
+                }
                 Double g = groundSeen.get(row.instance);
                 if (g == null) {
                     if (ground != null) {
@@ -160,6 +202,41 @@ public final class ResultsTable {
             }
         }
         return new Loaded(b.build(), rows, extras, values);
+    }
+
+    /**
+     * Refuses a row whose frame differs from its instance's ground energy's (groundFrames given)
+     * or, without ground energies, from the frame of the instance's earlier rows.
+     */
+    private static void checkFrame(CsvReader csv, int frameCol, String[] r, String instance,
+            Map<String, EnergyFrame> seen, Map<String, EnergyFrame> groundFrames, Path groundFile) {
+        EnergyFrame f = frameCol < 0 ? EnergyFrame.LOGICAL : frame(csv, frameCol, r[frameCol]);
+        if (groundFrames != null) {
+            EnergyFrame g = groundFrames.getOrDefault(instance, EnergyFrame.LOGICAL);
+            if (f != g) {
+                throw BadInputException.at(csv.file(), "line " + csv.line(), "instance '" + instance + "' has "
+                        + f.label() + " energies but its ground energy (" + groundFile + ") is " + g.label(),
+                        f == EnergyFrame.PHYSICAL
+                                ? "decode the physical samples with their chains (decode --instance) to get logical "
+                                        + "energies, or give ground energies in the physical frame (column " + FRAME + ")"
+                                : "give the ground energy of the logical problem, or score physical rows");
+            }
+            return;
+        }
+        EnergyFrame before = seen.putIfAbsent(instance, f);
+        if (before != null && before != f) {
+            throw BadInputException.at(csv.file(), "line " + csv.line(), "instance '" + instance + "' mixes "
+                    + before.label() + " and " + f.label() + " energies",
+                    "decode the physical samples with their chains so that every row is logical");
+        }
+    }
+
+    private static EnergyFrame frame(CsvReader csv, int column, String text) {
+        EnergyFrame f = EnergyFrame.ofLabel(text.trim());
+        if (f == null) {
+            throw csv.error(column, text, "is not an energy frame", "write logical or physical");
+        }
+        return f;
     }
 
     private record Row(String instance, String setting, int gauge, double energy, long count, long broken,
@@ -225,23 +302,41 @@ public final class ResultsTable {
     public static final class RowWriter {
         private final Writer out;
         private final int extras;
+        private final String frame;
 
-        private RowWriter(Writer out, List<String> extraColumns) throws IOException {
+        private RowWriter(Writer out, EnergyFrame frame, List<String> extraColumns, boolean header)
+                throws IOException {
             this.out = out;
             this.extras = extraColumns.size();
-            StringBuilder h = new StringBuilder(String.join(",", COLUMNS));
+            this.frame = frame.label();
+            StringBuilder h = new StringBuilder(String.join(",", COLUMNS)).append(',').append(FRAME);
             for (String e : extraColumns) {
-                if (COLUMNS.contains(e)) {
+                if (COLUMNS.contains(e) || e.equals(FRAME)) {
                     throw new IllegalArgumentException("extra column " + e + " clashes with a fixed column");
                 }
                 h.append(',').append(CsvReader.quote(e));
             }
-            out.write(h.append('\n').toString());
+            if (header) {
+                out.write(h.append('\n').toString());
+            }
         }
 
-        /** Starts a table with the header. */
+        /**
+         * Starts a table with the header: the fixed columns, {@value ResultsTable#FRAME} (the
+         * frame of every row), then the extra columns.
+         */
+        public static RowWriter start(Writer out, EnergyFrame frame, List<String> extraColumns) throws IOException {
+            return new RowWriter(out, frame, extraColumns, true);
+        }
+
+        /** Starts a table of logical energies. */
         public static RowWriter start(Writer out, List<String> extraColumns) throws IOException {
-            return new RowWriter(out, extraColumns);
+            return new RowWriter(out, EnergyFrame.LOGICAL, extraColumns, true);
+        }
+
+        /** Rows of logical energies with these extra columns, without a header: part of a table written elsewhere. */
+        public static RowWriter continuing(Writer out, List<String> extraColumns) throws IOException {
+            return new RowWriter(out, EnergyFrame.LOGICAL, extraColumns, false);
         }
 
         /** One row; gauge −1 writes an empty gauge field; a NaN energy (a discarded read) an empty energy; count ≥ 1. */
@@ -259,7 +354,7 @@ public final class ResultsTable {
                 s.append(gauge);
             }
             s.append(',').append(Double.isNaN(energy) ? "" : format(energy)).append(',').append(count).append(',').append(broken).append(',')
-                    .append(format(runUs));
+                    .append(format(runUs)).append(',').append(frame);
             for (String v : extraValues) {
                 s.append(',').append(CsvReader.quote(v));
             }

@@ -59,6 +59,49 @@ public final class ScheduleCodec {
         return root;
     }
 
+    /**
+     * The schedule as a table of points, {@code t_us,s} with a header: the form a device
+     * submission takes (spec/campaign.md). Numbers are shortest round-trip decimals.
+     */
+    public static String tableText(AnnealSchedule schedule) {
+        StringBuilder s = new StringBuilder("t_us,s\n");
+        for (int k = 0; k < schedule.pointCount(); k++) {
+            s.append(schedule.time(k)).append(',').append(schedule.fraction(k)).append('\n');
+        }
+        return s.toString();
+    }
+
+    /** Reads a {@code t_us,s} table (default slope limit) and checks the schedule's rules. */
+    public static AnnealSchedule readTable(Path file) throws IOException {
+        java.util.List<double[]> rows = new java.util.ArrayList<>();
+        try (CsvReader csv = CsvReader.open(file)) {
+            int[] c = csv.require("a schedule table", "t_us", "s");
+            String[] r;
+            while ((r = csv.record()) != null) {
+                double t;
+                double v;
+                try {
+                    t = Double.parseDouble(r[c[0]]);
+                    v = Double.parseDouble(r[c[1]]);
+                } catch (NumberFormatException e) {
+                    throw BadInputException.at(file, "line " + csv.line(), "is not two numbers t_us,s", "fix the table");
+                }
+                rows.add(new double[] {t, v});
+            }
+        }
+        double[] t = new double[rows.size()];
+        double[] s = new double[rows.size()];
+        for (int k = 0; k < t.length; k++) {
+            t[k] = rows.get(k)[0];
+            s[k] = rows.get(k)[1];
+        }
+        try {
+            return AnnealSchedule.of(t, s);
+        } catch (IllegalArgumentException e) {
+            throw BadInputException.at(file, "", e.getMessage(), "fix the schedule table");
+        }
+    }
+
     /** Writes a schedule file atomically. */
     public static void write(Path file, boolean force, AnnealSchedule schedule) throws IOException {
         AtomicOutput.writeText(file, force, JsonFiles.text(toJson(schedule)));

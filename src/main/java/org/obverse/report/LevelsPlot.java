@@ -11,7 +11,7 @@ import org.knowm.xchart.style.markers.SeriesMarkers;
 
 /**
  * Plots of an anneal spectrum: the reachable levels E_0(s) … against s, with the minimum-gap
- * point s* and the suggested pause window marked, and the relevant gap against s (with Δmin
+ * point s*, the suggested pause window and each dip of the gap marked, and the relevant gap against s (with Δmin
  * and the pause-rule ratios). Takes plain arrays, so it depends on no computing package.
  */
 public final class LevelsPlot {
@@ -38,6 +38,13 @@ public final class LevelsPlot {
      */
     public static Figure levels(String title, double[] s, double[][] levels, int relevant, double sStar,
                                 double pauseFrom, double pauseTo, String energyUnit) throws IOException {
+        return levels(title, s, levels, relevant, sStar, pauseFrom, pauseTo, energyUnit, new double[0]);
+    }
+
+    /** The same, with each dip of the gap marked under the levels at its s ({@code dipS}, may be empty). */
+    public static Figure levels(String title, double[] s, double[][] levels, int relevant, double sStar,
+                                double pauseFrom, double pauseTo, String energyUnit, double[] dipS)
+            throws IOException {
         XYChart chart = base(title, "energy (" + energyUnit + ")");
         int count = levels.length == 0 ? 0 : levels[0].length;
         double lo = Double.POSITIVE_INFINITY;
@@ -56,13 +63,26 @@ public final class LevelsPlot {
             line.setLineStyle(new BasicStroke(i == 0 || i == relevant ? 2.0f : 1.0f));
         }
         marks(chart, lo, hi, sStar, pauseFrom, pauseTo);
-        return Figure.render("levels", "Reachable levels against s; s* (dashed) and the suggested pause window"
-                + " (green).", chart);
+        if (dipS.length > 0) {
+            double pad = hi > lo ? 0.02 * (hi - lo) : 0.5;
+            double[] y = new double[dipS.length];
+            java.util.Arrays.fill(y, lo - pad);
+            dips(chart, dipS, y);
+        }
+        return Figure.render("levels", "Reachable levels against s; s* (dashed), the suggested pause window"
+                + " (green)" + (dipS.length > 0 ? " and each dip of the gap (diamonds on the axis)." : "."), chart);
     }
 
     /** The relevant gap against s, with Δmin, s* and the pause window marked. */
     public static Figure gap(String title, double[] s, double[] gap, double sStar, double gapMin,
                              double pauseFrom, double pauseTo, String energyUnit) throws IOException {
+        return gap(title, s, gap, sStar, gapMin, pauseFrom, pauseTo, energyUnit, new double[0], new double[0]);
+    }
+
+    /** The same, with each dip of the gap (dipS[k], dipGap[k]) marked (may be empty). */
+    public static Figure gap(String title, double[] s, double[] gap, double sStar, double gapMin,
+                             double pauseFrom, double pauseTo, String energyUnit, double[] dipS, double[] dipGap)
+            throws IOException {
         XYChart chart = base(title, "relevant gap (" + energyUnit + ")");
         XYSeries line = chart.addSeries("gap", s, gap);
         line.setMarker(SeriesMarkers.NONE);
@@ -77,8 +97,18 @@ public final class LevelsPlot {
         floor.setLineColor(OTHER);
         floor.setLineStyle(DASHED);
         marks(chart, 0, hi, sStar, pauseFrom, pauseTo);
-        return Figure.render("gap", "Relevant gap against s; its minimum (dashed) and the suggested pause window"
-                + " (green).", chart);
+        if (dipS.length > 0) {
+            dips(chart, dipS, dipGap);
+        }
+        return Figure.render("gap", "Relevant gap against s; its minimum (dashed), the suggested pause window"
+                + " (green)" + (dipS.length > 0 ? " and each dip of the gap (diamonds)." : "."), chart);
+    }
+
+    private static void dips(XYChart chart, double[] x, double[] y) {
+        XYSeries dips = chart.addSeries("dips", x, y);
+        dips.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+        dips.setMarker(SeriesMarkers.DIAMOND);
+        dips.setMarkerColor(Color.BLACK);
     }
 
     /** s* and Δmin against the chain coupling (two panels' worth in one chart: s* on the left axis). */

@@ -1,5 +1,8 @@
 package org.obverse.spectrum;
 
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.IntConsumer;
 import org.obverse.anneal.EnergyScales;
 import org.obverse.model.IsingProblem;
 
@@ -111,6 +114,11 @@ public final class AnnealSpectrum {
      * point is warm-started from the eigenvectors of the one before (see {@link Path}).
      */
     public GapScan scan(double[] grid) {
+        return scan(grid, null);
+    }
+
+    /** The same, telling pointsDone (if not null) how many grid points are solved after each. */
+    public GapScan scan(double[] grid, IntConsumer pointsDone) {
         double[][] levels = new double[grid.length][];
         double[] gap = new double[grid.length];
         Path path = new Path();
@@ -120,6 +128,9 @@ public final class AnnealSpectrum {
             }
             levels[r] = path.levels(grid[r]);
             gap[r] = levels[r][relevant] - levels[r][0];
+            if (pointsDone != null) {
+                pointsDone.accept(r + 1);
+            }
         }
         return new GapScan(grid.clone(), levels, gap);
     }
@@ -130,7 +141,15 @@ public final class AnnealSpectrum {
      * 2·sTolerance wide.
      */
     public MinimumGap minimumGap(GapScan scan, double sTolerance) {
-        int r = scan.minimumRow();
+        return refine(scan, scan.minimumRow(), sTolerance);
+    }
+
+    /**
+     * Refines the minimum at grid row r by golden-section search over the bracket of its two
+     * grid neighbours (the gap is taken to have one minimum there) until the bracket is at most
+     * 2·sTolerance wide.
+     */
+    MinimumGap refine(GapScan scan, int r, double sTolerance) {
         int last = scan.points() - 1;
         double lo = scan.s(Math.max(0, r - 1));
         double hi = scan.s(Math.min(last, r + 1));
@@ -183,17 +202,22 @@ public final class AnnealSpectrum {
      * crossing of its ratio after s*, refined by bisection.
      */
     public PauseWindow pauseWindow(GapScan scan, MinimumGap minimum, ScanSettings settings) {
-        double[] from = crossing(scan, minimum.sStar(), settings.pauseFromRatio() * minimum.gapMin(),
-                settings.pauseTolerance());
-        double[] to = crossing(scan, from[0], settings.pauseToRatio() * minimum.gapMin(), settings.pauseTolerance());
+        return pauseWindow(scan, minimum.sStar(), minimum.gapMin(), scan.points() - 1, settings);
+    }
+
+    // The window after a minimum (s, gap), searched on grid rows up to lastRow: where the gap
+    // does not reach a ratio by then, that end is cut at lastRow's s and flagged capped.
+    private PauseWindow pauseWindow(GapScan scan, double s, double gap, int lastRow, ScanSettings settings) {
+        double[] from = crossing(scan, s, settings.pauseFromRatio() * gap, settings.pauseTolerance(), lastRow);
+        double[] to = crossing(scan, from[0], settings.pauseToRatio() * gap, settings.pauseTolerance(), lastRow);
         return new PauseWindow(from[0], to[0], settings.pauseFromRatio(), settings.pauseToRatio(),
                 settings.pauseTolerance(), from[1] != 0, to[1] != 0);
     }
 
-    // First s ≥ start where the gap reaches target: {s, capped ? 1 : 0}.
-    private double[] crossing(GapScan scan, double start, double target, double tolerance) {
+    // First s ≥ start where the gap reaches target, on rows up to lastRow: {s, capped ? 1 : 0}.
+    private double[] crossing(GapScan scan, double start, double target, double tolerance, int lastRow) {
         double prev = start;
-        for (int r = 0; r < scan.points(); r++) {
+        for (int r = 0; r <= lastRow; r++) {
             double s = scan.s(r);
             if (s <= start) {
                 continue;
@@ -217,7 +241,7 @@ public final class AnnealSpectrum {
             }
             prev = s;
         }
-        return new double[] {scan.s(scan.points() - 1), 1};
+        return new double[] {Math.max(start, scan.s(lastRow)), 1};
     }
 
     /**
@@ -278,11 +302,66 @@ public final class AnnealSpectrum {
         }
     }
 
-    /** Scan, refine the minimum and suggest the pause window. */
+    /**
+     * Every dip of the scan's gap ({@link GapDip}), in the order of s: the local minima at least
+     * {@link #dipDepthFloor} deep, each refined as {@link #minimumGap} refines the global one,
+     * with its pause window. The window of a dip is searched up to the highest grid point
+     * between it and the next dip (s = 1 for the last). The dip at the grid row of the global
+     * minimum reuses {@code minimum} (the same computation).
+     */
+    public List<GapDip> dips(GapScan scan, MinimumGap minimum, ScanSettings settings) {
+        List<DipSearch.Candidate> found = DipSearch.candidates(scan.gaps(), dipDepthFloor(scan, settings));
+        int globalRow = scan.minimumRow();
+        List<GapDip> dips = new ArrayList<>(found.size());
+        for (int k = 0; k < found.size(); k++) {
+            DipSearch.Candidate c = found.get(k);
+            MinimumGap m = c.row() == globalRow ? minimum : refine(scan, c.row(), settings.sTolerance());
+            int lastRow = scan.points() - 1;
+            if (k + 1 < found.size()) {
+                lastRow = c.row();
+                int next = found.get(k + 1).row();
+                for (int r = c.row() + 1; r < next; r++) {
+                    if (scan.gap(r) > scan.gap(lastRow)) {
+                        lastRow = r;
+                    }
+                }
+            }
+            PauseWindow pause = pauseWindow(scan, m.sStar(), m.gapMin(), lastRow, settings);
+            dips.add(new GapDip(m.sStar(), m.sTolerance(), m.gapMin(), m.gapTolerance(), c.depthBelow(m.gapMin()),
+                    c.atEnd(), pause));
+        }
+        return dips;
+    }
+
+    /**
+     * The noise rule for dips: {@link ScanSettings#dipDepth()} times the largest gap on the grid,
+     * and at least ten times the solver's accuracy (twice its tolerance times the operator's
+     * norm bound at the ends of the anneal).
+     */
+    public double dipDepthFloor(GapScan scan, ScanSettings settings) {
+        double largest = 0;
+        for (int r = 0; r < scan.points(); r++) {
+            largest = Math.max(largest, scan.gap(r));
+        }
+        double norm = Math.max(1.0, Math.max(operator(0.0).normBound(), operator(1.0).normBound()));
+        return Math.max(settings.dipDepth() * largest, 20 * solver.tolerance() * norm);
+    }
+
+    /** Scan, refine the minimum, find every dip and suggest the pause window. */
     public SpectrumAnalysis analyse(ScanSettings settings) {
-        GapScan scan = scan(settings.grid());
+        return analyse(settings, null);
+    }
+
+    /**
+     * The same, telling pointsDone (if not null) how many grid points of the scan are solved
+     * (the refinements after the scan cost about a fifth of a 101-point scan per dip).
+     */
+    public SpectrumAnalysis analyse(ScanSettings settings, IntConsumer pointsDone) {
+        GapScan scan = scan(settings.grid(), pointsDone);
         MinimumGap minimum = minimumGap(scan, settings.sTolerance());
-        PauseWindow pause = pauseWindow(scan, minimum, settings);
-        return new SpectrumAnalysis(scan, minimum, pause);
+        List<GapDip> dips = dips(scan, minimum, settings);
+        int suggested = SpectrumAnalysis.suggestedDip(dips);
+        PauseWindow pause = suggested >= 0 ? dips.get(suggested).pause() : pauseWindow(scan, minimum, settings);
+        return new SpectrumAnalysis(scan, minimum, pause, dips, suggested);
     }
 }

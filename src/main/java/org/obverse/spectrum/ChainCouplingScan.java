@@ -3,6 +3,7 @@ package org.obverse.spectrum;
 import org.obverse.anneal.EnergyScales;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.IntConsumer;
 import org.obverse.model.IsingProblem;
 
 /**
@@ -22,13 +23,27 @@ public final class ChainCouplingScan {
         IsingProblem at(double chainCoupling);
     }
 
-    /** One row of the sweep. */
-    public record Row(double chainCoupling, int spins, MinimumGap minimum, PauseWindow pause) {
+    /** One row of the sweep: the global minimum, the suggested pause window and every dip. */
+    public record Row(double chainCoupling, int spins, MinimumGap minimum, PauseWindow pause, List<GapDip> dips,
+                      int suggestedDip) {
+        /** Keeps an unmodifiable copy of the dips. */
+        public Row {
+            dips = List.copyOf(dips);
+        }
     }
 
     /** Analyses the family at each chain coupling, in the order given. */
     public static List<Row> run(EmbeddedFamily family, double[] chainCouplings, EnergyScales schedule,
                                 SpectrumSettings spectrum, ScanSettings scan) {
+        return run(family, chainCouplings, schedule, spectrum, scan, null);
+    }
+
+    /**
+     * The same, telling pointsDone (if not null) how many grid points are solved so far over
+     * the whole sweep (chain couplings × points in all).
+     */
+    public static List<Row> run(EmbeddedFamily family, double[] chainCouplings, EnergyScales schedule,
+                                SpectrumSettings spectrum, ScanSettings scan, IntConsumer pointsDone) {
         if (chainCouplings.length == 0) {
             throw new IllegalArgumentException("no chain couplings to sweep");
         }
@@ -38,8 +53,11 @@ public final class ChainCouplingScan {
                 throw new IllegalArgumentException("chain coupling " + c + " is not a finite number");
             }
             IsingProblem physical = family.at(c);
-            SpectrumAnalysis analysis = AnnealSpectrum.of(physical, schedule, spectrum).analyse(scan);
-            rows.add(new Row(c, physical.size(), analysis.minimum(), analysis.pause()));
+            int before = rows.size() * scan.points();
+            SpectrumAnalysis analysis = AnnealSpectrum.of(physical, schedule, spectrum).analyse(scan,
+                    pointsDone == null ? null : done -> pointsDone.accept(before + done));
+            rows.add(new Row(c, physical.size(), analysis.minimum(), analysis.pause(), analysis.dips(),
+                    analysis.suggestedDip()));
         }
         return rows;
     }

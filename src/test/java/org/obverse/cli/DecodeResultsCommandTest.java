@@ -45,10 +45,10 @@ class DecodeResultsCommandTest extends CommandTestSupport {
                 "--column", "chain_coupling=-2");
         assertThat(d.code()).as(d.err()).isZero();
         List<String> rows = Files.readAllLines(out.resolve("results.csv"));
-        assertThat(rows.get(0)).isEqualTo("instance,setting,gauge,energy,count,broken,run_us,chain_coupling");
+        assertThat(rows.get(0)).isEqualTo("instance,setting,gauge,energy,count,broken,run_us,energy_frame,chain_coupling");
         assertThat(rows.subList(1, rows.size())).containsExactlyInAnyOrder(
-                "tiny,V=-2,3,-1,1,0,2.5,-2", "tiny,V=-2,3,1,1,0,2.5,-2", "tiny,V=-2,3,,1,1,2.5,-2",
-                "tiny,V=-2,3,,1,2,2.5,-2");
+                "tiny,V=-2,3,-1,1,0,2.5,logical,-2", "tiny,V=-2,3,1,1,0,2.5,logical,-2",
+                "tiny,V=-2,3,,1,1,2.5,logical,-2", "tiny,V=-2,3,,1,2,2.5,logical,-2");
 
         // Scored against the ground -1: one success in four reads (the two discarded reads fail).
         Files.writeString(dir.resolve("ground.csv"), "instance,ground_energy\ntiny,-1\n");

@@ -22,7 +22,7 @@ class SampleResultsCommandTest extends CommandTestSupport {
         assertThat(r.code()).as(r.err()).isZero();
         double[] energies = NpyVectors.readFloat64(dir.resolve("run.energies.npy"), 300);
         List<String> rows = Files.readAllLines(dir.resolve("run.results.csv"));
-        assertThat(rows.get(0)).isEqualTo("instance,setting,gauge,energy,count,broken,run_us");
+        assertThat(rows.get(0)).isEqualTo("instance,setting,gauge,energy,count,broken,run_us,energy_frame");
         long total = 0;
         for (String row : rows.subList(1, rows.size())) {
             String[] f = row.split(",");
@@ -32,6 +32,8 @@ class SampleResultsCommandTest extends CommandTestSupport {
             long count = Long.parseLong(f[4]);
             assertThat(java.util.Arrays.stream(energies).filter(x -> x == e).count()).isEqualTo(count);
             assertThat(f[6]).isEqualTo("1");
+            // examples/problem.json records no embedding: sampled directly, it is its own logical problem.
+            assertThat(f[7]).isEqualTo("logical");
             total += count;
         }
         assertThat(total).isEqualTo(300);

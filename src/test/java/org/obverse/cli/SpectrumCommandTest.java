@@ -71,6 +71,47 @@ class SpectrumCommandTest extends CommandTestSupport {
         assertThat(again.err()).contains("already exists");
     }
 
+    /*
+     * The case of issue 11: five spins whose two lowest problem energies differ by 0.01, so the
+     * gap closes towards s = 1 (0.005 there, the global minimum), with a mid-anneal dip near
+     * s = 0.457 (gap 0.3616; numpy's eigvalsh on 1,001 points while building the test, and
+     * GapDipsTest against commons-math3). Before dips were reported the window was [1, 1].
+     */
+    @Test
+    void listsEveryDipAndSuggestsTheWindowAfterTheInteriorOne() throws Exception {
+        Path p = problem("merge.json", IsingProblem.builder().field(0, -0.2).field(1, -0.4).field(2, 0.1)
+                .field(3, 0.6).field(4, 0.02).coupling(0, 1, 1.0).coupling(0, 3, -0.7).coupling(1, 2, -0.3)
+                .coupling(1, 3, 0.9).coupling(2, 3, -0.5).coupling(0, 4, 0.015).build());
+        Path out = tmp.resolve("merge");
+        Run r = obverse("spectrum", "--problem", p.toString(), "--out", out.toString());
+        assertThat(r.code()).as(r.err()).isZero();
+        assertThat(r.out()).contains("dip 1: s = 0.45").contains("dip 2: s = 0.99").contains("at the end")
+                .contains("after dip 1");
+        ObjectNode summary = JsonFiles.read(out.resolve("summary.json"), "spectrum");
+        // The global minimum keeps its keys: at the end of the anneal.
+        assertThat(summary.get("s_star").asDouble()).isGreaterThan(0.999);
+        assertThat(summary.get("gap_min").asDouble()).isCloseTo(0.005, within(1e-6));
+        assertThat(summary.get("dips")).hasSize(2);
+        ObjectNode interior = (ObjectNode) summary.get("dips").get(0);
+        ObjectNode end = (ObjectNode) summary.get("dips").get(1);
+        assertThat(interior.get("s").asDouble()).isCloseTo(0.4566, within(1e-3));
+        assertThat(interior.get("gap").asDouble()).isCloseTo(0.3616, within(1e-3));
+        assertThat(interior.get("depth").asDouble()).isGreaterThan(0.05);
+        assertThat(interior.get("at_end").asBoolean()).isFalse();
+        assertThat(end.get("at_end").asBoolean()).isTrue();
+        assertThat(summary.get("suggested_dip").asInt()).isZero();
+        double from = summary.get("pause_from").asDouble();
+        double to = summary.get("pause_to").asDouble();
+        assertThat(from).isEqualTo(interior.get("pause_from").asDouble()).isGreaterThan(0.4566);
+        assertThat(to).isEqualTo(interior.get("pause_to").asDouble()).isGreaterThan(from).isLessThan(0.9);
+        // gap.csv holds the dip: its grid values near s = 0.46 lie 0.05 and more below the crest after it.
+        List<String> gap = Files.readAllLines(out.resolve("gap.csv"));
+        assertThat(gap.get(0)).isEqualTo("s,gap");
+        double atDip = Double.parseDouble(gap.get(1 + 46).split(",")[1]);
+        assertThat(atDip).isCloseTo(interior.get("gap").asDouble(), within(1e-3));
+        assertThat(out.resolve("gap.png")).exists();
+    }
+
     @Test
     void readsAScheduleTableAndRefusesBadOnes() throws Exception {
         Path p = problem("tri.json", IsingProblem.builder().field(0, 0.3).coupling(0, 1, 1.0).coupling(1, 2, -0.5)

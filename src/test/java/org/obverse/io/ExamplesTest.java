@@ -16,6 +16,7 @@ class ExamplesTest extends QuietTest {
         var device = DeviceCodec.read(Path.of("examples/device.json"));
         ChainList chains = ChainsCodec.read(Path.of("examples/chains.json"));
         assertThat(logical.domain()).isEqualTo("binary");
+        assertThat(ProblemCodec.read(Path.of("examples/logical.npy")).binary()).isEqualTo(logical.binary());
         assertThat(LimitCheck.violations(physical.spin(), device)).isEmpty();
         assertThat(chains.size()).isEqualTo(logical.variables().size());
         assertThat(ScheduleCodec.read(Path.of("examples/schedule-pause.json")).runTimeMicros()).isPositive();

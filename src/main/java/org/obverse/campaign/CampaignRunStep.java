@@ -1,0 +1,224 @@
+package org.obverse.campaign;
+
+import java.io.IOException;
+import java.nio.file.DirectoryStream;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.ConcurrentHashMap;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.function.IntConsumer;
+import org.obverse.anneal.AnnealSchedule;
+import org.obverse.anneal.SamplerSettings;
+import org.obverse.io.BadInputException;
+import org.obverse.io.CampaignPlan;
+import org.obverse.io.CampaignPlanCodec;
+import org.obverse.io.ControlErrorsCodec;
+import org.obverse.io.JobTable;
+import org.obverse.io.JsonFiles;
+import org.obverse.io.ProblemCodec;
+import org.obverse.io.ProblemFile;
+import org.obverse.io.SampleCoding;
+import org.obverse.io.SampleFiles;
+import org.obverse.io.SampleReader;
+import org.obverse.io.ScheduleCodec;
+
+/**
+ * Samples every job of a campaign folder with the plan's sampler into the raw file the job
+ * expects ({@code raw/JOB.npy} and {@code raw/JOB.energies.npy}), skipping jobs whose raw file
+ * is already there with the right shape, then collects. Jobs run on a pool of threads, one job
+ * a thread at a time; each job's reads come from its own recorded seed, so the files — and the
+ * results table — are the same bytes on any thread count, and a run interrupted and run again
+ * gives the same bytes as one that never stopped (each raw file appears whole, by rename).
+ */
+public final class CampaignRunStep {
+    private CampaignRunStep() {
+    }
+
+    /**
+     * Run a campaign. source is a plan file (prepared into out first where out does not exist
+     * yet) or an already prepared folder (out then null).
+     */
+    public record Request(Path source, Path out, boolean force, int threads) {
+    }
+
+    /**
+     * What was run.
+     *
+     * @param folder   the campaign folder
+     * @param prepared the prepare step's result where this run prepared the folder, else null
+     * @param sampled  jobs sampled now
+     * @param skipped  jobs whose raw samples were already there
+     * @param collect  the collect step's result
+     */
+    public record Result(Path folder, CampaignPrepareStep.Result prepared, int sampled, int skipped,
+                         CampaignCollectStep.Result collect) {
+    }
+
+    public static Result run(Request r, StepProgress progress) throws IOException {
+        Path dir;
+        CampaignPrepareStep.Result prepared = null;
+        if (Files.isDirectory(r.source())) {
+            if (r.out() != null) {
+                throw BadInputException.at(r.source(), "", "is a campaign folder, so --out has no meaning",
+                        "run 'obverse campaign run DIR' alone, or give a plan file with --out");
+            }
+            dir = r.source();
+        } else {
+            if (r.out() == null) {
+                throw BadInputException.at(r.source(), "", "is a plan, and a plan needs a folder to run in",
+                        "give --out DIR (a new folder, or the folder this plan was prepared into)");
+            }
+            dir = r.out();
+            if (Files.exists(dir) && CampaignFolder.isPrepared(dir) && !r.force()) {
+                String now = CampaignPrepareStep.inputsHash(CampaignPlanCodec.read(r.source()));
+                String then = JsonFiles.read(dir.resolve(CampaignFolder.PREPARED), "prepared").path("inputs_sha256")
+                        .asText();
+                if (!now.equals(then)) {
+                    throw BadInputException.at(dir, "", "was prepared from another plan or other input files",
+                            "give a new --out folder, or --force to prepare this one anew (its samples are lost)");
+                }
+            } else {
+                prepared = CampaignPrepareStep.run(new CampaignPrepareStep.Request(r.source(), dir, r.force(),
+                        r.threads()), progress);
+            }
+        }
+        CampaignFolder folder = CampaignFolder.open(dir);
+        CampaignPlan plan = folder.plan();
+        List<JobTable.Job> jobs = folder.jobs();
+        if (plan.sampler().external()) {
+            throw BadInputException.at(folder.resolve(CampaignFolder.PLAN), "sampler", "is external: the raw samples "
+                    + "come from a device", "place each job's raw file as jobs.csv names it, then run 'obverse campaign "
+                    + "collect " + dir + "'");
+        }
+        removeStaleParts(folder.resolve(CampaignFolder.RAW));
+        List<JobTable.Job> todo = new ArrayList<>();
+        for (JobTable.Job j : jobs) {
+            if (!done(folder, j)) {
+                todo.add(j);
+            }
+        }
+        SamplerSettings base = baseSettings(plan);
+        long work = 0;
+        for (JobTable.Job j : todo) {
+            work += (long) j.reads() * (long) Math.ceil(j.runUs() * plan.sampler().sweepsPerUs());
+        }
+        IntConsumer tick = todo.isEmpty() ? null : progress.start("sampling", todo.size(), work);
+        sample(folder, todo, base, Math.max(1, r.threads()), tick);
+        CampaignCollectStep.Result collected = CampaignCollectStep.run(
+                new CampaignCollectStep.Request(dir, r.threads()), progress);
+        return new Result(dir, prepared, todo.size(), jobs.size() - todo.size(), collected);
+    }
+
+    /** Whether a job's raw file is present with one row per read and one column per qubit. */
+    static boolean done(CampaignFolder folder, JobTable.Job j) throws IOException {
+        Path raw = folder.resolve(j.raw());
+        if (!Files.isRegularFile(raw) || !Files.isRegularFile(energiesOf(raw))) {
+            return false;
+        }
+        ProblemFile pf = ProblemCodec.read(folder.resolve(j.problem()));
+        try (SampleReader in = SampleFiles.open(raw, pf.variables())) {
+            return in.reads() == j.reads();
+        } catch (BadInputException e) {
+            return false;
+        }
+    }
+
+    /** {@code raw/j00001.npy} → {@code raw/j00001.energies.npy}. */
+    static Path energiesOf(Path raw) {
+        return SampleStep.beside(raw, ".energies.npy");
+    }
+
+    private static SamplerSettings baseSettings(CampaignPlan plan) {
+        CampaignPlan.Sampler s = plan.sampler();
+        if (!s.kind().equals("sa")) {
+            throw BadInputException.at(plan.file(), "sampler.kind", s.kind() + " is not a sampler this version runs",
+                    "use \"sa\" (the reference sampler) or \"external\"");
+        }
+        SamplerSettings settings = SamplerSettings.defaults().withSweepsPerMicrosecond(s.sweepsPerUs()).withThreads(1);
+        if (s.errors() != null) {
+            settings = settings.withErrors(ControlErrorsCodec.read(s.errors()));
+        }
+        if (s.kernel().equals("multi-spin")) {
+            settings = settings.withKernel(SamplerSettings.Kernel.MULTI_SPIN);
+        }
+        return settings;
+    }
+
+    private static void sample(CampaignFolder folder, List<JobTable.Job> todo, SamplerSettings base, int threads,
+                               IntConsumer tick) throws IOException {
+        if (todo.isEmpty()) {
+            return;
+        }
+        Map<String, ProblemFile> problems = new ConcurrentHashMap<>();
+        Map<String, AnnealSchedule> schedules = new ConcurrentHashMap<>();
+        AtomicInteger done = new AtomicInteger();
+        int workers = Math.min(threads, todo.size());
+        // Fewer jobs than threads: each job splits its reads (never changes the output).
+        SamplerSettings perJob = base.withThreads(Math.max(1, threads / workers));
+        ExecutorService pool = Executors.newFixedThreadPool(workers, runnable -> {
+            Thread t = new Thread(runnable, "campaign-sampler");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            List<Future<?>> futures = new ArrayList<>();
+            for (JobTable.Job j : todo) {
+                futures.add(pool.submit(() -> {
+                    ProblemFile pf = problems.computeIfAbsent(j.problem(), p -> ProblemCodec.read(folder.resolve(p)));
+                    AnnealSchedule a = schedules.computeIfAbsent(j.scheduleFile(), f -> readSchedule(folder.resolve(f)));
+                    // Energies first, samples last: a job counts as done only once its samples file appears.
+                    SampleStep.sampleInto(pf, perJob.withSchedule(a), j.reads(), j.seed(), folder.resolve(j.raw()),
+                            SampleCoding.SPIN, true);
+                    if (tick != null) {
+                        tick.accept(done.incrementAndGet());
+                    }
+                    return null;
+                }));
+            }
+            for (Future<?> f : futures) {
+                f.get();
+            }
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IOException("interrupted while sampling", e);
+        } catch (ExecutionException e) {
+            Throwable c = e.getCause();
+            if (c instanceof RuntimeException re) {
+                throw re;
+            }
+            if (c instanceof IOException io) {
+                throw io;
+            }
+            throw new IllegalStateException(c);
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
+    private static AnnealSchedule readSchedule(Path file) {
+        try {
+            return ScheduleCodec.readTable(file);
+        } catch (IOException e) {
+            throw new java.io.UncheckedIOException(e);
+        }
+    }
+
+    /** Temporary files of writes that a killed run left behind in the raw folder. */
+    private static void removeStaleParts(Path raw) throws IOException {
+        if (!Files.isDirectory(raw)) {
+            return;
+        }
+        try (DirectoryStream<Path> s = Files.newDirectoryStream(raw, ".*.part")) {
+            for (Path p : s) {
+                Files.deleteIfExists(p);
+            }
+        }
+    }
+}

@@ -1,0 +1,174 @@
+package org.obverse.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import org.obverse.campaign.CampaignCollectStep;
+import org.obverse.campaign.CampaignPrepareStep;
+import org.obverse.campaign.CampaignRunStep;
+import org.obverse.campaign.StepProgress;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code obverse campaign}: the experiment as one object — a plan (obverse.campaign/1)
+ * prepared into a folder of jobs, run on the reference sampler or collected from a device, and
+ * gathered into one results table.
+ */
+@Command(name = "campaign", mixinStandardHelpOptions = true,
+        description = {"Runs a whole campaign from a plan (obverse.campaign/1, spec/campaign.md): instances x chain "
+                + "couplings x schedules x gauges, in one folder and one results table.",
+            "  prepare PLAN --out DIR   embed, gauge and list every job (DIR/jobs.csv) for a sampler or a device",
+            "  run PLAN --out DIR       prepare (where DIR is new), sample every job, collect; resumable",
+            "  run DIR                  sample the jobs of a prepared folder that have no raw samples yet, collect",
+            "  collect DIR              un-gauge, audit, decode every job with raw samples into DIR/results.csv"},
+        subcommands = {CampaignCommand.Prepare.class, CampaignCommand.Run.class, CampaignCommand.Collect.class})
+public final class CampaignCommand implements Runnable {
+    @Spec
+    CommandSpec spec;
+
+    @Override
+    public void run() {
+        spec.commandLine().usage(spec.commandLine().getOut());
+    }
+
+    static int defaultThreads() {
+        return Math.max(1, Math.min(2, Runtime.getRuntime().availableProcessors()));
+    }
+
+    static StepProgress progress(CommandSpec spec, boolean quiet) {
+        PrintWriter err = spec.commandLine().getErr();
+        return (phase, total, work) -> Progress.of(err, phase, total, work, quiet);
+    }
+
+    /** {@code campaign prepare}. */
+    @Command(name = "prepare", mixinStandardHelpOptions = true,
+            description = "Prepares a campaign folder: inputs copied in, chains found where the plan gives none, every "
+                    + "instance embedded at every chain coupling and gauged, every schedule written as (t_us, s) points, "
+                    + "exact ground energies of instances up to 32 variables, and DIR/jobs.csv naming for each job the "
+                    + "problem and schedule to submit and the raw samples file it expects.")
+    static final class Prepare implements Callable<Integer> {
+        @Spec
+        CommandSpec spec;
+
+        @Parameters(index = "0", paramLabel = "PLAN", description = "the campaign plan (obverse.campaign/1)")
+        Path plan;
+
+        @Option(names = "--out", required = true, paramLabel = "DIR", description = "the campaign folder to make")
+        Path out;
+
+        @Option(names = "--force", description = "replace an existing folder (its samples are lost)")
+        boolean force;
+
+        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
+        Integer threads;
+
+        @Option(names = "--quiet", description = "no progress lines")
+        boolean quiet;
+
+        @Override
+        public Integer call() throws Exception {
+            CampaignPrepareStep.Result r = CampaignPrepareStep.run(new CampaignPrepareStep.Request(plan, out, force,
+                    threads(threads)), progress(spec, quiet));
+            PrintWriter w = spec.commandLine().getOut();
+            r.notes().forEach(w::println);
+            w.printf("prepared %s: %d jobs listed in %s%n", r.folder(), r.jobs().size(), r.folder().resolve("jobs.csv"));
+            return Main.DONE;
+        }
+    }
+
+    /** {@code campaign run}. */
+    @Command(name = "run", mixinStandardHelpOptions = true,
+            description = {"Samples every job with the reference sampler, then collects (DIR/results.csv).",
+                "With PLAN --out DIR, prepares DIR first where it is new, or resumes it where it was prepared from the "
+                    + "same plan and inputs. A job whose raw file is already there is skipped, so a run that was "
+                    + "stopped, run again, gives the same bytes as one that was not."})
+    static final class Run implements Callable<Integer> {
+        @Spec
+        CommandSpec spec;
+
+        @Parameters(index = "0", paramLabel = "PLAN|DIR", description = "a plan file, or a prepared campaign folder")
+        Path source;
+
+        @Option(names = "--out", paramLabel = "DIR", description = "the campaign folder (with a plan)")
+        Path out;
+
+        @Option(names = "--force", description = "prepare the folder anew even where it exists (its samples are lost)")
+        boolean force;
+
+        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
+        Integer threads;
+
+        @Option(names = "--quiet", description = "no progress lines")
+        boolean quiet;
+
+        @Override
+        public Integer call() throws Exception {
+            long start = System.nanoTime();
+            CampaignRunStep.Result r = CampaignRunStep.run(new CampaignRunStep.Request(source, out, force,
+                    threads(threads)), progress(spec, quiet));
+            PrintWriter w = spec.commandLine().getOut();
+            if (r.prepared() != null) {
+                r.prepared().notes().forEach(w::println);
+            }
+            w.printf("sampled %d jobs (%d already had raw samples)%n", r.sampled(), r.skipped());
+            int code = Collect.print(w, r.collect());
+            w.printf(java.util.Locale.ROOT, "done in %.1f s%n", (System.nanoTime() - start) / 1e9);
+            return code;
+        }
+    }
+
+    /** {@code campaign collect}. */
+    @Command(name = "collect", mixinStandardHelpOptions = true,
+            description = {"For every job whose raw samples are present (from the reference sampler, or placed as "
+                    + "jobs.csv names them from a device): un-gauge, audit (every energy unchanged bit for bit, reported "
+                    + "energies within tolerance, every manifest re-derived), decode by the plan's rule, and write "
+                    + "DIR/results.csv (logical energies; run_us from each job's schedule) and DIR/audit.txt.",
+                "A job that fails its audit is listed and left out, the others go on, and the exit code is 1. "
+                    + "Collecting again gives the same bytes."})
+    static final class Collect implements Callable<Integer> {
+        @Spec
+        CommandSpec spec;
+
+        @Parameters(index = "0", paramLabel = "DIR", description = "a prepared campaign folder")
+        Path dir;
+
+        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
+        Integer threads;
+
+        @Option(names = "--quiet", description = "no progress lines")
+        boolean quiet;
+
+        @Override
+        public Integer call() throws Exception {
+            CampaignCollectStep.Result r = CampaignCollectStep.run(new CampaignCollectStep.Request(dir, threads(threads)),
+                    progress(spec, quiet));
+            return print(spec.commandLine().getOut(), r);
+        }
+
+        static int print(PrintWriter w, CampaignCollectStep.Result r) {
+            w.printf("collected %d of %d jobs (%d without raw samples): %d reads in %d rows of %s%n", r.collected(),
+                    r.jobs(), r.missing(), r.reads(), r.rows(), r.results());
+            if (r.allPassed()) {
+                w.println("audit: every check holds (energies unchanged bit for bit under every un-gauge)");
+                return Main.DONE;
+            }
+            w.printf("audit: %d failed; their reads are left out of the table:%n", r.failures().size());
+            r.failures().forEach(f -> w.println("FAILED " + f));
+            return Main.CHECK_FAILED;
+        }
+    }
+
+    static int threads(Integer threads) {
+        if (threads == null) {
+            return defaultThreads();
+        }
+        if (threads < 1) {
+            throw new org.obverse.io.BadInputException("--threads " + threads + ": need at least 1");
+        }
+        return threads;
+    }
+}
