@@ -1,9 +1,12 @@
 package org.obverse.cli;
 
+import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.concurrent.Callable;
+import org.obverse.io.AtomicOutput;
+import org.obverse.io.BadInputException;
 import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.SampleCoding;
@@ -56,6 +59,10 @@ public final class EnergyCommand implements Callable<Integer> {
             SampleBlock b = null;
             double[] chunk = new double[4096];
             while ((b = in.nextBlock(4096, b)) != null) {
+                if (reads + b.reads() > SampleFiles.MAX_READS) {
+                    throw BadInputException.at(samples, "", "holds more than " + SampleFiles.MAX_READS + " reads",
+                            "split the samples over several files");
+                }
                 k.energies(b, chunk, 0);
                 if (reads + b.reads() > energies.length) {
                     energies = Arrays.copyOf(energies, (int) Math.max(energies.length * 2L, reads + b.reads()));
@@ -70,7 +77,9 @@ public final class EnergyCommand implements Callable<Integer> {
             w.printf("fast kernel: each energy within %s of the exact one%n", EnergyKernel.of(p).tolerance());
         }
         if (out != null) {
-            NpyVectors.writeFloat64(out, force, energies);
+            double[] all = energies;
+            AtomicOutput.writeFiles(List.of(out), force, AtomicOutput.inputs(problem, samples),
+                    files -> NpyVectors.writeFloat64(files.get(0), false, all));
             w.printf("wrote %d energies to %s%n", reads, out);
             return Main.DONE;
         }
