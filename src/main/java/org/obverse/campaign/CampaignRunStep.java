@@ -62,6 +62,11 @@ public final class CampaignRunStep {
     }
 
     public static Result run(Request r, StepProgress progress) throws IOException {
+        return run(r, CampaignEngine.local(r.threads()), progress);
+    }
+
+    /** Run a campaign, its jobs sampled and collected by the given engine. */
+    public static Result run(Request r, CampaignEngine engine, StepProgress progress) throws IOException {
         Path dir;
         CampaignPrepareStep.Result prepared = null;
         if (Files.isDirectory(r.source())) {
@@ -104,15 +109,17 @@ public final class CampaignRunStep {
                 todo.add(j);
             }
         }
-        SamplerSettings base = baseSettings(plan);
+        baseSettings(plan); // refuses, before any work, a sampler this version cannot run
         long work = 0;
         for (JobTable.Job j : todo) {
             work += (long) j.reads() * (long) Math.ceil(j.runUs() * plan.sampler().sweepsPerUs());
         }
         IntConsumer tick = todo.isEmpty() ? null : progress.start("sampling", todo.size(), work);
-        sample(folder, todo, base, Math.max(1, r.threads()), tick);
+        if (!todo.isEmpty()) {
+            engine.sample(folder, todo, tick);
+        }
         CampaignCollectStep.Result collected = CampaignCollectStep.run(
-                new CampaignCollectStep.Request(dir, r.threads()), progress);
+                new CampaignCollectStep.Request(dir, r.threads()), engine, progress);
         return new Result(dir, prepared, todo.size(), jobs.size() - todo.size(), collected);
     }
 
@@ -135,7 +142,8 @@ public final class CampaignRunStep {
         return SampleStep.beside(raw, ".energies.npy");
     }
 
-    private static SamplerSettings baseSettings(CampaignPlan plan) {
+    /** The sampler settings of a plan, before a job's schedule; refuses a sampler this version cannot run. */
+    public static SamplerSettings baseSettings(CampaignPlan plan) {
         CampaignPlan.Sampler s = plan.sampler();
         if (!s.kind().equals("sa")) {
             throw BadInputException.at(plan.file(), "sampler.kind", s.kind() + " is not a sampler this version runs",
@@ -151,11 +159,33 @@ public final class CampaignRunStep {
         return settings;
     }
 
-    private static void sample(CampaignFolder folder, List<JobTable.Job> todo, SamplerSettings base, int threads,
-                               IntConsumer tick) throws IOException {
+    /**
+     * Samples one job into its raw file (energies first, samples last, each whole by rename): the
+     * work of one job on any engine. Its bytes depend only on the job's seed, so doing it twice
+     * rewrites the same bytes.
+     *
+     * @param settings the plan's {@link #baseSettings}, with the thread count this job may use
+     */
+    public static void sampleJob(CampaignFolder folder, JobTable.Job job, SamplerSettings settings)
+            throws IOException {
+        sampleJob(folder, job, settings, ProblemCodec.read(folder.resolve(job.problem())),
+                ScheduleCodec.readTable(folder.resolve(job.scheduleFile())));
+    }
+
+    private static void sampleJob(CampaignFolder folder, JobTable.Job j, SamplerSettings settings, ProblemFile pf,
+                                  AnnealSchedule a) throws IOException {
+        // Energies first, samples last: a job counts as done only once its samples file appears.
+        SampleStep.sampleInto(pf, settings.withSchedule(a), j.reads(), j.seed(), folder.resolve(j.raw()),
+                SampleCoding.SPIN, true);
+    }
+
+    /** The local engine's sampling: a pool of threads, one job a thread at a time. */
+    static void sampleOnThreads(CampaignFolder folder, List<JobTable.Job> todo, int threads, IntConsumer tick)
+            throws IOException {
         if (todo.isEmpty()) {
             return;
         }
+        SamplerSettings base = baseSettings(folder.plan());
         Map<String, ProblemFile> problems = new ConcurrentHashMap<>();
         Map<String, AnnealSchedule> schedules = new ConcurrentHashMap<>();
         AtomicInteger done = new AtomicInteger();
@@ -173,9 +203,7 @@ public final class CampaignRunStep {
                 futures.add(pool.submit(() -> {
                     ProblemFile pf = problems.computeIfAbsent(j.problem(), p -> ProblemCodec.read(folder.resolve(p)));
                     AnnealSchedule a = schedules.computeIfAbsent(j.scheduleFile(), f -> readSchedule(folder.resolve(f)));
-                    // Energies first, samples last: a job counts as done only once its samples file appears.
-                    SampleStep.sampleInto(pf, perJob.withSchedule(a), j.reads(), j.seed(), folder.resolve(j.raw()),
-                            SampleCoding.SPIN, true);
+                    sampleJob(folder, j, perJob, pf, a);
                     if (tick != null) {
                         tick.accept(done.incrementAndGet());
                     }
