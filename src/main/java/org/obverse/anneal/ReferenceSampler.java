@@ -27,6 +27,10 @@ import org.obverse.samples.SampleBlock;
  *
  * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
  * problem's arrays per thread.
+ *
+ * <p>Settings that choose the path-integral method ({@link SamplerSettings#withPathIntegral})
+ * are run by {@link PathIntegralSampler} instead, so callers pass settings through and never
+ * pick the class themselves.
  */
 public final class ReferenceSampler {
     private final SamplerSettings settings;
@@ -57,7 +61,12 @@ public final class ReferenceSampler {
      * the binary problem's own.
      */
     public SampledReads sample(BinaryProblem problem, int reads, long seed) {
-        SampledReads spin = sample(problem.toIsing(), reads, seed);
+        return asBinary(problem, sample(problem.toIsing(), reads, seed));
+    }
+
+    /** Reads of a binary problem's spin form as reads of the binary problem, with its own energies. */
+    static SampledReads asBinary(BinaryProblem problem, SampledReads spin) {
+        int reads = spin.reads();
         double[] energies = new double[reads];
         byte[] row = new byte[problem.size()];
         SampleBlock block = spin.samples();
@@ -71,12 +80,16 @@ public final class ReferenceSampler {
     }
 
     /**
-     * Samples a spin problem: reads ≥ 0 reads from the seed.
+     * Samples a spin problem: reads ≥ 0 reads from the seed. Where the settings choose the
+     * path-integral method, the {@link PathIntegralSampler} runs the reads.
      *
      * @throws IllegalArgumentException for a negative read count, or a problem the chosen
      *                                  kernel cannot run (the message says why)
      */
     public SampledReads sample(IsingProblem problem, int reads, long seed) {
+        if (settings.method() == SamplerSettings.Method.PATH_INTEGRAL) {
+            return PathIntegralSampler.of(settings).sample(problem, reads, seed);
+        }
         if (reads < 0) {
             throw new IllegalArgumentException("reads " + reads + " must be >= 0");
         }
@@ -107,13 +120,14 @@ public final class ReferenceSampler {
     }
 
     /** Work on one 64-read block with a thread's own workspace. */
-    private interface Task {
+    interface Task {
         Object workspace();
 
         void block(int b, Object workspace);
     }
 
-    private static void runBlocks(Task task, int blocks, int threads) {
+    /** Runs every block over at most {@code threads} workers; each block is done by one thread. */
+    static void runBlocks(Task task, int blocks, int threads) {
         int workers = Math.min(threads, blocks);
         if (workers <= 1) {
             Object ws = task.workspace();

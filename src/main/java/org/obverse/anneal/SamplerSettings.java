@@ -1,14 +1,16 @@
 package org.obverse.anneal;
 
 /**
- * How the reference sampler runs: the anneal schedule, sweeps per microsecond of schedule
- * time, the inverse-temperature range (or automatic), the control-error model, the kernel
- * and the number of worker threads. Immutable; {@code with…} methods return changed copies.
+ * How the reference sampler runs: the method (simulated annealing, or the path-integral
+ * sampler with its {@link PathIntegralSettings}), the anneal schedule, sweeps per microsecond
+ * of schedule time, the inverse-temperature range (or automatic; simulated annealing only),
+ * the control-error model, the kernel (simulated annealing only) and the number of worker
+ * threads. Immutable; {@code with…} methods return changed copies.
  *
  * <p>Defaults: a linear 1 µs anneal (practitioners report that without a pause the shortest
  * anneal, 1 µs, gave the best time-to-solution: a fact of the trade, no further source),
  * 1000 sweeps per µs, automatic β range, no control errors, the exact kernel, 2 threads
- * (or fewer where the machine has fewer cores).
+ * (or fewer where the machine has fewer cores), simulated annealing.
  */
 public final class SamplerSettings {
     /** Default sweeps per microsecond of schedule time. */
@@ -22,6 +24,35 @@ public final class SamplerSettings {
         MULTI_SPIN
     }
 
+    /** Which sampling method runs the reads. */
+    public enum Method {
+        /** Simulated annealing: classical Metropolis sweeps, β following the schedule ({@link ReferenceSampler}). */
+        SIMULATED_ANNEALING("sa"),
+        /** Simulated quantum annealing of H(s) by path-integral Monte Carlo ({@link PathIntegralSampler}). */
+        PATH_INTEGRAL("sqa");
+
+        private final String label;
+
+        Method(String label) {
+            this.label = label;
+        }
+
+        /** The short name used in files and on the command line: {@code sa} or {@code sqa}. */
+        public String label() {
+            return label;
+        }
+
+        /** The method with this short name, or null where none has it. */
+        public static Method fromLabel(String label) {
+            for (Method m : values()) {
+                if (m.label.equals(label)) {
+                    return m;
+                }
+            }
+            return null;
+        }
+    }
+
     private final AnnealSchedule schedule;
     private final double sweepsPerMicrosecond;
     private final double betaHot;
@@ -29,9 +60,16 @@ public final class SamplerSettings {
     private final ControlErrors errors;
     private final Kernel kernel;
     private final int threads;
+    // Null for simulated annealing.
+    private final PathIntegralSettings pathIntegral;
 
     private SamplerSettings(AnnealSchedule schedule, double sweepsPerMicrosecond, double betaHot, double betaCold,
                             ControlErrors errors, Kernel kernel, int threads) {
+        this(schedule, sweepsPerMicrosecond, betaHot, betaCold, errors, kernel, threads, null);
+    }
+
+    private SamplerSettings(AnnealSchedule schedule, double sweepsPerMicrosecond, double betaHot, double betaCold,
+                            ControlErrors errors, Kernel kernel, int threads, PathIntegralSettings pathIntegral) {
         this.schedule = schedule;
         this.sweepsPerMicrosecond = sweepsPerMicrosecond;
         this.betaHot = betaHot;
@@ -39,6 +77,7 @@ public final class SamplerSettings {
         this.errors = errors;
         this.kernel = kernel;
         this.threads = threads;
+        this.pathIntegral = pathIntegral;
     }
 
     /** The defaults. */
@@ -52,7 +91,7 @@ public final class SamplerSettings {
         if (s == null) {
             throw new IllegalArgumentException("schedule must not be null");
         }
-        return new SamplerSettings(s, sweepsPerMicrosecond, betaHot, betaCold, errors, kernel, threads);
+        return new SamplerSettings(s, sweepsPerMicrosecond, betaHot, betaCold, errors, kernel, threads, pathIntegral);
     }
 
     /** Sweeps per µs of schedule time, a finite number &gt; 0. */
@@ -60,7 +99,7 @@ public final class SamplerSettings {
         if (!(v > 0) || !Double.isFinite(v)) {
             throw new IllegalArgumentException("sweeps per microsecond " + v + " must be a finite number > 0");
         }
-        return new SamplerSettings(schedule, v, betaHot, betaCold, errors, kernel, threads);
+        return new SamplerSettings(schedule, v, betaHot, betaCold, errors, kernel, threads, pathIntegral);
     }
 
     /** A fixed β range: β(s) = hot·(cold/hot)^s; need 0 &lt; hot ≤ cold, finite. */
@@ -68,26 +107,27 @@ public final class SamplerSettings {
         if (!(hot > 0) || !(cold >= hot) || !Double.isFinite(cold)) {
             throw new IllegalArgumentException("beta range [" + hot + ", " + cold + "] needs 0 < hot <= cold, finite");
         }
-        return new SamplerSettings(schedule, sweepsPerMicrosecond, hot, cold, errors, kernel, threads);
+        return new SamplerSettings(schedule, sweepsPerMicrosecond, hot, cold, errors, kernel, threads, pathIntegral);
     }
 
     /** The β range chosen from each problem (see {@link BetaRange#automatic}). */
     public SamplerSettings withAutomaticBetaRange() {
-        return new SamplerSettings(schedule, sweepsPerMicrosecond, Double.NaN, Double.NaN, errors, kernel, threads);
+        return new SamplerSettings(schedule, sweepsPerMicrosecond, Double.NaN, Double.NaN, errors, kernel, threads,
+                pathIntegral);
     }
 
     public SamplerSettings withErrors(ControlErrors e) {
         if (e == null) {
             throw new IllegalArgumentException("errors must not be null; use ControlErrors.NONE");
         }
-        return new SamplerSettings(schedule, sweepsPerMicrosecond, betaHot, betaCold, e, kernel, threads);
+        return new SamplerSettings(schedule, sweepsPerMicrosecond, betaHot, betaCold, e, kernel, threads, pathIntegral);
     }
 
     public SamplerSettings withKernel(Kernel k) {
         if (k == null) {
             throw new IllegalArgumentException("kernel must not be null");
         }
-        return new SamplerSettings(schedule, sweepsPerMicrosecond, betaHot, betaCold, errors, k, threads);
+        return new SamplerSettings(schedule, sweepsPerMicrosecond, betaHot, betaCold, errors, k, threads, pathIntegral);
     }
 
     /** Worker threads, at least 1; the output never depends on it. */
@@ -95,7 +135,34 @@ public final class SamplerSettings {
         if (t < 1) {
             throw new IllegalArgumentException("threads " + t + " must be at least 1");
         }
-        return new SamplerSettings(schedule, sweepsPerMicrosecond, betaHot, betaCold, errors, kernel, t);
+        return new SamplerSettings(schedule, sweepsPerMicrosecond, betaHot, betaCold, errors, kernel, t, pathIntegral);
+    }
+
+    /**
+     * The path-integral sampler with these settings in place of simulated annealing (the
+     * schedule, sweeps per µs, errors and threads stay shared; the β range and kernel are
+     * simulated annealing's own and do not apply).
+     */
+    public SamplerSettings withPathIntegral(PathIntegralSettings p) {
+        if (p == null) {
+            throw new IllegalArgumentException("path-integral settings must not be null; use withSimulatedAnnealing()");
+        }
+        return new SamplerSettings(schedule, sweepsPerMicrosecond, betaHot, betaCold, errors, kernel, threads, p);
+    }
+
+    /** Simulated annealing (the default method). */
+    public SamplerSettings withSimulatedAnnealing() {
+        return new SamplerSettings(schedule, sweepsPerMicrosecond, betaHot, betaCold, errors, kernel, threads, null);
+    }
+
+    /** The sampling method. */
+    public Method method() {
+        return pathIntegral == null ? Method.SIMULATED_ANNEALING : Method.PATH_INTEGRAL;
+    }
+
+    /** The path-integral settings, or null under simulated annealing. */
+    public PathIntegralSettings pathIntegral() {
+        return pathIntegral;
     }
 
     public AnnealSchedule schedule() {
@@ -131,8 +198,15 @@ public final class SamplerSettings {
         return threads;
     }
 
-    /** Sweeps per read: the run time times sweeps per µs, rounded, at least 1. */
+    /**
+     * Sweeps per read. Simulated annealing: the run time times sweeps per µs, rounded, at
+     * least 1. Path integral: the sum over the schedule's segments of each one's whole sweeps
+     * ({@link PathIntegralSampler#sweepFractions}).
+     */
     public int sweeps() {
+        if (pathIntegral != null) {
+            return PathIntegralSampler.sweepFractions(schedule, sweepsPerMicrosecond).length;
+        }
         return (int) Math.max(1, Math.round(schedule.runTimeMicros() * sweepsPerMicrosecond));
     }
 }

@@ -26,6 +26,9 @@ public final class StreamSeeds {
     /** Stream of the per-gauge seeds when one call samples every gauge of a manifest. */
     public static final long GAUGES = 5;
 
+    /** Stream of the per-read generators of the path-integral sampler. */
+    public static final long PATH_INTEGRAL_READS = 6;
+
     private static final long GOLDEN = 0x9E3779B97F4A7C15L;
 
     private StreamSeeds() {

@@ -15,6 +15,8 @@ import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.IntConsumer;
 import org.obverse.anneal.AnnealSchedule;
+import org.obverse.anneal.EnergyScales;
+import org.obverse.anneal.PathIntegralSettings;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.io.BadInputException;
 import org.obverse.io.CampaignPlan;
@@ -109,7 +111,7 @@ public final class CampaignRunStep {
                 todo.add(j);
             }
         }
-        baseSettings(plan); // refuses, before any work, a sampler this version cannot run
+        baseSettings(plan); // reads the sampler's files (errors, energy scales) before any work: a bad one stops here
         long work = 0;
         for (JobTable.Job j : todo) {
             work += (long) j.reads() * (long) Math.ceil(j.runUs() * plan.sampler().sweepsPerUs());
@@ -142,18 +144,19 @@ public final class CampaignRunStep {
         return SampleStep.beside(raw, ".energies.npy");
     }
 
-    /** The sampler settings of a plan, before a job's schedule; refuses a sampler this version cannot run. */
-    public static SamplerSettings baseSettings(CampaignPlan plan) {
+    /** The sampler the plan names: sa (the reference sampler) or sqa (the path-integral sampler). */
+    public static SamplerSettings baseSettings(CampaignPlan plan) throws IOException {
         CampaignPlan.Sampler s = plan.sampler();
-        if (!s.kind().equals("sa")) {
-            throw BadInputException.at(plan.file(), "sampler.kind", s.kind() + " is not a sampler this version runs",
-                    "use \"sa\" (the reference sampler) or \"external\"");
-        }
         SamplerSettings settings = SamplerSettings.defaults().withSweepsPerMicrosecond(s.sweepsPerUs()).withThreads(1);
         if (s.errors() != null) {
             settings = settings.withErrors(ControlErrorsCodec.read(s.errors()));
         }
-        if (s.kernel().equals("multi-spin")) {
+        if (s.kind().equals("sqa")) {
+            EnergyScales scales = s.energyScales() == null ? EnergyScales.illustrative()
+                    : SpectrumStep.readEnergyScales(s.energyScales(), s.energyUnits());
+            return settings.withPathIntegral(new PathIntegralSettings(scales, s.temperature(), s.slices()));
+        }
+        if ("multi-spin".equals(s.kernel())) {
             settings = settings.withKernel(SamplerSettings.Kernel.MULTI_SPIN);
         }
         return settings;

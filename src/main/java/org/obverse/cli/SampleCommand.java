@@ -1,11 +1,14 @@
 package org.obverse.cli;
 
 import org.obverse.campaign.SampleStep;
+import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.obverse.anneal.AnnealSchedule;
 import org.obverse.anneal.ControlErrors;
+import org.obverse.anneal.EnergyScales;
+import org.obverse.anneal.PathIntegralSettings;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.io.BadInputException;
 import org.obverse.io.EnergyFrame;
@@ -20,11 +23,13 @@ import picocli.CommandLine.Spec;
 
 /**
  * {@code obverse sample}: reads from the reference sampler (simulated annealing emulating an
- * imperfect analog machine) for one problem, or for every gauged problem of a manifest.
+ * imperfect analog machine, or with {@code --sampler sqa} simulated quantum annealing by path
+ * integral) for one problem, or for every gauged problem of a manifest.
  */
 @Command(name = "sample", mixinStandardHelpOptions = true,
-        description = "Samples a problem with the reference sampler (simulated annealing with an anneal schedule and "
-                + "a control-error model; seeded, the same output whatever the thread count). With --problem writes "
+        description = "Samples a problem with the reference sampler (simulated annealing, or with --sampler sqa "
+                + "simulated quantum annealing, with an anneal schedule and a control-error model; seeded, the same "
+                + "output whatever the thread count). With --problem writes "
                 + "OUT (.npy or .csv) and OUT's stem + .energies.npy; with --manifest writes OUT/<stem>.npy and "
                 + "OUT/<stem>.energies.npy for every gauge.")
 public final class SampleCommand implements Callable<Integer> {
@@ -75,6 +80,29 @@ public final class SampleCommand implements Callable<Integer> {
     @Option(names = "--force", description = "replace existing outputs")
     boolean force;
 
+    @Option(names = "--sampler", paramLabel = "sa|sqa",
+            description = "sa: simulated annealing (default); sqa: simulated quantum annealing of H(s) = -(A/2) sum X + "
+                    + "(B/2) H_P by path-integral Monte Carlo at --temperature with --slices")
+    String sampler = SamplerSettings.Method.SIMULATED_ANNEALING.label();
+
+    @Option(names = "--energy-scales", paramLabel = "F",
+            description = "sqa: CSV with header s,A,B as spectrum reads it (default: the illustrative pair A = 1 - s, "
+                    + "B = s, which is no device's schedule)")
+    Path energyScales;
+
+    @Option(names = "--energy-units", paramLabel = "U",
+            description = "sqa: the energy units of A and B in the --energy-scales table, as you state them")
+    String energyUnits;
+
+    @Option(names = "--temperature", paramLabel = "T",
+            description = "sqa: k_B T in the energy units of A and B (> 0; required with sqa)")
+    Double temperature;
+
+    @Option(names = "--slices", paramLabel = "P",
+            description = "sqa: imaginary-time (Trotter) slices, 1.." + PathIntegralSettings.MAX_SLICES + " (default "
+                    + PathIntegralSettings.DEFAULT_SLICES + "; 1 is the classical limit)")
+    Integer slices;
+
     @Option(names = "--instance", paramLabel = "NAME",
             description = "also write the results table (spec/results.md) of the reads, for this instance: OUT's stem + "
                     + ".results.csv with --problem, OUT/results.csv with --manifest. Energies are the sampled problem's: "
@@ -92,6 +120,9 @@ public final class SampleCommand implements Callable<Integer> {
         }
         SamplerSettings settings = settings();
         PrintWriter w = spec.commandLine().getOut();
+        if (settings.pathIntegral() != null) {
+            w.println("sampler: " + settings.pathIntegral().describe());
+        }
         SampleCoding coding = binary ? SampleCoding.BINARY : SampleCoding.SPIN;
         if ((instance == null) != (setting == null) || (instance != null && instance.isEmpty())) {
             throw new BadInputException("--instance NAME and --setting LABEL go together; give both to write the results table");
@@ -121,7 +152,7 @@ public final class SampleCommand implements Callable<Integer> {
         return Main.DONE;
     }
 
-    private SamplerSettings settings() {
+    private SamplerSettings settings() throws IOException {
         SamplerSettings s = SamplerSettings.defaults();
         if (schedule != null) {
             AnnealSchedule a = ScheduleCodec.read(schedule);
@@ -150,6 +181,43 @@ public final class SampleCommand implements Callable<Integer> {
             }
             s = s.withThreads(threads);
         }
-        return s;
+        return withMethod(s);
+    }
+
+    /** The sampler choice and its options (sqa only) on top of the shared settings. */
+    private SamplerSettings withMethod(SamplerSettings s) throws IOException {
+        SamplerSettings.Method method = SamplerSettings.Method.fromLabel(sampler);
+        if (method == null) {
+            throw new BadInputException("--sampler " + sampler + ": unknown sampler; use sa or sqa");
+        }
+        if (method == SamplerSettings.Method.SIMULATED_ANNEALING) {
+            if (temperature != null || slices != null || energyScales != null || energyUnits != null) {
+                throw new BadInputException("--temperature, --slices, --energy-scales and --energy-units apply to "
+                        + "--sampler sqa only; add --sampler sqa or drop them");
+            }
+            return s;
+        }
+        if (s.kernel() != SamplerSettings.Kernel.EXACT) {
+            throw new BadInputException("--kernel " + kernel + ": the multi-spin kernel runs --sampler sa only; drop it");
+        }
+        if (temperature == null) {
+            throw new BadInputException("--sampler sqa needs --temperature T (k_B T in the energy units of A and B)");
+        }
+        if (!(temperature > 0) || !Double.isFinite(temperature)) {
+            throw new BadInputException("--temperature " + temperature + ": need a finite number > 0 (k_B T in the "
+                    + "energy units of A and B)");
+        }
+        int p = slices == null ? PathIntegralSettings.DEFAULT_SLICES : slices;
+        if (p < 1 || p > PathIntegralSettings.MAX_SLICES) {
+            throw new BadInputException("--slices " + p + ": need a whole number from 1 to "
+                    + PathIntegralSettings.MAX_SLICES);
+        }
+        if (energyUnits != null && energyScales == null) {
+            throw new BadInputException("--energy-units goes with --energy-scales F; give the table or drop the units");
+        }
+        EnergyScales scales = energyScales == null ? EnergyScales.illustrative()
+                : SpectrumCommand.readSchedule(energyScales,
+                        energyUnits == null ? "units of the energy-scales table (not stated)" : energyUnits);
+        return s.withPathIntegral(new PathIntegralSettings(scales, temperature, p));
     }
 }

@@ -11,6 +11,7 @@ import java.util.Iterator;
 import java.util.List;
 import java.util.Set;
 import java.util.regex.Pattern;
+import org.obverse.anneal.PathIntegralSettings;
 
 /**
  * Reads {@code obverse.campaign/1} (spec/campaign.md) into a {@link CampaignPlan}. Every
@@ -245,6 +246,10 @@ public final class CampaignPlanCodec {
             throw bad("sampler.temperature", t + " is not positive", "give k_B·T > 0 in the energy-scales table's units");
         }
         int slices = positiveInt(required(s, "sampler", "slices"), "sampler.slices");
+        if (slices > PathIntegralSettings.MAX_SLICES) {
+            throw bad("sampler.slices", slices + " is more than " + PathIntegralSettings.MAX_SLICES,
+                    "give at most " + PathIntegralSettings.MAX_SLICES + " imaginary-time slices");
+        }
         return new CampaignPlan.Sampler("sqa", sweeps, null, errors, scales, units, t, slices);
     }
 

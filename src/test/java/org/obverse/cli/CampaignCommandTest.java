@@ -171,6 +171,26 @@ class CampaignCommandTest extends CommandTestSupport {
     }
 
     @Test
+    void thePathIntegralSamplerRunsACampaignWithTheSameBytesOnAnyThreadCount() throws IOException {
+        Path plan = plan(PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
+                "{\"kind\": \"sqa\", \"sweeps_per_us\": 40, \"temperature\": 0.1, \"slices\": 8}"));
+        Path one = dir.resolve("sqa1");
+        Path two = dir.resolve("sqa2");
+        Run r = obverse("campaign", "run", plan.toString(), "--out", one.toString(), "--threads", "1", "--quiet");
+        assertThat(r.code()).as(r.err()).isEqualTo(Main.DONE);
+        assertThat(obverse("campaign", "run", plan.toString(), "--out", two.toString(), "--threads", "2", "--quiet")
+                .code()).isEqualTo(Main.DONE);
+        assertThat(Files.readAllBytes(two.resolve("results.csv"))).isEqualTo(Files.readAllBytes(one.resolve("results.csv")));
+        long total = csv(one.resolve("results.csv")).stream().mapToLong(m -> Long.parseLong(m.get("count"))).sum();
+        assertThat(total).isEqualTo(2L * 2 * 3 * (3 * 40 + 3 * 40));
+        Path bad = plan(PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
+                "{\"kind\": \"sqa\", \"temperature\": 0, \"slices\": 8}"));
+        Run refused = obverse("campaign", "prepare", bad.toString(), "--out", dir.resolve("no").toString());
+        assertThat(refused.code()).isEqualTo(Main.BAD_INPUT);
+        assertThat(refused.err()).contains("sampler.temperature: 0.0 is not positive");
+    }
+
+    @Test
     void rawSamplesFromAnotherProgramAreCollectedAndATamperedJobIsListed() throws IOException {
         Path plan = plan(PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
                 "\"external\""));

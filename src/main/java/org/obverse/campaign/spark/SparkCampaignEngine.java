@@ -223,7 +223,7 @@ public final class SparkCampaignEngine implements CampaignEngine {
             return last;
         }
 
-        synchronized SamplerSettings settings() {
+        synchronized SamplerSettings settings() throws IOException {
             if (settings == null) {
                 settings = CampaignRunStep.baseSettings(folder.plan());
             }
