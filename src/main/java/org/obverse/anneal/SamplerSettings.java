@@ -198,15 +198,39 @@ public final class SamplerSettings {
         return threads;
     }
 
+    /** The most sweeps a read may take (the sampler holds one β per sweep: 80 MB at the limit). */
+    public static final long MAX_SWEEPS = 10_000_000L;
+
+    /**
+     * Sweeps per read as asked for: the run time times sweeps per µs, rounded, at least 1,
+     * computed without overflow ({@link Long#MAX_VALUE} for a product beyond it). The path
+     * integral's count (whole sweeps per segment) is within one a segment of it.
+     */
+    public long sweepCount() {
+        double v = Math.rint(schedule.runTimeMicros() * sweepsPerMicrosecond);
+        if (!(v < 0x1p63)) {
+            return Long.MAX_VALUE;
+        }
+        return Math.max(1L, (long) v);
+    }
+
     /**
      * Sweeps per read. Simulated annealing: the run time times sweeps per µs, rounded, at
      * least 1. Path integral: the sum over the schedule's segments of each one's whole sweeps
      * ({@link PathIntegralSampler#sweepFractions}).
+     *
+     * @throws IllegalArgumentException where {@link #sweepCount()} exceeds {@link #MAX_SWEEPS}
      */
     public int sweeps() {
+        long n = sweepCount();
+        if (n > MAX_SWEEPS) {
+            throw new IllegalArgumentException("a run of " + schedule.runTimeMicros() + " us at " + sweepsPerMicrosecond
+                    + " sweeps per us needs " + (n == Long.MAX_VALUE ? "more than 2^63" : String.valueOf(n))
+                    + " sweeps a read, more than the limit " + MAX_SWEEPS);
+        }
         if (pathIntegral != null) {
             return PathIntegralSampler.sweepFractions(schedule, sweepsPerMicrosecond).length;
         }
-        return (int) Math.max(1, Math.round(schedule.runTimeMicros() * sweepsPerMicrosecond));
+        return (int) n;
     }
 }

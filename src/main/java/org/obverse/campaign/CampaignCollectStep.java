@@ -149,7 +149,7 @@ public final class CampaignCollectStep {
                 failed.add(0, f);
             }
         }
-        AtomicOutput.writeText(folder.resolve(CampaignFolder.RESULTS), true, table.toString());
+        AtomicOutput.writeText(folder.resolve(CampaignFolder.RESULTS), true, List.of(), table.toString());
         writeGround(folder, bestSeen);
         StringBuilder audit = new StringBuilder();
         audit.append(String.format("%d jobs: %d collected, %d without raw samples, %d failed%n", jobs.size(), collected,
@@ -157,7 +157,7 @@ public final class CampaignCollectStep {
         for (String f : failed) {
             audit.append("FAILED ").append(f).append('\n');
         }
-        AtomicOutput.writeText(folder.resolve(CampaignFolder.AUDIT), true, audit.toString());
+        AtomicOutput.writeText(folder.resolve(CampaignFolder.AUDIT), true, List.of(), audit.toString());
         return new Result(folder.resolve(CampaignFolder.RESULTS), jobs.size(), collected, missing, failed, rowCount,
                 readCount);
     }
@@ -404,6 +404,6 @@ public final class CampaignCollectStep {
                 out.append(CsvReader.quote(r[c[0]])).append(',').append(energy).append(',').append(r[c[2]]).append('\n');
             }
         }
-        AtomicOutput.writeText(file, true, out.toString());
+        AtomicOutput.writeText(file, true, List.of(), out.toString());
     }
 }

@@ -81,9 +81,25 @@ public final class CampaignPrepareStep {
     public record Result(Path folder, List<JobTable.Job> jobs, List<String> notes) {
     }
 
+    /** The plan and every file it names: the output may be none of them, nor hold nor lie inside one. */
+    static List<Path> planInputs(CampaignPlan plan) {
+        List<Path> l = AtomicOutput.inputs(plan.file(), plan.device(), plan.chains(), plan.sampler().errors(),
+                plan.sampler().energyScales());
+        for (CampaignPlan.Instance i : plan.instances()) {
+            l.add(i.problem());
+        }
+        for (CampaignPlan.Schedule s : plan.schedules()) {
+            if (s.file() != null) {
+                l.add(s.file());
+            }
+        }
+        return l;
+    }
+
     public static Result run(Request r, StepProgress progress) throws IOException {
         CampaignPlan plan = CampaignPlanCodec.read(r.plan());
-        AtomicOutput.checkTarget(r.out(), r.force());
+        List<Path> read = planInputs(plan);
+        AtomicOutput.checkTarget(r.out(), r.force(), read);
         DeviceLimits device = DeviceCodec.read(plan.device());
         checkCouplings(plan, device);
         List<String> notes = new ArrayList<>();
@@ -112,7 +128,7 @@ public final class CampaignPrepareStep {
         }
         String inputsHash = inputsHash(plan);
         List<JobTable.Job> jobs = new ArrayList<>();
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        AtomicOutput.writeDirectory(r.out(), r.force(), read, dir -> {
             ObjectNode own = copyInputs(plan, dir);
             for (int k = 0; k < logical.size(); k++) {
                 String name = plan.instances().get(k).name();

@@ -187,9 +187,14 @@ public final class DecodeStep {
 
     /** Decodes the un-gauged reads of every gauge of a manifest into one folder. */
     public static ManifestResult runManifest(ManifestRequest r) throws IOException {
-        AtomicOutput.checkTarget(r.out(), r.force());
         SourceFiles src = new SourceFiles(r.manifest());
         GaugeManifest m = src.manifest;
+        List<Path> read = AtomicOutput.inputs(r.manifest(), r.samples(), r.logical(), r.chains(), src.resolve(m.problem()),
+                src.resolve(m.device()), m.chains() == null ? null : src.resolve(m.chains()));
+        for (GaugeManifest.Entry e : m.gauges()) {
+            read.add(src.folder.resolve(e.problem()));
+        }
+        AtomicOutput.checkTarget(r.out(), r.force(), read);
         Path problemPath = src.resolve(m.problem());
         ProblemFile pf = src.problem();
         SourceFiles.requireHash(problemPath, ProblemCodec.contentHash(pf), m.problem().sha256(), "source problem");
@@ -239,7 +244,7 @@ public final class DecodeStep {
         Chains used = c.restrictedTo(q.variables());
         List<GaugeDone> done = new ArrayList<>();
         IntConsumer tick = r.progress().start("decode", m.gauges().size() - missing.size(), 0);
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        AtomicOutput.writeDirectory(r.out(), r.force(), read, dir -> {
             Writer table = r.labels() == null ? null : Files.newBufferedWriter(dir.resolve(RESULTS));
             try {
                 ResultsTable.RowWriter rows = table == null ? null
@@ -276,7 +281,8 @@ public final class DecodeStep {
     }
 
     public static Result run(Request r) throws IOException {
-        AtomicOutput.checkTarget(r.out(), r.force());
+        List<Path> read = AtomicOutput.inputs(r.problem(), r.logical(), r.chains(), r.samples());
+        AtomicOutput.checkTarget(r.out(), r.force(), read);
         VariableIndex qubits = ProblemCodec.read(r.problem()).variables();
         IsingProblem q = ProblemCodec.read(r.logical()).spin();
         ChainList list = ChainsCodec.read(r.chains());
@@ -288,7 +294,7 @@ public final class DecodeStep {
         }
         DecodedSamples d = decode(decoder, physical, r.samples());
         Path logicalName = Path.of(SampleFormat.of(r.samples()).fileName("logical"));
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        AtomicOutput.writeDirectory(r.out(), r.force(), read, dir -> {
             writeFolder(dir, logicalName, q, c.restrictedTo(q.variables()), d, r.coding());
             if (r.labels() != null) {
                 try (Writer out = Files.newBufferedWriter(dir.resolve(RESULTS))) {

@@ -135,7 +135,8 @@ public final class EmbedStep {
     }
 
     public static Result run(Request r) throws IOException {
-        AtomicOutput.checkTarget(r.out(), r.force());
+        List<Path> read = AtomicOutput.inputs(r.logical(), r.chains(), r.device());
+        AtomicOutput.checkTarget(r.out(), r.force(), read);
         IsingProblem q = ProblemCodec.read(r.logical()).spin();
         ObjectNode deviceJson = JsonFiles.read(r.device(), DeviceCodec.KIND);
         DeviceLimits d = DeviceCodec.fromJson(r.device(), deviceJson);
@@ -149,16 +150,20 @@ public final class EmbedStep {
             c = Chains.of(list.logicalIds(), list.qubitGroups());
         } else {
             writeChains = r.chainsOut() != null ? r.chainsOut() : siblingChains(r.out());
-            AtomicOutput.checkTarget(writeChains, r.force());
+            AtomicOutput.checkTarget(writeChains, r.force(), read);
             FoundChains fc = findChains(q, g, deviceJson, r.device(), r.logical(), r.search());
             c = fc.chains();
             found = fc.found();
         }
         EmbeddedProblem ep = embed(q, c, d, r.strength(), r.scale(), r.chains(), r.device());
-        if (writeChains != null) {
-            ChainsCodec.write(writeChains, r.force(), chainList(ep.chains()));
-        }
-        ProblemCodec.write(r.out(), r.force(), physicalFile(q, ep));
+        // The problem and the chains found for it are published together.
+        boolean withChains = writeChains != null;
+        AtomicOutput.writeFiles(withChains ? List.of(r.out(), writeChains) : List.of(r.out()), r.force(), read, files -> {
+            ProblemCodec.write(files.get(0), false, physicalFile(q, ep));
+            if (withChains) {
+                ChainsCodec.write(files.get(1), false, chainList(ep.chains()));
+            }
+        });
         return new Result(ep, q, r.out(), writeChains, found);
     }
 

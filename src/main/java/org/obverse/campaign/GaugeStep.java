@@ -99,7 +99,7 @@ public final class GaugeStep {
                         : new GaugeManifest.SourceFile(relative(outAbs, r.chains()), ChainsCodec.contentHash(chains)),
                 r.lock().label(), r.design().label(), r.seed(), SeedStream.ALGORITHM, SeedStream.EXPANSION,
                 counts(clusters), set.redraws(), set.distinctCount(), entries);
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        AtomicOutput.writeDirectory(r.out(), r.force(), AtomicOutput.inputs(r.problem(), r.device(), r.chains()), dir -> {
             for (int i = 0; i < gauged.size(); i++) {
                 ProblemCodec.write(dir.resolve(entries.get(i).problem()), false, gauged.get(i));
             }

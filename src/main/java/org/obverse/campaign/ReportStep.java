@@ -49,9 +49,13 @@ public final class ReportStep {
                          BiasDiagnostics.Result couplerBias) {
     }
 
+    private static List<Path> inputs(Request r) {
+        return AtomicOutput.inputs(r.scoring().results(), r.scoring().ground(), r.magnetisation(), r.correlations());
+    }
+
     /** Reads, scores, draws and writes the folder; nothing is written when any of it fails. */
     public static Result run(Request r) throws IOException {
-        AtomicOutput.checkTarget(r.out(), r.force());
+        AtomicOutput.checkTarget(r.out(), r.force(), inputs(r));
         if (!(r.alpha() > 0) || !(r.alpha() < 1)) {
             throw new BadInputException("--alpha must be in (0, 1), got " + r.alpha() + " (see --help)");
         }
@@ -103,7 +107,7 @@ public final class ReportStep {
                 r.correlations() == null ? null : r.correlations().toString()), figures, bias, qubits, couplerBias,
                 couplers);
         String json = ScoreFiles.json(scored.summary(), tables, scored.rule(), results, ground, scored.sweepName());
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        AtomicOutput.writeDirectory(r.out(), r.force(), inputs(r), dir -> {
             Files.writeString(dir.resolve(PAGE), html);
             Path plots = Files.createDirectories(dir.resolve("plots"));
             for (Figure f : figures) {

@@ -143,21 +143,34 @@ public final class SampleStep {
     private static Result one(Request r, ReferenceSampler sampler, double runUs) throws IOException {
         ProblemFile pf = ProblemCodec.read(r.problem());
         Path energiesFile = beside(r.out(), ".energies.npy");
-        AtomicOutput.checkTarget(r.out(), r.force());
-        AtomicOutput.checkTarget(energiesFile, r.force());
-        SampledReads s = sampler.sample(pf.spin(), r.reads(), r.seed());
+        List<Path> read = AtomicOutput.inputs(r.problem());
         Path resultsFile = r.labels() == null ? null : beside(r.out(), ".results.csv");
-        if (resultsFile != null) {
-            AtomicOutput.checkTarget(resultsFile, r.force());
+        List<Path> targets = resultsFile == null ? List.of(r.out(), energiesFile)
+                : List.of(r.out(), energiesFile, resultsFile);
+        for (Path t : targets) {
+            AtomicOutput.checkTarget(t, r.force(), read);
         }
-        writeSamples(r.out(), s, r.force(), r.coding());
-        NpyVectors.writeFloat64(energiesFile, r.force(), s.energies());
-        if (resultsFile != null) {
-            StringWriter table = new StringWriter();
-            writeRows(ResultsTable.RowWriter.start(table, frameOf(pf), List.of()), r.labels(), -1, runUs, s.energies());
-            AtomicOutput.writeText(resultsFile, r.force(), table.toString());
-        }
+        SampledReads s = sample(sampler, pf, r.reads(), r.seed());
+        // Samples, energies and results are published together, after all are written.
+        AtomicOutput.writeFiles(targets, r.force(), read, files -> {
+            writeSamples(files.get(0), s, false, r.coding());
+            NpyVectors.writeFloat64(files.get(1), false, s.energies());
+            if (resultsFile != null) {
+                StringWriter table = new StringWriter();
+                writeRows(ResultsTable.RowWriter.start(table, frameOf(pf), List.of()), r.labels(), -1, runUs, s.energies());
+                Files.writeString(files.get(2), table.toString());
+            }
+        });
         return new Result(List.of(done(-1, r.out(), energiesFile, s)), resultsFile, frameOf(pf));
+    }
+
+    /** Samples; settings that do not suit the problem (e.g. multi-spin and its couplings) are bad input. */
+    private static SampledReads sample(ReferenceSampler sampler, ProblemFile pf, int reads, long seed) {
+        try {
+            return sampler.sample(pf.spin(), reads, seed);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException(e.getMessage(), e);
+        }
     }
 
     private static Result manifest(Request r, ReferenceSampler sampler, double runUs) throws IOException {
@@ -169,7 +182,11 @@ public final class SampleStep {
         EnergyFrame[] frame = new EnergyFrame[1];
         IntConsumer tick = r.progress().start("sample", m.gauges().size(),
                 (long) m.gauges().size() * r.reads() * r.settings().sweeps());
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        List<Path> read = AtomicOutput.inputs(r.manifest());
+        for (GaugeManifest.Entry e : m.gauges()) {
+            read.add(folder.resolve(e.problem()).normalize());
+        }
+        AtomicOutput.writeDirectory(r.out(), r.force(), read, dir -> {
             for (GaugeManifest.Entry e : m.gauges()) {
                 Path file = folder.resolve(e.problem()).normalize();
                 ProblemFile pf = ProblemCodec.read(file);
@@ -188,7 +205,7 @@ public final class SampleStep {
                     throw BadInputException.at(file, "meta", "records no embedding while other gauged problems of "
                             + r.manifest() + " do", "draw the gauges again from one source problem");
                 }
-                SampledReads s = sampler.sample(pf.spin(), r.reads(), gaugeSeed(r.seed(), e.index()));
+                SampledReads s = sample(sampler, pf, r.reads(), gaugeSeed(r.seed(), e.index()));
                 Path samples = dir.resolve(SampleFormat.NPY.fileName(e.stem()));
                 Path energies = dir.resolve(e.stem() + ".energies.npy");
                 writeSamples(samples, s, false, r.coding());
@@ -222,7 +239,7 @@ public final class SampleStep {
             throw new IllegalArgumentException("reads " + reads + ": need at least 1 read");
         }
         Path energiesFile = beside(target, ".energies.npy");
-        AtomicOutput.checkTarget(target, force);
+        AtomicOutput.checkTarget(target, force, List.of());
         SampledReads s = ReferenceSampler.of(settings).sample(problem.spin(), reads, seed);
         NpyVectors.writeFloat64(energiesFile, true, s.energies());
         writeSamples(target, s, force, coding);

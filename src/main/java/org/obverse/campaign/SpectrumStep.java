@@ -78,11 +78,18 @@ public final class SpectrumStep {
                          Path out) {
     }
 
+    /** The files a run reads: the output may be none of them, nor hold nor lie inside one. */
+    static List<Path> inputs(Request r) {
+        return r.sweep() == null ? AtomicOutput.inputs(r.problem(), r.energyScales())
+                : AtomicOutput.inputs(r.problem(), r.energyScales(), r.sweep().logical(), r.sweep().chains(),
+                        r.sweep().device());
+    }
+
     public static Result run(Request r) throws IOException {
         if ((r.problem() == null) == (r.sweep() == null)) {
             throw new IllegalArgumentException("give either a problem or a chain-coupling sweep");
         }
-        AtomicOutput.checkTarget(r.out(), r.force());
+        AtomicOutput.checkTarget(r.out(), r.force(), inputs(r));
         EnergyScales scales = r.energyScales() == null ? EnergyScales.illustrative()
                 : readEnergyScales(r.energyScales(), r.energyUnits());
         StepProgress progress = r.progress() == null ? StepProgress.NONE : r.progress();
@@ -143,7 +150,7 @@ public final class SpectrumStep {
                 pw.to(), unit, dipS);
         Figure gapPng = LevelsPlot.gap(title, g.s(), g.gaps(), m.sStar(), m.gapMin(), pw.from(), pw.to(), unit,
                 dipS, dipGap);
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        AtomicOutput.writeDirectory(r.out(), r.force(), inputs(r), dir -> {
             Files.writeString(dir.resolve("levels.csv"), levelsCsv(g));
             Files.writeString(dir.resolve("gap.csv"), gapCsv(g));
             Files.writeString(dir.resolve("summary.json"), JsonFiles.text(summary));
@@ -210,7 +217,7 @@ public final class SpectrumStep {
         summary.put("seconds", Math.round(seconds * 1000) / 1000.0);
         Figure plot = LevelsPlot.chainScan(sw.logical().getFileName() + " — " + (sched.isIllustrative()
                 ? "illustrative schedule" : sched.name()), x, sStar, gapMin);
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        AtomicOutput.writeDirectory(r.out(), r.force(), inputs(r), dir -> {
             Files.writeString(dir.resolve("chain_scan.csv"), csv.toString());
             Files.writeString(dir.resolve("summary.json"), JsonFiles.text(summary));
             Files.write(dir.resolve("chain_scan.png"), plot.png());

@@ -9,6 +9,7 @@ import org.obverse.gauge.Gauge;
 import org.obverse.io.AtomicOutput;
 import org.obverse.io.BadInputException;
 import org.obverse.io.GaugeManifest;
+import org.obverse.io.NpyReader;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.ProblemFile;
 import org.obverse.io.SampleCoding;
@@ -99,7 +100,14 @@ public final class UngaugeStep {
         }
         List<Done> done = new ArrayList<>();
         IsingProblem spin = pf.spin();
-        AtomicOutput.writeDirectory(r.out(), r.force(), dir -> {
+        List<Path> read = new ArrayList<>(List.of(r.manifest(), r.samples(), problemPath, src.resolve(m.device())));
+        if (m.chains() != null) {
+            read.add(src.resolve(m.chains()));
+        }
+        for (GaugeManifest.Entry e : m.gauges()) {
+            read.add(src.folder.resolve(e.problem()));
+        }
+        AtomicOutput.writeDirectory(r.out(), r.force(), read, dir -> {
             StringBuilder mag = new StringBuilder("qubit,gauge,reads,sum_spin,sign\n");
             StringBuilder cor = new StringBuilder("qubit_a,qubit_b,gauge,reads,sum_product,sign\n");
             for (int i = 0; i < inputs.size(); i++) {
@@ -114,6 +122,7 @@ public final class UngaugeStep {
                 mom.append(mag, cor, e.index(), gauges.get(i), ids, spin);
                 Path energies = r.samples().resolve(e.stem() + ".energies.npy");
                 if (Files.exists(energies)) {
+                    NpyReader.open(energies).close(); // a regular NPY file whose length matches its header
                     Files.copy(energies, dir.resolve(energies.getFileName()));
                 }
                 done.add(new Done(e.index(), in, r.out().resolve(out.getFileName()), reads));

@@ -108,7 +108,12 @@ public final class DecodeCommand implements Callable<Integer> {
         if (problem != null && allowMissing) {
             throw new BadInputException("--allow-missing goes with --manifest");
         }
-        ChainBreakRule r = ChainBreakRule.named(rule);
+        ChainBreakRule r;
+        try {
+            r = ChainBreakRule.named(rule);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--rule: " + e.getMessage());
+        }
         DecodeStep.Labels labels = labels();
         SampleCoding coding = binary ? SampleCoding.BINARY : SampleCoding.SPIN;
         PrintWriter w = spec.commandLine().getOut();

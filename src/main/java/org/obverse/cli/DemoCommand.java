@@ -62,9 +62,9 @@ public final class DemoCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         say = spec.commandLine().getOut();
-        AtomicOutput.checkTarget(out, force);
+        AtomicOutput.checkTarget(out, force, List.of());
         long start = System.nanoTime();
-        AtomicOutput.writeDirectory(out, force, d -> {
+        AtomicOutput.writeDirectory(out, force, List.of(), d -> {
             dir = d;
             try (Writer l = Files.newBufferedWriter(d.resolve("log.txt"), StandardCharsets.UTF_8)) {
                 log = l;

@@ -2,12 +2,14 @@ package org.obverse.cli;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.security.SecureRandom;
 import java.util.Arrays;
 import java.util.concurrent.Callable;
 import org.apache.commons.rng.simple.RandomSource;
+import org.obverse.io.BadInputException;
 import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.QubitGraph;
@@ -75,7 +77,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        AtomicOutput.checkTarget(out, force);
+        AtomicOutput.checkTarget(out, force, List.of());
         CellLattice lattice = CellLattice.of(rows, cols, shore);
         int[][] couplers = new int[removeCouplers.length][];
         for (int i = 0; i < couplers.length; i++) {
@@ -86,7 +88,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
                 }
                 couplers[i] = new int[] {Integer.parseInt(ab[0].trim()), Integer.parseInt(ab[1].trim())};
             } catch (NumberFormatException e) {
-                throw new IllegalArgumentException("--remove-couplers: '" + removeCouplers[i]
+                throw new BadInputException("--remove-couplers: '" + removeCouplers[i]
                         + "' is not a coupler; write it as A-B, e.g. 0-4");
             }
         }
@@ -116,7 +118,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
         if (random) {
             meta.put("seed", s);
         }
-        AtomicOutput.writeText(out, force, JsonFiles.text(root));
+        AtomicOutput.writeText(out, force, List.of(), JsonFiles.text(root));
         PrintWriter w = spec.commandLine().getOut();
         w.printf("%s: %d of %d qubits, %d of %d couplers%s%n", lattice, g.qubits().size(), full.qubits().size(),
                 g.couplerCount(), full.couplerCount(), random ? " (random defects, seed " + s + ")" : "");
@@ -126,7 +128,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
 
     private static ValueRange range(double[] v, String option) {
         if (v.length != 2 || !(v[0] <= v[1]) || Arrays.stream(v).anyMatch(x -> !Double.isFinite(x))) {
-            throw new IllegalArgumentException(option + " " + Arrays.toString(v) + " is not a range; give LO,HI with LO <= HI");
+            throw new BadInputException(option + " " + Arrays.toString(v) + " is not a range; give LO,HI with LO <= HI");
         }
         return ValueRange.of(v[0], v[1]);
     }

@@ -1,5 +1,6 @@
 package org.obverse.cli;
 
+import org.obverse.io.BadInputException;
 import org.obverse.campaign.EmbedStep;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -77,17 +78,22 @@ public final class EmbedCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws Exception {
-        ChainStrength strength = new ChainStrength(chainCoupling, ChainStrength.Mode.named(mode));
+        ChainStrength strength;
+        try {
+            strength = new ChainStrength(chainCoupling, ChainStrength.Mode.named(mode));
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--chain-coupling / --chain-coupling-mode: " + e.getMessage());
+        }
         EmbedStep.Search search = null;
         if (chains == null) {
             EmbedStep.Finder f;
             try {
                 f = EmbedStep.Finder.named(finder);
             } catch (IllegalArgumentException e) {
-                throw new IllegalArgumentException("--finder '" + finder + "' is not one of reroute, clique");
+                throw new BadInputException("--finder '" + finder + "' is not one of reroute, clique");
             }
             if (f == EmbedStep.Finder.REROUTE && (rounds < 1 || !(timeLimit >= 0))) {
-                throw new IllegalArgumentException("--rounds must be >= 1 and --time-limit >= 0");
+                throw new BadInputException("--rounds must be >= 1 and --time-limit >= 0");
             }
             long s = seed != null || f == EmbedStep.Finder.CLIQUE ? (seed == null ? 0 : seed) : new SecureRandom().nextLong();
             search = new EmbedStep.Search(f, s, Math.max(rounds, 1), tries, Math.max(timeLimit, 0));

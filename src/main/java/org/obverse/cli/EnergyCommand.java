@@ -1,9 +1,12 @@
 package org.obverse.cli;
 
+import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.concurrent.Callable;
+import org.obverse.io.AtomicOutput;
+import org.obverse.io.BadInputException;
 import org.obverse.io.NpyVectors;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.SampleCoding;
@@ -51,6 +54,10 @@ public final class EnergyCommand implements Callable<Integer> {
             double[] chunk = new double[4096];
             EnergyKernel exact = EnergyKernel.exact(p);
             while ((b = in.nextBlock(4096, b)) != null) {
+                if (reads + b.reads() > SampleFiles.MAX_READS) {
+                    throw BadInputException.at(samples, "", "holds more than " + SampleFiles.MAX_READS + " reads",
+                            "split the samples over several files");
+                }
                 exact.energies(b, chunk, 0);
                 if (reads + b.reads() > energies.length) {
                     energies = Arrays.copyOf(energies, (int) Math.max(energies.length * 2L, reads + b.reads()));
@@ -62,7 +69,9 @@ public final class EnergyCommand implements Callable<Integer> {
         energies = Arrays.copyOf(energies, (int) reads);
         PrintWriter w = spec.commandLine().getOut();
         if (out != null) {
-            NpyVectors.writeFloat64(out, force, energies);
+            double[] all = energies;
+            AtomicOutput.writeFiles(List.of(out), force, AtomicOutput.inputs(problem, samples),
+                    files -> NpyVectors.writeFloat64(files.get(0), false, all));
             w.printf("wrote %d energies to %s%n", reads, out);
             return Main.DONE;
         }

@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.security.SecureRandom;
 import java.util.concurrent.Callable;
+import org.obverse.io.BadInputException;
 import org.obverse.campaign.GaugeStep;
 import org.obverse.gauge.GaugeDesign;
 import org.obverse.gauge.LockPolicy;
@@ -57,7 +58,7 @@ public final class GaugeCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         if (count < 1) {
-            throw new IllegalArgumentException("--count " + count + " must be at least 1");
+            throw new BadInputException("--count " + count + " must be at least 1");
         }
         LockPolicy policy = lock == null ? (chains != null ? LockPolicy.CHAINS : LockPolicy.RANGE) : LockPolicy.ofLabel(lock);
         long s = seed != null ? seed : new SecureRandom().nextLong();

@@ -2,14 +2,25 @@ package org.obverse.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.io.UncheckedIOException;
+import java.nio.file.FileSystemException;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import org.obverse.anneal.InvalidEnergyScalesException;
+import org.obverse.embed.EmbeddingNotFoundException;
 import org.obverse.io.BadInputException;
+import org.obverse.io.Messages;
+import org.obverse.model.InvalidProblemException;
+import org.obverse.spectrum.SpectrumLimitException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
 /**
  * The {@code obverse} command: one subcommand a verb. Exit codes: 0 done, 1 a check failed,
- * 2 bad input or usage (one line), 3 an I/O failure.
+ * 2 bad input or usage (one line), 3 an I/O failure, 70 an internal error (one line asking for a
+ * report; the stack trace goes to a file).
  */
 @Command(name = "obverse", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
         description = "Range-aware spin-reversal gauges, chains, sampling and scoring for analog Ising hardware.",
@@ -34,6 +45,8 @@ public final class Main implements Runnable {
     public static final int CHECK_FAILED = 1;
     public static final int BAD_INPUT = 2;
     public static final int IO_FAILURE = 3;
+    /** A fault of this program (sysexits' EX_SOFTWARE): please report it. */
+    public static final int INTERNAL_ERROR = 70;
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
@@ -52,7 +65,12 @@ public final class Main implements Runnable {
         CommandLine cl = commandLine();
         cl.setOut(out);
         cl.setErr(err);
-        return cl.execute(args);
+        try {
+            return cl.execute(args);
+        } catch (Throwable t) {
+            // Errors (out of memory, stack overflow) and anything a handler let through.
+            return internalError(err, "obverse", t);
+        }
     }
 
     /** The configured command tree. */
@@ -60,37 +78,88 @@ public final class Main implements Runnable {
         CommandLine cl = new CommandLine(new Main());
         cl.setParameterExceptionHandler((ex, args) -> {
             PrintWriter e = ex.getCommandLine().getErr();
-            e.println("obverse " + ex.getCommandLine().getCommandName() + ": " + ex.getMessage()
-                    + " (see --help)");
+            e.println(line("obverse " + ex.getCommandLine().getCommandName() + ": " + ex.getMessage()
+                    + " (see --help)"));
             return BAD_INPUT;
         });
-        cl.setExecutionExceptionHandler((ex, line, parsed) -> {
-            PrintWriter e = line.getErr();
-            String verb = line.getCommandName();
+        cl.setExecutionExceptionHandler((ex, cmd, parsed) -> {
+            PrintWriter e = cmd.getErr();
+            String verb = "obverse " + cmd.getCommandName();
             Throwable t = ex;
             if (t instanceof UncheckedIOException && t.getCause() != null) {
                 t = t.getCause();
             }
-            if (t instanceof BadInputException) {
-                e.println("obverse " + verb + ": " + t.getMessage());
+            if (isBadInput(t)) {
+                e.println(line(verb + ": " + t.getMessage()));
                 return BAD_INPUT;
             }
-            if (t instanceof java.nio.file.NoSuchFileException) {
-                e.println("obverse " + verb + ": " + ((java.nio.file.NoSuchFileException) t).getFile()
-                        + ": no such file; check the path");
+            if (t instanceof NoSuchFileException) {
+                e.println(line(verb + ": " + ((NoSuchFileException) t).getFile() + ": no such file; check the path"));
                 return BAD_INPUT;
             }
             if (t instanceof IOException) {
-                e.println("obverse " + verb + ": I/O failure: " + t);
+                e.println(line(verb + ": I/O failure: " + describe((IOException) t)));
                 return IO_FAILURE;
             }
-            if (t instanceof IllegalArgumentException) {
-                e.println("obverse " + verb + ": " + t.getMessage());
-                return BAD_INPUT;
-            }
-            throw ex;
+            return internalError(e, verb, t);
         });
         return cl;
+    }
+
+    /**
+     * Bad input or usage, exit 2: {@link BadInputException} and the core's exceptions that name a
+     * value the caller chose (a problem that breaks a rule, energy scales that are not a table, a
+     * spectrum too large to solve, an embedding that cannot be found). Any other exception is a
+     * fault of this program.
+     */
+    static boolean isBadInput(Throwable t) {
+        return t instanceof BadInputException
+                || t instanceof InvalidProblemException
+                || t instanceof InvalidEnergyScalesException
+                || t instanceof SpectrumLimitException
+                || t instanceof EmbeddingNotFoundException;
+    }
+
+    /** An I/O failure in one line, naming the file where the exception knows it. */
+    static String describe(IOException e) {
+        if (e instanceof FileSystemException) {
+            FileSystemException f = (FileSystemException) e;
+            String s = f.getFile() == null ? "" : f.getFile() + ": ";
+            if (f.getOtherFile() != null) {
+                s += "(and " + f.getOtherFile() + ") ";
+            }
+            return s + (f.getReason() == null ? e.getClass().getSimpleName() : f.getReason());
+        }
+        return e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+    }
+
+    /**
+     * A fault of this program: one line asking for a report, the stack trace written to a file
+     * in the temporary folder (exit 70, as sysexits' EX_SOFTWARE).
+     */
+    static int internalError(PrintWriter err, String verb, Throwable t) {
+        String where;
+        try {
+            Path trace = Files.createTempFile("obverse-internal-error-", ".txt");
+            StringWriter text = new StringWriter();
+            try (PrintWriter w = new PrintWriter(text)) {
+                w.println(verb);
+                t.printStackTrace(w);
+            }
+            Files.writeString(trace, text.toString());
+            where = "details in " + trace;
+        } catch (IOException | RuntimeException | Error e) {
+            where = "the details could not be saved (" + e + ")";
+        }
+        err.println(line(verb + ": internal error (" + t.getClass().getName()
+                + (t.getMessage() == null ? "" : ": " + t.getMessage()) + "); please report it with the "
+                + "command line and the files it read; " + where));
+        err.flush();
+        return INTERNAL_ERROR;
+    }
+
+    private static String line(String s) {
+        return Messages.oneLine(s, Messages.MAX_MESSAGE);
     }
 
     @Override

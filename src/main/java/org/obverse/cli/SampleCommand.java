@@ -181,6 +181,12 @@ public final class SampleCommand implements Callable<Integer> {
             }
             s = s.withThreads(threads);
         }
+        if (s.sweepCount() > SamplerSettings.MAX_SWEEPS) {
+            throw BadInputException.at(schedule, "", "a read of " + s.schedule().runTimeMicros() + " us at "
+                    + sweepsPerMicrosecond + " sweeps per us needs " + (s.sweepCount() == Long.MAX_VALUE ? "more than 2^63"
+                    : String.valueOf(s.sweepCount())) + " sweeps, more than the limit " + SamplerSettings.MAX_SWEEPS,
+                    "shorten the schedule or lower --sweeps-per-us");
+        }
         return withMethod(s);
     }
 

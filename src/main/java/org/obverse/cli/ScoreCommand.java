@@ -42,14 +42,14 @@ public final class ScoreCommand implements Callable<Integer> {
         PrintWriter o = spec.commandLine().getOut();
         PrintWriter e = spec.commandLine().getErr();
         if (out != null) {
-            AtomicOutput.checkTarget(out, force);
+            AtomicOutput.checkTarget(out, force, AtomicOutput.inputs(scoring.results, scoring.ground));
         }
         ScoreStep.Result scored = scoring.score(e);
         ScoreFiles.Tables tables = ScoreFiles.tables(scored.summary(), scored.sweepName());
         String jsonText = ScoreFiles.json(scored.summary(), tables, scored.rule(), scoring.results.toString(),
                 scoring.ground == null ? null : scoring.ground.toString(), scored.sweepName());
         if (out != null) {
-            AtomicOutput.writeDirectory(out, force, dir -> {
+            AtomicOutput.writeDirectory(out, force, AtomicOutput.inputs(scoring.results, scoring.ground), dir -> {
                 ScoreFiles.writeCsv(dir, tables);
                 java.nio.file.Files.writeString(dir.resolve("scores.json"), jsonText);
             });

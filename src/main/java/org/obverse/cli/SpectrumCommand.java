@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
+import org.obverse.io.BadInputException;
 import org.obverse.anneal.EnergyScales;
 import org.obverse.campaign.SpectrumStep;
 import org.obverse.campaign.StepProgress;
@@ -181,7 +182,7 @@ public final class SpectrumCommand implements Callable<Integer> {
             case "lanczos":
                 return SolverChoice.LANCZOS;
             default:
-                throw new IllegalArgumentException("--solver '" + name + "' is not one of auto, dense, lanczos");
+                throw new BadInputException("--solver '" + name + "' is not one of auto, dense, lanczos");
         }
     }
 

@@ -72,7 +72,7 @@ public final class ChainsCodec {
     }
 
     public static void write(Path file, boolean force, ChainList c) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(c)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(c)));
     }
 
     public static String contentHash(ChainList c) {

@@ -16,7 +16,7 @@ import org.obverse.anneal.ControlErrors;
 public final class ControlErrorsCodec {
     public static final String KIND = "errors";
     private static final Set<String> FIELDS = Set.of("format", "seed", "field_sigma", "coupling_sigma",
-            "read_field_sigma", "read_coupling_sigma");
+            "read_field_sigma", "read_coupling_sigma", "meta");
 
     private ControlErrorsCodec() {
     }
@@ -29,7 +29,9 @@ public final class ControlErrorsCodec {
     /** Parses the model from a JSON object (file names the source in messages). */
     public static ControlErrors fromJson(Path file, ObjectNode root) {
         JsonFields f = new JsonFields(file);
-        f.onlyKeys(root, KIND, FIELDS, "use seed, field_sigma, coupling_sigma, read_field_sigma, read_coupling_sigma");
+        f.onlyKeys(root, KIND, FIELDS, "use seed, field_sigma, coupling_sigma, read_field_sigma, read_coupling_sigma;"
+                + " free-form data goes under \"meta\"");
+        f.optionalMeta(root);
         JsonNode seed = f.required(root, "seed", "give the simulated device's \"seed\" (an integer)");
         if (!seed.isIntegralNumber() || !seed.canConvertToLong()) {
             throw f.bad("\"seed\"", "is " + JsonFields.describe(seed) + ", not an integer", "give a 64-bit integer");
@@ -69,6 +71,6 @@ public final class ControlErrorsCodec {
 
     /** Writes an errors file atomically. */
     public static void write(Path file, boolean force, ControlErrors e) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(e)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(e)));
     }
 }

@@ -1,11 +1,7 @@
 package org.obverse.io;
 
-import java.io.BufferedReader;
 import java.io.Closeable;
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -22,13 +18,13 @@ import java.util.Map;
  */
 public final class CsvReader implements Closeable {
     private final Path file;
-    private final BufferedReader in;
+    private final TextInput in;
     private final String[] header;
     private final Map<String, Integer> columns = new HashMap<>();
     private long line;
     private long recordLine;
 
-    private CsvReader(Path file, BufferedReader in) throws IOException {
+    private CsvReader(Path file, TextInput in) throws IOException {
         this.file = file;
         this.in = in;
         String[] h = next();
@@ -47,12 +43,19 @@ public final class CsvReader implements Closeable {
         this.header = h;
     }
 
-    /** Opens a file and reads its header. */
+    /**
+     * Opens a file and reads its header.
+     *
+     * @throws BadInputException for anything but a regular file, text that is not UTF-8, an
+     *                           overlong line (see {@link TextInput}) or a bad header
+     */
     public static CsvReader open(Path file) throws IOException {
+        TextInput in = TextInput.open(file);
         try {
-            return new CsvReader(file, Files.newBufferedReader(file, StandardCharsets.UTF_8));
-        } catch (NoSuchFileException e) {
-            throw BadInputException.at(file, "", "no such file", "check the path");
+            return new CsvReader(file, in);
+        } catch (IOException | RuntimeException e) {
+            in.close();
+            throw e;
         }
     }
 
@@ -116,7 +119,7 @@ public final class CsvReader implements Closeable {
     /** A parse error at the current record naming the column and the value. */
     public BadInputException error(int column, String value, String problem, String remedy) {
         return BadInputException.at(file, "line " + recordLine + ", column " + header[column],
-                "value '" + value + "' " + problem, remedy);
+                "value '" + Messages.excerpt(value) + "' " + problem, remedy);
     }
 
     private String[] next() throws IOException {
@@ -143,6 +146,10 @@ public final class CsvReader implements Closeable {
                                     "close it with a double quote");
                         }
                         line++;
+                        if (field.length() + (long) more.length() > TextInput.MAX_LINE) {
+                            throw BadInputException.at(file, "line " + recordLine, "a quoted field runs over more than "
+                                    + TextInput.MAX_LINE + " characters", "close the quoted field with a double quote");
+                        }
                         field.append('\n');
                         text = more;
                         i = 0;

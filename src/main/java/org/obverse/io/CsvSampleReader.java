@@ -2,7 +2,6 @@ package org.obverse.io;
 
 import java.io.IOException;
 import java.io.InputStream;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -40,7 +39,7 @@ final class CsvSampleReader extends SampleReader {
     }
 
     static CsvSampleReader open(Path file, VariableIndex expected, SampleCoding coding) throws IOException {
-        InputStream in = Files.newInputStream(file);
+        InputStream in = InputFiles.openStream(file);
         try {
             CsvSampleReader r = new CsvSampleReader(file, in, coding);
             int[] ids = r.header();
@@ -128,7 +127,7 @@ final class CsvSampleReader extends SampleReader {
                 id = -1;
             }
             if (id < 0) {
-                throw BadInputException.at(file, "line 1, column " + ids.size(), "header value '" + t
+                throw BadInputException.at(file, "line 1, column " + ids.size(), "header value '" + Messages.excerpt(t)
                         + "' is not a variable id (an integer >= 0)", "the first line must list the variable ids");
             }
             ids.add(id);
@@ -237,7 +236,7 @@ final class CsvSampleReader extends SampleReader {
                         "give one value per header id");
             }
             if (s == 0) {
-                throw BadInputException.at(file, place(col), "holds '" + token + "'; " + coding.rule(),
+                throw BadInputException.at(file, place(col), "holds '" + Messages.excerpt(token.toString()) + "'; " + coding.rule(),
                         coding == SampleCoding.SPIN ? "write -1 or 1 (0/1 files need the binary coding)" : "write 0 or 1");
             }
             rows[base + target[col]] = (byte) s;

@@ -114,7 +114,7 @@ public final class DeviceCodec {
     }
 
     public static void write(Path file, boolean force, DeviceLimits d) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(d)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(d)));
     }
 
     public static String contentHash(DeviceLimits d) {

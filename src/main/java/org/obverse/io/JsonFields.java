@@ -25,6 +25,14 @@ final class JsonFields {
         }
     }
 
+    /** Refuses a {@code meta} that is present but not an object (it is free-form, but an object). */
+    void optionalMeta(JsonNode root) {
+        JsonNode m = root.get("meta");
+        if (m != null && !m.isObject()) {
+            throw bad("\"meta\"", "is " + describe(m) + ", not an object", "put free-form data in an object");
+        }
+    }
+
     JsonNode required(JsonNode obj, String name, String remedy) {
         JsonNode n = obj.get(name);
         if (n == null || n.isNull()) {

@@ -10,8 +10,6 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.json.JsonMapper;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 
 /**
@@ -32,17 +30,30 @@ public final class JsonFiles {
     private JsonFiles() {
     }
 
-    /** Reads a JSON object from a file and checks its format tag. */
+    /**
+     * Reads a JSON object from a file and checks its format tag. The file is read through
+     * {@link TextInput} (a regular file of at most {@link TextInput#MAX_JSON_BYTES}, strict UTF-8).
+     */
     public static ObjectNode read(Path file, String kind) {
-        byte[] bytes;
+        String text;
         try {
-            bytes = Files.readAllBytes(file);
-        } catch (NoSuchFileException e) {
-            throw BadInputException.at(file, "", "no such file", "check the path");
+            text = TextInput.readAll(file, TextInput.MAX_JSON_BYTES);
         } catch (IOException e) {
-            throw BadInputException.at(file, "", "cannot be read (" + e.getMessage() + ")", "check the path and permissions");
+            throw BadInputException.at(file, "", "cannot be read (" + e.getClass().getSimpleName()
+                    + (e.getMessage() == null ? "" : ": " + e.getMessage()) + ")", "check the path and permissions");
         }
-        return parse(file, bytes, kind);
+        return parse(file, text, kind);
+    }
+
+    /** Parses JSON text (named by file, for messages) and checks the format tag. */
+    public static ObjectNode parse(Path file, String text, String kind) {
+        JsonNode root;
+        try {
+            root = MAPPER.readTree(text);
+        } catch (JsonProcessingException e) {
+            throw syntax(file, e);
+        }
+        return checkFormat(file, root, kind);
     }
 
     /** Parses JSON bytes (named by file, for messages) and checks the format tag. */
@@ -51,13 +62,21 @@ public final class JsonFiles {
         try {
             root = MAPPER.readTree(bytes);
         } catch (JsonProcessingException e) {
-            String where = e.getLocation() == null ? ""
-                    : "line " + e.getLocation().getLineNr() + ", column " + e.getLocation().getColumnNr();
-            throw BadInputException.at(file, where, "is not valid JSON (" + e.getOriginalMessage() + ")",
-                    "fix the file's syntax");
+            throw syntax(file, e);
         } catch (IOException e) {
             throw BadInputException.at(file, "", "cannot be parsed (" + e.getMessage() + ")", "fix the file");
         }
+        return checkFormat(file, root, kind);
+    }
+
+    private static BadInputException syntax(Path file, JsonProcessingException e) {
+        String where = e.getLocation() == null ? ""
+                : "line " + e.getLocation().getLineNr() + ", column " + e.getLocation().getColumnNr();
+        return BadInputException.at(file, where, "is not valid JSON (" + Messages.excerpt(e.getOriginalMessage()) + ")",
+                "fix the file's syntax");
+    }
+
+    private static ObjectNode checkFormat(Path file, JsonNode root, String kind) {
         if (root == null || !root.isObject()) {
             throw BadInputException.at(file, "top level", "is not a JSON object", "an obverse file is one JSON object");
         }

@@ -24,6 +24,8 @@ public final class ManifestCodec {
 
     public static GaugeManifest fromJson(Path file, ObjectNode root) {
         JsonFields f = new JsonFields(file);
+        f.onlyKeys(root, KIND, TOP_LEVEL, "remove it, or put it under \"meta\"");
+        f.optionalMeta(root);
         JsonNode src = f.required(root, "source", "a manifest names its source files under \"source\"");
         GaugeManifest.SourceFile problem = source(f, src, "problem", true);
         GaugeManifest.SourceFile device = source(f, src, "device", true);
@@ -67,11 +69,41 @@ public final class ManifestCodec {
                 throw f.bad(place + ".problem", "\"" + name + "\" is not a plain file name ending in .json",
                         "gauged problems sit beside the manifest");
             }
-            entries.add(new GaugeManifest.Entry(index, flipped, name, hash(f, e, place + ".sha256")));
+            GaugeManifest.Entry entry = new GaugeManifest.Entry(index, flipped, name, hash(f, e, place + ".sha256"));
+            refuseClash(f, place + ".problem", entry.stem(), entries);
+            entries.add(entry);
         }
         return new GaugeManifest(problem, device, chains, lock, design, seedNode.longValue(), generator, expansion,
                 counts, redraws, distinct, entries);
     }
+
+    /**
+     * Names that a gauge's files would share with another output: the manifest itself, the
+     * moments tables that {@code ungauge} writes beside the samples, the results table of
+     * {@code sample}, another gauge's stem (case folded, for file systems that fold case), or a
+     * stem that looks like another gauge's energies file.
+     */
+    private static void refuseClash(JsonFields f, String place, String stem, List<GaugeManifest.Entry> earlier) {
+        String folded = stem.toLowerCase(java.util.Locale.ROOT);
+        if (RESERVED_STEMS.contains(folded) || folded.endsWith(".energies")) {
+            throw f.bad(place, "the name " + Messages.excerpt(stem) + " is kept for an output of obverse ("
+                    + String.join(", ", RESERVED_STEMS) + ", *.energies)", "name the gauged problem like g0007.json");
+        }
+        for (GaugeManifest.Entry e : earlier) {
+            if (e.stem().toLowerCase(java.util.Locale.ROOT).equals(folded)) {
+                throw f.bad(place, "gauges " + e.index() + " and " + earlier.size() + " share the file name "
+                        + Messages.excerpt(stem), "give each gauge its own problem file");
+            }
+        }
+    }
+
+    /** Stems no gauge may use (see {@link #refuseClash}). */
+    static final java.util.Set<String> RESERVED_STEMS = new java.util.TreeSet<>(
+            java.util.Set.of("manifest", "magnetisation", "correlations", "results"));
+
+    /** The manifest's top-level keys. */
+    static final java.util.Set<String> TOP_LEVEL = java.util.Set.of("source", "lock", "design", "seed", "generator",
+            "seed_expansion", "clusters", "redraws", "distinct", "gauges", "meta");
 
     private static GaugeManifest.SourceFile source(JsonFields f, JsonNode src, String name, boolean required) {
         JsonNode n = src.get(name);
@@ -153,6 +185,6 @@ public final class ManifestCodec {
     }
 
     public static void write(Path file, boolean force, GaugeManifest m) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(m)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(m)));
     }
 }

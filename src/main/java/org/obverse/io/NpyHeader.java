@@ -218,11 +218,12 @@ public final class NpyHeader {
         }
 
         private static String quote(String t) {
-            return t.length() > 120 ? "\"" + t.substring(0, 120) + "...\"" : "\"" + t + "\"";
+            return "\"" + Messages.excerpt(t) + "\"";
         }
 
+        // Python's white space between the dict's tokens (a line break is allowed inside braces).
         private void space() {
-            while (p < s.length() && Character.isWhitespace(s.charAt(p))) {
+            while (p < s.length() && " \t\n\r".indexOf(s.charAt(p)) >= 0) {
                 p++;
             }
         }
@@ -325,23 +326,28 @@ public final class NpyHeader {
                         shape = tuple();
                         break;
                     default:
-                        throw bad("unknown key '" + key + "'");
+                        throw bad("unknown key '" + Messages.excerpt(key) + "'");
                 }
                 if (!take(',')) {
                     expect('}');
                     break;
                 }
             }
-            space();
-            if (p != s.length()) {
-                throw bad("unexpected text after the dict at character " + p);
+            // After the dict: padding of spaces only, and the final newline (numpy.lib.format).
+            while (p < s.length() - 1 && s.charAt(p) == ' ') {
+                p++;
+            }
+            if (p != s.length() - 1 || s.charAt(p) != '\n') {
+                throw bad(p < s.length() - 1 || p == s.length() ? "the header must be padded with spaces and end with a "
+                        + "newline; found " + Messages.excerpt(s.substring(Math.min(p, s.length()), Math.min(p + 1, s.length())))
+                        + " at character " + p : "the header must end with a newline");
             }
             if (descr == null || fortran == null || shape == null) {
                 throw bad("the dict must have the keys descr, fortran_order and shape");
             }
             NpyDtype dtype = NpyDtype.parse(descr);
             if (dtype == null) {
-                throw BadInputException.at(file, "header", "dtype '" + descr + "' is not supported",
+                throw BadInputException.at(file, "header", "dtype '" + Messages.excerpt(descr) + "' is not supported",
                         "use a plain little- or big-endian integer, bool or float dtype");
             }
             return new NpyHeader(major, dtype, fortran, shape, total);

@@ -38,6 +38,8 @@ public final class NpyProblemCodec {
 
     /** Largest n accepted: n² elements must fit one Java array. */
     static final int MAX_SIDE = 46_340;
+    /** The largest archive member unpacked, in bytes. */
+    static final int MAX_MEMBER_BYTES = 1 << 30;
 
     private NpyProblemCodec() {
     }
@@ -64,6 +66,7 @@ public final class NpyProblemCodec {
     /** Reads an {@code .npz} archive with {@code h}, {@code J} and optionally {@code offset} as a spin problem. */
     public static ProblemFile readArchive(Path file) {
         Map<String, Array> members = new HashMap<>();
+        InputFiles.requireRegular(file);
         try (ZipFile zip = new ZipFile(file.toFile())) {
             Enumeration<? extends ZipEntry> en = zip.entries();
             while (en.hasMoreElements()) {
@@ -78,7 +81,12 @@ public final class NpyProblemCodec {
                 }
                 byte[] bytes;
                 try (InputStream in = zip.getInputStream(e)) {
-                    bytes = in.readAllBytes();
+                    // Bounded: a small archive may inflate to far more than memory.
+                    bytes = in.readNBytes(MAX_MEMBER_BYTES + 1);
+                    if (bytes.length > MAX_MEMBER_BYTES) {
+                        throw BadInputException.at(file, "member " + name, "unpacks to more than " + MAX_MEMBER_BYTES
+                                + " bytes", "give a smaller problem");
+                    }
                 } catch (ZipException | java.io.EOFException ex) {
                     throw BadInputException.at(file, "member " + name, "cannot be unpacked (" + ex.getMessage() + ")",
                             "the archive is damaged or truncated: write it again");

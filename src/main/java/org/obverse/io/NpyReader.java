@@ -5,7 +5,6 @@ import java.io.IOException;
 import java.nio.ByteBuffer;
 import java.nio.channels.FileChannel;
 import java.nio.file.Path;
-import java.nio.file.StandardOpenOption;
 
 /**
  * Reads an NPY file as a stream of elements in file order, so that a file larger than memory
@@ -40,7 +39,7 @@ public final class NpyReader implements Closeable {
      * @throws IOException where the file cannot be read
      */
     public static NpyReader open(Path file) throws IOException {
-        FileChannel ch = FileChannel.open(file, StandardOpenOption.READ);
+        FileChannel ch = InputFiles.openChannel(file);
         try {
             long size = ch.size();
             byte[] head = new byte[(int) Math.min(size, 4096)];

@@ -41,6 +41,11 @@ final class NpySampleReader extends SampleReader {
                 throw BadInputException.at(file, "header", h.axis(1) + " columns are too many", layout);
             }
             int width = (int) h.axis(1);
+            if (h.axis(0) > SampleFiles.MAX_READS || width == 0 && h.axis(0) > SampleFiles.MAX_READS_WITHOUT_COLUMNS) {
+                throw BadInputException.at(file, "header", "shape " + java.util.Arrays.toString(h.shape()) + " has more reads "
+                        + "than the limit " + (width == 0 ? SampleFiles.MAX_READS_WITHOUT_COLUMNS + " for a file without columns"
+                        : SampleFiles.MAX_READS), "split the samples over several files");
+            }
             if (expected != null && width != expected.size()) {
                 throw BadInputException.at(file, "header", "shape " + java.util.Arrays.toString(h.shape()) + " has "
                         + width + " columns but the problem has " + expected.size() + " variables",

@@ -195,7 +195,7 @@ public final class ProblemCodec {
 
     /** Writes a problem file atomically. */
     public static void write(Path file, boolean force, ProblemFile pf) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(pf)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(pf)));
     }
 
     /**

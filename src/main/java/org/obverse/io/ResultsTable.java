@@ -161,13 +161,13 @@ public final class ResultsTable {
                         if (g == null) {
                             throw BadInputException.at(groundFile, "", "has no ground energy for instance '"
                                     + row.instance + "' (" + file + ", line " + csv.line() + ")",
-                                    "add a row '" + row.instance + ",<energy>' or leave out --ground to use the best energy seen");
+                                    "add a row '" + Messages.excerpt(row.instance) + ",<energy>' or leave out --ground to use the best energy seen");
                         }
                         b.ground(row.instance, g, true);
                     } else {
                         g = best.get(row.instance);
                         if (g == null) {
-                            throw BadInputException.at(file, "instance '" + row.instance + "'", "has no read with an "
+                            throw BadInputException.at(file, "instance '" + Messages.excerpt(row.instance) + "'", "has no read with an "
                                     + "energy, so no best energy seen to score against", "give its ground energy with --ground");
                         }
                         b.ground(row.instance, g, false);

@@ -24,6 +24,11 @@ import org.obverse.samples.SampleBlock;
  * }</pre>
  */
 public final class SampleFiles {
+    /** The most reads a samples file may hold. */
+    public static final long MAX_READS = Integer.MAX_VALUE - 8;
+    /** The most reads of a file without columns (its size does not bound them). */
+    public static final long MAX_READS_WITHOUT_COLUMNS = 1L << 24;
+
     private SampleFiles() {
     }
 

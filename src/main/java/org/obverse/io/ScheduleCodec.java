@@ -27,8 +27,9 @@ public final class ScheduleCodec {
     /** Parses a schedule from a JSON object (file names the source in messages). */
     public static AnnealSchedule fromJson(Path file, ObjectNode root) {
         JsonFields f = new JsonFields(file);
-        f.onlyKeys(root, KIND, java.util.Set.of("points", "max_slope_per_us"),
-                "use \"points\" and optionally \"max_slope_per_us\"");
+        f.onlyKeys(root, KIND, java.util.Set.of("points", "max_slope_per_us", "meta"),
+                "use \"points\" and optionally \"max_slope_per_us\"; free-form data goes under \"meta\"");
+        f.optionalMeta(root);
         JsonNode points = f.array(f.required(root, "points", "give \"points\": [[t_us, s], ...]"), "\"points\"");
         double[] t = new double[points.size()];
         double[] s = new double[points.size()];
@@ -104,6 +105,6 @@ public final class ScheduleCodec {
 
     /** Writes a schedule file atomically. */
     public static void write(Path file, boolean force, AnnealSchedule schedule) throws IOException {
-        AtomicOutput.writeText(file, force, JsonFiles.text(toJson(schedule)));
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(schedule)));
     }
 }

@@ -3,6 +3,7 @@ package org.obverse.io;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.obverse.device.DeviceLimits;
@@ -108,10 +109,10 @@ class CodecTest extends QuietTest {
     @Test
     void atomicOutputRefusesToOverwriteWithoutForce() throws Exception {
         Path f = file("out.json", "old");
-        assertThatThrownBy(() -> AtomicOutput.writeText(f, false, "new")).hasMessageContaining("already exists")
+        assertThatThrownBy(() -> AtomicOutput.writeText(f, false, List.of(), "new")).hasMessageContaining("already exists")
                 .hasMessageContaining("--force");
         assertThat(Files.readString(f)).isEqualTo("old");
-        AtomicOutput.writeText(f, true, "new");
+        AtomicOutput.writeText(f, true, List.of(), "new");
         assertThat(Files.readString(f)).isEqualTo("new");
         try (var s = Files.list(dir)) {
             assertThat(s.map(p -> p.getFileName().toString())).noneMatch(n -> n.endsWith(".part"));
@@ -120,7 +121,7 @@ class CodecTest extends QuietTest {
         assertThat(java.nio.file.attribute.PosixFilePermissions.toString(Files.getPosixFilePermissions(f)))
                 .isEqualTo("rw-r--r--");
         Path d = dir.resolve("folder");
-        AtomicOutput.writeDirectory(d, false, tmp -> Files.writeString(tmp.resolve("x"), "x"));
+        AtomicOutput.writeDirectory(d, false, List.of(), tmp -> Files.writeString(tmp.resolve("x"), "x"));
         assertThat(java.nio.file.attribute.PosixFilePermissions.toString(Files.getPosixFilePermissions(d)))
                 .isEqualTo("rwxr-xr-x");
     }
