@@ -212,7 +212,7 @@ public final class CampaignCommand implements Runnable {
                     if (!sparkPresent()) {
                         throw new org.obverse.io.BadInputException("--engine spark: Apache Spark is not on the class "
                                 + "path; launch through spark-submit: spark-submit --class org.obverse.cli.Main "
-                                + "obverse-cli.jar campaign ... --engine spark (README, section Spark)");
+                                + "obverse-cli.jar campaign ... --engine spark (README: Campaigns on Spark)");
                     }
                     return SparkStart.start(master, jobsPerTask == null ? 1 : jobsPerTask);
                 }
