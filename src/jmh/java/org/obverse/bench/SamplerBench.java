@@ -127,7 +127,9 @@ public class SamplerBench {
         int[] intLocalField;
         long[] scratchThresholds;
         long[] words;
+        long[][] words4;
         UniformRandomProvider rng;
+        UniformRandomProvider[] rng4;
         int sweep;
         private static int nextSeed;
 
@@ -143,6 +145,14 @@ public class SamplerBench {
             for (int k = 0; k < N; k++) {
                 spins[k] = (byte) (rng.nextBoolean() ? 1 : -1);
                 words[k] = rng.nextLong();
+            }
+            words4 = new long[4][N];
+            rng4 = new UniformRandomProvider[4];
+            for (int w = 0; w < 4; w++) {
+                rng4[w] = RandomSource.XO_RO_SHI_RO_128_PP.create(new long[] {11L + w, seed});
+                for (int k = 0; k < N; k++) {
+                    words4[w][k] = rng4[w].nextLong();
+                }
             }
             localField = new double[N];
             MetropolisKernels.localFields(N, p.start, p.neighbour, p.coupling, p.fields, spins, localField);
@@ -259,6 +269,19 @@ public class SamplerBench {
         return r.words[0];
     }
 
+    /** Four blocks' sweeps together ({@link MultiSpinCoding#sweep4}): 4 × 64 attempts per spin visit. */
+    @Benchmark
+    @OperationsPerInvocation(4 * 64 * N)
+    public long multiSpinFourWords(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        long[][] w = r.words4;
+        p.coding.sweep4(w[0], w[1], w[2], w[3], p.thresholds[r.nextSweep(p.betas.length)], r.rng4[0], r.rng4[1],
+                r.rng4[2], r.rng4[3]);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += 4 * 64 * N;
+        return w[0][0];
+    }
+
     @Benchmark
     @Threads(2)
     @OperationsPerInvocation(64 * N)
@@ -292,12 +315,15 @@ public class SamplerBench {
         System.out.printf("%-22s %12s %10s %16s %10s%n", "kernel", "attempts/ns", "x baseline", "attempts/cpu-ns",
                 "x baseline");
         for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger", "exactIntegerRows",
-                "exactIntegerTwoThreads", "multiSpin", "multiSpinTwoThreads"}) {
+                "exactIntegerTwoThreads", "multiSpin", "multiSpinFourWords", "multiSpinTwoThreads"}) {
             if (!score.containsKey(k)) {
                 continue;
             }
             System.out.printf("%-22s %12.4f %10.2f %16.4f %10.2f%n", k, score.get(k), score.get(k) / base,
                     perCpu.get(k), perCpu.get(k) / baseCpu);
+        }
+        if (score.containsKey("multiSpin") && score.containsKey("multiSpinFourWords")) {
+            System.out.printf("multi-spin, four words / one: %.2f%n", score.get("multiSpinFourWords") / score.get("multiSpin"));
         }
         for (String k : new String[] {"exact", "exactInteger", "multiSpin"}) {
             if (score.containsKey(k) && score.containsKey(k + "TwoThreads")) {

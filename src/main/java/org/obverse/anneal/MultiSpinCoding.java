@@ -154,6 +154,13 @@ public final class MultiSpinCoding {
      */
     public void sweep(long[] bits, long[] thresholds, UniformRandomProvider rng) {
         for (int k = 0; k < n; k++) {
+            sweepOne(bits, k, thresholds, rng);
+        }
+    }
+
+    /** The Metropolis step of spin k for the 64 reads of bits. */
+    private void sweepOne(long[] bits, int k, long[] thresholds, UniformRandomProvider rng) {
+        {
             long b = bits[k];
             long c0 = 0;
             long c1 = 0;
@@ -238,6 +245,160 @@ public final class MultiSpinCoding {
             }
             bits[k] = b ^ accept;
         }
+    }
+
+    /**
+     * Four independent sweeps at once: {@code b0 … b3} are four blocks' words, each with its own
+     * generator, and each ends exactly as {@link #sweep} would leave it with that generator (the
+     * same draws in the same order). Spin k of the four blocks is visited together, so the
+     * processor overlaps four independent chains of counting and of random draws; where spin k
+     * has at most six terms (three uphill levels, as everywhere on the K4,4 cell grid) the four
+     * acceptance tests run as one loop. Other spins take the one-word path per block.
+     */
+    public void sweep4(long[] b0, long[] b1, long[] b2, long[] b3, long[] thresholds, UniformRandomProvider r0,
+                       UniformRandomProvider r1, UniformRandomProvider r2, UniformRandomProvider r3) {
+        for (int k = 0; k < n; k++) {
+            int d = terms[k];
+            int uphillLevels = (d + 1) >>> 1;
+            if (uphillLevels > 3) {
+                sweepOne(b0, k, thresholds, r0);
+                sweepOne(b1, k, thresholds, r1);
+                sweepOne(b2, k, thresholds, r2);
+                sweepOne(b3, k, thresholds, r3);
+                continue;
+            }
+            // Counts of unsatisfied terms, bit-sliced (at most 6 terms: three planes suffice).
+            long x0 = b0[k];
+            long x1 = b1[k];
+            long x2 = b2[k];
+            long x3 = b3[k];
+            long a0 = 0, a1 = 0, a2 = 0;
+            long bb0 = 0, bb1 = 0, bb2 = 0;
+            long cc0 = 0, cc1 = 0, cc2 = 0;
+            long dd0 = 0, dd1 = 0, dd2 = 0;
+            if (hasGhost[k]) {
+                long g = ghostMask[k];
+                a0 = x0 ^ g;
+                bb0 = x1 ^ g;
+                cc0 = x2 ^ g;
+                dd0 = x3 ^ g;
+            }
+            for (int q = start[k]; q < start[k + 1]; q++) {
+                int j = neighbour[q];
+                long same = sameIsUnsatisfied[q];
+                long y0 = x0 ^ b0[j] ^ same;
+                long y1 = x1 ^ b1[j] ^ same;
+                long y2 = x2 ^ b2[j] ^ same;
+                long y3 = x3 ^ b3[j] ^ same;
+                long t;
+                t = a0 & y0; a0 ^= y0; y0 = a1 & t; a1 ^= t; a2 ^= y0;
+                t = bb0 & y1; bb0 ^= y1; y1 = bb1 & t; bb1 ^= t; bb2 ^= y1;
+                t = cc0 & y2; cc0 ^= y2; y2 = cc1 & t; cc1 ^= t; cc2 ^= y2;
+                t = dd0 & y3; dd0 ^= y3; y3 = dd1 & t; dd1 ^= t; dd2 ^= y3;
+            }
+            // eq(m) for the uphill levels m < d/2 (at most three): m = 0, 1, 2.
+            long e00 = ~a0 & ~a1 & ~a2;
+            long e01 = uphillLevels > 1 ? a0 & ~a1 & ~a2 : 0;
+            long e02 = uphillLevels > 2 ? ~a0 & a1 & ~a2 : 0;
+            long e10 = ~bb0 & ~bb1 & ~bb2;
+            long e11 = uphillLevels > 1 ? bb0 & ~bb1 & ~bb2 : 0;
+            long e12 = uphillLevels > 2 ? ~bb0 & bb1 & ~bb2 : 0;
+            long e20 = ~cc0 & ~cc1 & ~cc2;
+            long e21 = uphillLevels > 1 ? cc0 & ~cc1 & ~cc2 : 0;
+            long e22 = uphillLevels > 2 ? ~cc0 & cc1 & ~cc2 : 0;
+            long e30 = ~dd0 & ~dd1 & ~dd2;
+            long e31 = uphillLevels > 1 ? dd0 & ~dd1 & ~dd2 : 0;
+            long e32 = uphillLevels > 2 ? ~dd0 & dd1 & ~dd2 : 0;
+            if (uphillLevels == 0) {
+                e00 = 0;
+                e10 = 0;
+                e20 = 0;
+                e30 = 0;
+            }
+            long u0 = e00 | e01 | e02;
+            long u1 = e10 | e11 | e12;
+            long u2 = e20 | e21 | e22;
+            long u3 = e30 | e31 | e32;
+            boolean draw0 = u0 != 0;
+            boolean draw1 = u1 != 0;
+            boolean draw2 = u2 != 0;
+            boolean draw3 = u3 != 0;
+            long acc0 = ~u0;
+            long acc1 = ~u1;
+            long acc2 = ~u2;
+            long acc3 = ~u3;
+            if (draw0 | draw1 | draw2 | draw3) {
+                int base = d * LEVELS;
+                long p0 = thresholds[base];
+                long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
+                long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
+                long w0 = 0, w1 = 0, w2 = 0, w3 = 0;
+                for (int bit = 0; bit < FIXED_ROUNDS; bit++) {
+                    long s0 = p0 >> 63;
+                    long s1 = p1 >> 63;
+                    long s2 = p2 >> 63;
+                    p0 <<= 1;
+                    p1 <<= 1;
+                    p2 <<= 1;
+                    if (draw0) {
+                        long pb = (e00 & s0) | (e01 & s1) | (e02 & s2);
+                        long r = r0.nextLong();
+                        w0 |= u0 & ~r & pb;
+                        u0 &= ~(r ^ pb);
+                    }
+                    if (draw1) {
+                        long pb = (e10 & s0) | (e11 & s1) | (e12 & s2);
+                        long r = r1.nextLong();
+                        w1 |= u1 & ~r & pb;
+                        u1 &= ~(r ^ pb);
+                    }
+                    if (draw2) {
+                        long pb = (e20 & s0) | (e21 & s1) | (e22 & s2);
+                        long r = r2.nextLong();
+                        w2 |= u2 & ~r & pb;
+                        u2 &= ~(r ^ pb);
+                    }
+                    if (draw3) {
+                        long pb = (e30 & s0) | (e31 & s1) | (e32 & s2);
+                        long r = r3.nextLong();
+                        w3 |= u3 & ~r & pb;
+                        u3 &= ~(r ^ pb);
+                    }
+                }
+                if (draw0) {
+                    acc0 |= w0 | finish(u0, e00, p0, e01, p1, e02, p2, r0);
+                }
+                if (draw1) {
+                    acc1 |= w1 | finish(u1, e10, p0, e11, p1, e12, p2, r1);
+                }
+                if (draw2) {
+                    acc2 |= w2 | finish(u2, e20, p0, e21, p1, e22, p2, r2);
+                }
+                if (draw3) {
+                    acc3 |= w3 | finish(u3, e30, p0, e31, p1, e32, p2, r3);
+                }
+            }
+            b0[k] = x0 ^ acc0;
+            b1[k] = x1 ^ acc1;
+            b2[k] = x2 ^ acc2;
+            b3[k] = x3 ^ acc3;
+        }
+    }
+
+    /** The reads still undecided after the fixed rounds, decided bit by bit (thresholds already shifted). */
+    private static long finish(long undecided, long e0, long p0, long e1, long p1, long e2, long p2,
+                               UniformRandomProvider rng) {
+        long below = 0;
+        for (int bit = FIXED_ROUNDS; bit < 64 && undecided != 0; bit++) {
+            long pb = (e0 & (p0 >> 63)) | (e1 & (p1 >> 63)) | (e2 & (p2 >> 63));
+            p0 <<= 1;
+            p1 <<= 1;
+            p2 <<= 1;
+            long r = rng.nextLong();
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        return below;
     }
 
     /**

@@ -115,7 +115,7 @@ public final class ReferenceSampler {
         } else {
             task = new ExactTask(problem, device, settings.errors(), betas, block, energies, seed);
         }
-        runBlocks(task, block.blockCount(), settings.threads());
+        runBlocks(task, task.units(block.blockCount()), settings.threads());
         return new SampledReads(problem.variables(), block, energies, betas.length, settings.schedule().runTimeMicros());
     }
 
@@ -123,7 +123,12 @@ public final class ReferenceSampler {
     interface Task {
         Object workspace();
 
-        void block(int b, Object workspace);
+        /** Units of work for the blocks: one block a unit unless a task groups them. */
+        default int units(int blocks) {
+            return blocks;
+        }
+
+        void block(int unit, Object workspace);
     }
 
     /** Runs every block over at most {@code threads} workers; each block is done by one thread. */
@@ -352,12 +357,12 @@ public final class ReferenceSampler {
         }
 
         private static final class Workspace {
-            final long[] bits;
+            final long[][] bits;
             final long[] thresholds = new long[MultiSpinCoding.thresholdLength()];
             final byte[] row;
 
             Workspace(int n) {
-                bits = new long[n];
+                bits = new long[4][n];
                 row = new byte[n];
             }
         }
@@ -367,28 +372,54 @@ public final class ReferenceSampler {
             return new Workspace(coding.size());
         }
 
+        /** Four blocks a unit: {@link MultiSpinCoding#sweep4} runs their independent sweeps together. */
         @Override
-        public void block(int b, Object workspace) {
+        public int units(int blocks) {
+            return (blocks + 3) / 4;
+        }
+
+        @Override
+        public void block(int unit, Object workspace) {
             Workspace ws = (Workspace) workspace;
             int n = coding.size();
-            UniformRandomProvider rng = StreamSeeds.generator(seed, StreamSeeds.WORDS, b);
-            for (int k = 0; k < n; k++) {
-                ws.bits[k] = rng.nextLong();
+            int first = unit * 4;
+            int count = Math.min(4, block.blockCount() - first);
+            UniformRandomProvider[] rng = new UniformRandomProvider[count];
+            for (int i = 0; i < count; i++) {
+                rng[i] = StreamSeeds.generator(seed, StreamSeeds.WORDS, first + i);
+                long[] bits = ws.bits[i];
+                for (int k = 0; k < n; k++) {
+                    bits[k] = rng[i].nextLong();
+                }
             }
             for (double beta : betas) {
                 coding.thresholds(beta, ws.thresholds);
-                coding.sweep(ws.bits, ws.thresholds, rng);
+                if (count == 4) {
+                    coding.sweep4(ws.bits[0], ws.bits[1], ws.bits[2], ws.bits[3], ws.thresholds, rng[0], rng[1], rng[2],
+                            rng[3]);
+                } else {
+                    for (int i = 0; i < count; i++) {
+                        coding.sweep(ws.bits[i], ws.thresholds, rng[i]);
+                    }
+                }
             }
+            for (int i = 0; i < count; i++) {
+                finishBlock(first + i, ws.bits[i], ws.row);
+            }
+        }
+
+        private void finishBlock(int b, long[] bits, byte[] row) {
+            int n = coding.size();
             long mask = block.validMask(b);
             long[] words = block.words();
             for (int k = 0; k < n; k++) {
-                words[b * n + k] = ws.bits[k] & mask;
+                words[b * n + k] = bits[k] & mask;
             }
             int first = b << 6;
             int last = Math.min(block.reads(), first + 64);
             for (int r = first; r < last; r++) {
-                block.unpackRows(r, 1, ws.row);
-                energies[r] = nominal.energy(ws.row);
+                block.unpackRows(r, 1, row);
+                energies[r] = nominal.energy(row);
             }
         }
     }

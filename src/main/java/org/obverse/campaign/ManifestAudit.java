@@ -29,7 +29,9 @@ import org.obverse.io.SampleFormat;
 import org.obverse.io.SampleReader;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
+import org.obverse.samples.EnergyKernel;
 import org.obverse.samples.SampleBlock;
+import org.obverse.samples.SpinFlip;
 import org.obverse.spectrum.SpectrumCheck;
 import org.obverse.spectrum.SpectrumSettings;
 
@@ -225,28 +227,31 @@ public final class ManifestAudit {
         String firstMismatch = null;
         double[] energies;
         if (raw != null) {
+            // Bit-sliced exact kernels: the same fixed summation order as IsingProblem.energy, so
+            // the same bits, 64 reads at a time; the un-gauge is an XOR of the flipped words.
             double[] list = new double[1024];
+            EnergyKernel onGauged = EnergyKernel.exact(gauged);
+            EnergyKernel onSource = EnergyKernel.exact(source);
+            SpinFlip flip = SpinFlip.of(n, flipped);
+            double[] eg = new double[UngaugeStep.CHUNK_READS];
+            double[] es = new double[UngaugeStep.CHUNK_READS];
             try (SampleReader in = SampleFiles.open(raw, ids)) {
-                byte[] rows = new byte[UngaugeStep.CHUNK_READS * n];
-                int got;
-                while ((got = in.readRows(rows, UngaugeStep.CHUNK_READS)) > 0) {
-                    for (int r = 0; r < got; r++) {
-                        System.arraycopy(rows, r * n, row, 0, n);
-                        double eg = gauged.energy(row);
-                        for (int k : flipped) {
-                            row[k] = (byte) -row[k];
-                        }
-                        double es = source.energy(row);
-                        if (Double.doubleToRawLongBits(eg) != Double.doubleToRawLongBits(es)) {
-                            if (mismatches++ == 0) {
-                                firstMismatch = "read " + reads + ": gauged " + eg + ", source " + es;
-                            }
-                        }
-                        if (reads == list.length) {
-                            list = Arrays.copyOf(list, list.length * 2);
-                        }
-                        list[(int) reads++] = eg;
+                SampleBlock b = null;
+                while ((b = in.nextBlock(UngaugeStep.CHUNK_READS, b)) != null) {
+                    int got = b.reads();
+                    onGauged.energies(b, eg, 0);
+                    flip.applyInPlace(b);
+                    onSource.energies(b, es, 0);
+                    if (reads + got > list.length) {
+                        list = Arrays.copyOf(list, (int) Math.max(list.length * 2L, reads + got));
                     }
+                    for (int r = 0; r < got; r++) {
+                        if (Double.doubleToRawLongBits(eg[r]) != Double.doubleToRawLongBits(es[r]) && mismatches++ == 0) {
+                            firstMismatch = "read " + (reads + r) + ": gauged " + eg[r] + ", source " + es[r];
+                        }
+                    }
+                    System.arraycopy(eg, 0, list, (int) reads, got);
+                    reads += got;
                 }
             }
             energies = Arrays.copyOf(list, (int) reads);

@@ -7,10 +7,15 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
+import com.fasterxml.jackson.databind.JsonNode;
+import org.obverse.device.CellLattice;
 import org.obverse.io.AtomicOutput;
+import org.obverse.io.DeviceCodec;
+import org.obverse.io.JsonFiles;
 import org.obverse.io.BadInputException;
 import org.obverse.io.MagnetisationTable;
 import org.obverse.io.ScoreFiles;
+import org.obverse.report.CampaignPlots;
 import org.obverse.report.Figure;
 import org.obverse.report.HtmlReport;
 import org.obverse.report.ReportPlots;
@@ -33,11 +38,17 @@ public final class ReportStep {
     /**
      * What to report. magnetisation, correlations and series may be null; alpha is the
      * family-wise false-positive rate of the bias flags; balanced says every qubit (coupler) is
-     * flipped in exactly half of the gauges; series names an extra column of the results table
-     * whose values become one line each in the setting plots.
+     * flipped in exactly half of the gauges; series names extra columns of the results table
+     * (comma separated) whose combined values become one line each in the setting plots.
      */
     public record Request(ScoreStep.Request scoring, Path magnetisation, Path correlations, double alpha,
-                          boolean balanced, String series, Path out, boolean force) {
+                          boolean balanced, String series, Path out, boolean force, Path device) {
+        /** Without a device file (the bias map is drawn by qubit id). */
+        public Request(ScoreStep.Request scoring, Path magnetisation, Path correlations, double alpha,
+                       boolean balanced, String series, Path out, boolean force) {
+            this(scoring, magnetisation, correlations, alpha, balanced, series, out, force, null);
+        }
+
         public Request {
             Objects.requireNonNull(scoring, "scoring");
             Objects.requireNonNull(out, "out");
@@ -50,7 +61,9 @@ public final class ReportStep {
     }
 
     private static List<Path> inputs(Request r) {
-        return AtomicOutput.inputs(r.scoring().results(), r.scoring().ground(), r.magnetisation(), r.correlations());
+        List<Path> in = new ArrayList<>(r.scoring().results());
+        in.addAll(AtomicOutput.inputs(r.scoring().ground(), r.magnetisation(), r.correlations(), r.device()));
+        return in;
     }
 
     /** Reads, scores, draws and writes the folder; nothing is written when any of it fails. */
@@ -82,31 +95,36 @@ public final class ReportStep {
             couplers = m.couplers();
         }
         ScoreStep.Result scored = ScoreStep.run(r.scoring());
-        ScoreFiles.Tables tables = ScoreFiles.tables(scored.summary(), scored.sweepName());
-        ReportPlots.Axis axis = ReportPlots.Axis.of(scored.summary(), scored.sweepName());
+        ScoreFiles.Tables tables = ScoreFiles.tables(scored.scores());
+        ReportPlots.Axis axis = ReportPlots.Axis.of(scored.scores());
         if (r.series() != null) {
-            axis = axis.withGroups(groups(r.scoring().results(), scored, r.series()));
+            axis = axis.withGroups(groups(scored.results().get(0), scored, r.series()));
         }
-        List<Figure> figures = new ArrayList<>();
-        figures.add(ReportPlots.tts(scored.summary(), axis));
-        figures.add(ReportPlots.success(scored.summary(), axis));
+        List<Figure> figures = new ArrayList<>(CampaignPlots.all(scored.scores(), tables));
+        if (figures.isEmpty()) {
+            // No pause or chain-coupling grid: TTS and success against the settings or the swept value.
+            figures.add(ReportPlots.tts(scored.summary(), axis));
+            figures.add(ReportPlots.success(scored.summary(), axis));
+        }
         figures.add(ReportPlots.gaugeSpread(scored.summary()));
-        for (int k = 0; k < scored.summary().comparisons().size(); k++) {
+        // A scatter per --compare pair; baseline pairs are drawn together (pause-delta figures).
+        for (int k = 0; k < scored.compareCount(); k++) {
             figures.add(ReportPlots.comparison(scored.summary(), k));
         }
         if (bias != null) {
-            figures.add(ReportPlots.biasMap(bias, qubits));
+            CellLattice lattice = r.device() == null ? null : lattice(r.device());
+            figures.add(lattice == null ? ReportPlots.biasMap(bias, qubits) : ReportPlots.biasGrid(bias, qubits, lattice));
         }
         if (couplerBias != null) {
             figures.add(ReportPlots.couplerMap(couplerBias, couplers.size()));
         }
-        String results = r.scoring().results().toString();
-        String ground = r.scoring().ground() == null ? null : r.scoring().ground().toString();
+        String results = String.join(", ", scored.results().stream().map(Path::toString).toList());
+        String ground = scored.ground() == null ? null : scored.ground().toString();
         String html = HtmlReport.page(scored.summary(), tables, new HtmlReport.Inputs(results, ground, scored.rule(),
-                scored.sweepName(), r.magnetisation() == null ? null : r.magnetisation().toString(),
+                scored.sweep(), scored.baseline(), r.magnetisation() == null ? null : r.magnetisation().toString(),
                 r.correlations() == null ? null : r.correlations().toString()), figures, bias, qubits, couplerBias,
                 couplers);
-        String json = ScoreFiles.json(scored.summary(), tables, scored.rule(), results, ground, scored.sweepName());
+        String json = ScoreFiles.json(scored.scores(), tables);
         AtomicOutput.writeDirectory(r.out(), r.force(), inputs(r), dir -> {
             Files.writeString(dir.resolve(PAGE), html);
             Path plots = Files.createDirectories(dir.resolve("plots"));
@@ -120,17 +138,30 @@ public final class ReportStep {
         return new Result(scored, r.out().resolve(PAGE), figures.size(), bias, couplerBias);
     }
 
-    /** The value of column name for each setting, as "name = value". */
-    private static String[] groups(Path results, ScoreStep.Result scored, String name) {
-        Map<String, String> column = scored.loaded().settingValues().get(name);
-        if (column == null) {
-            throw BadInputException.at(results, "--series " + name, "is not an extra column of the table, or it "
-                    + "takes more than one value within a setting", "name a column that is constant within each setting");
+    /** The cell lattice a device file records under meta.lattice (written by 'device lattice'), or null. */
+    private static CellLattice lattice(Path device) {
+        JsonNode shape = JsonFiles.read(device, DeviceCodec.KIND).path("meta").path("lattice");
+        if (!shape.path("rows").isInt() || !shape.path("cols").isInt() || !shape.path("shore").isInt()) {
+            return null;
         }
+        return CellLattice.of(shape.get("rows").asInt(), shape.get("cols").asInt(), shape.get("shore").asInt());
+    }
+
+    /** For each setting, its values of the named columns (comma separated), as "name = value, …". */
+    private static String[] groups(Path results, ScoreStep.Result scored, String names) {
         List<String> settings = scored.summary().campaign().settings();
         String[] out = new String[settings.size()];
-        for (int s = 0; s < out.length; s++) {
-            out[s] = name + " = " + column.get(settings.get(s));
+        java.util.Arrays.fill(out, "");
+        for (String name : names.split(",")) {
+            String n = name.trim();
+            Map<String, String> column = scored.loaded().settingValues().get(n);
+            if (column == null || settings.stream().anyMatch(s -> column.get(s) == null)) {
+                throw BadInputException.at(results, "--series " + n, "is not an extra column of the table, or it "
+                        + "takes more than one value within a setting", "name a column that is constant within each setting");
+            }
+            for (int s = 0; s < out.length; s++) {
+                out[s] += (out[s].isEmpty() ? "" : ", ") + n + " = " + column.get(settings.get(s));
+            }
         }
         return out;
     }

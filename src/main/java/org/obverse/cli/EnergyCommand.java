@@ -44,21 +44,26 @@ public final class EnergyCommand implements Callable<Integer> {
     @Option(names = "--binary", description = "samples are stored as 0/1 (x = (1 + s) / 2) instead of -1/+1")
     boolean binary;
 
+    @Option(names = "--kernel", paramLabel = "K", defaultValue = "exact",
+            description = "exact (default: the fixed summation order's bits) or fast (bit counters and tables, "
+                    + "within a stated bound of exact; the bound is printed)")
+    String kernel;
+
     @Override
     public Integer call() throws Exception {
         IsingProblem p = ProblemCodec.read(problem).spin();
+        EnergyKernel k = chosenKernel(p);
         double[] energies = new double[1024];
         long reads = 0;
         try (SampleReader in = SampleFiles.open(samples, p.variables(), binary ? SampleCoding.BINARY : SampleCoding.SPIN)) {
             SampleBlock b = null;
             double[] chunk = new double[4096];
-            EnergyKernel exact = EnergyKernel.exact(p);
             while ((b = in.nextBlock(4096, b)) != null) {
                 if (reads + b.reads() > SampleFiles.MAX_READS) {
                     throw BadInputException.at(samples, "", "holds more than " + SampleFiles.MAX_READS + " reads",
                             "split the samples over several files");
                 }
-                exact.energies(b, chunk, 0);
+                k.energies(b, chunk, 0);
                 if (reads + b.reads() > energies.length) {
                     energies = Arrays.copyOf(energies, (int) Math.max(energies.length * 2L, reads + b.reads()));
                 }
@@ -68,6 +73,9 @@ public final class EnergyCommand implements Callable<Integer> {
         }
         energies = Arrays.copyOf(energies, (int) reads);
         PrintWriter w = spec.commandLine().getOut();
+        if (kernel.equals("fast")) {
+            w.printf("fast kernel: each energy within %s of the exact one%n", EnergyKernel.of(p).tolerance());
+        }
         if (out != null) {
             double[] all = energies;
             AtomicOutput.writeFiles(List.of(out), force, AtomicOutput.inputs(problem, samples),
@@ -89,5 +97,17 @@ public final class EnergyCommand implements Callable<Integer> {
             w.printf("count %d  min %s  mean %s  max %s%n", reads, min, sum / reads, max);
         }
         return Main.DONE;
+    }
+
+    private EnergyKernel chosenKernel(IsingProblem p) {
+        switch (kernel) {
+            case "exact":
+                return EnergyKernel.exact(p);
+            case "fast":
+                return EnergyKernel.of(p);
+            default:
+                throw new picocli.CommandLine.ParameterException(spec.commandLine(),
+                        "--kernel " + kernel + " is not a kernel: give exact or fast");
+        }
     }
 }

@@ -43,8 +43,13 @@ public final class ReportCommand implements Callable<Integer> {
 
     @Option(names = "--series", paramLabel = "NAME",
             description = "draw the setting plots as one line per value of this extra column of the results table "
-                    + "(e.g. gauged = yes / no against a swept chain coupling)")
-    String series;
+                    + "(e.g. gauged = yes / no against a swept chain coupling); repeatable: one line per combination")
+    java.util.List<String> series = new java.util.ArrayList<>();
+
+    @Option(names = "--device", paramLabel = "D",
+            description = "device file: when it records a cell lattice (device lattice), the bias map draws each qubit "
+                    + "at its cell-grid position")
+    Path device;
 
     @Option(names = "--force", description = "replace an existing output directory")
     boolean force;
@@ -53,7 +58,7 @@ public final class ReportCommand implements Callable<Integer> {
     public Integer call() throws Exception {
         System.setProperty("java.awt.headless", "true");
         ReportStep.Result r = ReportStep.run(new ReportStep.Request(scoring.request(spec.commandLine().getErr()),
-                magnetisation, correlations, alpha, balanced, series, out, force));
+                magnetisation, correlations, alpha, balanced, series.isEmpty() ? null : String.join(",", series), out, force, device));
         spec.commandLine().getOut().println("wrote " + r.page() + " (" + r.figureCount() + " plots"
                 + (r.bias() == null ? "" : ", " + r.bias().flagged().size() + " qubit(s) flagged")
                 + (r.couplerBias() == null ? "" : ", " + r.couplerBias().flagged().size() + " coupler(s) flagged") + ")");

@@ -7,15 +7,24 @@ import java.util.ArrayList;
 import java.util.List;
 import org.obverse.campaign.ScoreStep;
 import org.obverse.campaign.StepProgress;
+import org.obverse.io.BadInputException;
+import org.obverse.stats.Resampling;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
 
 /**
  * The options shared by {@code score} and {@code report}: what to read and how to score it.
  * Only parses; the scoring itself is {@link ScoreStep}.
  */
 final class ScoringOptions {
-    @Option(names = "--results", required = true, paramLabel = "R", description = "results table (CSV, spec/results.md)")
-    Path results;
+    @Parameters(arity = "0..*", paramLabel = "DIR|TABLE",
+            description = "a campaign folder (its results.csv and ground.csv) or a results table; several are read as one")
+    List<Path> positional = new ArrayList<>();
+
+    @Option(names = "--results", paramLabel = "R",
+            description = "results table (CSV, spec/results.md) or campaign folder; repeatable: several are read as one, "
+                    + "a gauge found in two of them is refused")
+    List<Path> results = new ArrayList<>();
 
     @Option(names = "--ground", paramLabel = "G",
             description = "ground energies (CSV instance,ground_energy); without it the best energy seen is used and marked best_seen")
@@ -50,12 +59,20 @@ final class ScoringOptions {
     int threads;
 
     @Option(names = "--compare", arity = "2", paramLabel = "SETTING",
-            description = "compare setting A against setting B instance by instance (repeatable: --compare A B)")
+            description = "compare setting A against reference setting B instance by instance: TTS_B / TTS_A, "
+                    + "TTS_B - TTS_A, fraction where A is faster (repeatable: --compare A B)")
     List<String> compare = new ArrayList<>();
 
+    @Option(names = "--baseline", paramLabel = "COLUMN=VALUE",
+            description = "the settings whose COLUMN has VALUE are baselines (pause_s= : the rows with an empty pause_s); "
+                    + "every other setting is compared with the baseline that agrees with it on the other setting columns")
+    String baseline;
+
     @Option(names = "--sweep", paramLabel = "NAME",
-            description = "swept parameter: an extra numeric column of the results table, or NAME=value in the setting labels")
-    String sweep;
+            description = "swept parameter (repeatable): a column of the results table constant within each setting, "
+                    + "or NAME=value in the setting labels; the best setting is sought among the settings that agree "
+                    + "on every other setting column")
+    List<String> sweep = new ArrayList<>();
 
     @Option(names = "--abs-tol", defaultValue = "1e-9", description = "absolute success tolerance (default ${DEFAULT-VALUE})")
     double absoluteTolerance;
@@ -63,13 +80,11 @@ final class ScoringOptions {
     @Option(names = "--rel-tol", defaultValue = "1e-9", description = "relative success tolerance (default ${DEFAULT-VALUE})")
     double relativeTolerance;
 
-    /** How deep the bootstrap resamples, as spelled on the command line. */
-    enum Depth { instances, gauges, reads }
-
-    @Option(names = "--resample", defaultValue = "reads",
-            description = "deepest level the bootstrap resamples: instances, gauges (and instances) or reads "
-                    + "(and gauges and instances; the default)")
-    Depth resample;
+    @Option(names = "--resample", defaultValue = "instances", paramLabel = "SCHEME",
+            description = "what a bootstrap replicate redraws: instances (default: instances with replacement, each "
+                    + "keeping its reads as observed), instances-then-gauges, gauges-only (instances fixed) or "
+                    + "reads-only (instances and gauges fixed); spec/results.md")
+    String resample;
 
     @Option(names = "--quiet", description = "no progress lines")
     boolean quiet;
@@ -81,20 +96,33 @@ final class ScoringOptions {
             pairs.add(new ScoreStep.Comparison(compare.get(k), compare.get(k + 1)));
         }
         StepProgress progress = (phase, total, work) -> Progress.of(err, phase, total, work, quiet);
-        return new ScoreStep.Request(results, ground, target, confidence, quantile, band, outerBand, replicates, seed,
-                threads, pairs, sweep, absoluteTolerance, relativeTolerance, depth(resample), progress);
+        List<Path> inputs = new ArrayList<>(positional);
+        inputs.addAll(results);
+        if (inputs.isEmpty()) {
+            throw new BadInputException("no results to score: give a campaign folder, a results table, or --results R");
+        }
+        Resampling scheme;
+        try {
+            scheme = Resampling.of(resample);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--resample: " + e.getMessage());
+        }
+        return new ScoreStep.Request(inputs, ground, target, confidence, quantile, band, outerBand, replicates, seed,
+                threads, pairs, baseline, sweep, absoluteTolerance, relativeTolerance, scheme, progress);
     }
 
-    /** Scores the campaign as these options ask. */
+    /** Every file or folder read (results tables, campaign folders, ground energies): an output must not overlap them. */
+    List<Path> inputs() {
+        List<Path> in = new ArrayList<>(positional);
+        in.addAll(results);
+        if (ground != null) {
+            in.add(ground);
+        }
+        return in;
+    }
+
+        /** Scores the campaign as these options ask. */
     ScoreStep.Result score(PrintWriter err) throws IOException {
         return ScoreStep.run(request(err));
-    }
-
-    private static ScoreStep.Depth depth(Depth d) {
-        return switch (d) {
-            case instances -> ScoreStep.Depth.INSTANCES;
-            case gauges -> ScoreStep.Depth.GAUGES;
-            case reads -> ScoreStep.Depth.READS;
-        };
     }
 }

@@ -3,6 +3,7 @@ package org.obverse.io;
 import java.io.IOException;
 import java.nio.file.Path;
 import org.obverse.model.VariableIndex;
+import org.obverse.samples.SampleBlock;
 
 /** Samples from an NPY {@code int8} file of shape {@code [reads, n]} in C order. */
 final class NpySampleReader extends SampleReader {
@@ -80,41 +81,49 @@ final class NpySampleReader extends SampleReader {
 
     @Override
     public int readRows(byte[] rows, int maxRows) throws IOException {
+        long first = done;
+        int count = readStored(rows, maxRows);
+        int len = count * n;
+        boolean binary = storedBinary();
+        int bad = SampleBlock.firstBadValue(rows, 0, len, binary);
+        if (bad >= 0) {
+            throw badStored(first, bad, rows[bad]);
+        }
+        if (binary) {
+            for (int i = 0; i < len; i++) {
+                rows[i] = (byte) (2 * rows[i] - 1);
+            }
+        }
+        return count;
+    }
+
+    @Override
+    int readStored(byte[] rows, int maxRows) throws IOException {
         int count = (int) Math.min(maxRows, reads - done);
         if (count <= 0) {
             return 0;
         }
         int len = count * n;
-        long firstByte = npy.byteOffsetOf(npy.position());
         int got = npy.readBytes(rows, 0, len);
         if (got != len) {
             throw BadInputException.at(file(), "read " + (done + got / Math.max(1, n)), "the data ended early",
                     "the file is truncated: write it again");
         }
-        if (coding == SampleCoding.SPIN) {
-            for (int i = 0; i < len; i++) {
-                byte b = rows[i];
-                if (b != 1 && b != -1) {
-                    throw badValue(i, b, firstByte);
-                }
-            }
-        } else {
-            for (int i = 0; i < len; i++) {
-                byte b = rows[i];
-                if (b != 0 && b != 1) {
-                    throw badValue(i, b, firstByte);
-                }
-                rows[i] = (byte) (2 * b - 1);
-            }
-        }
         done += count;
         return count;
     }
 
-    private BadInputException badValue(int i, byte b, long firstByte) {
-        long read = done + i / n;
-        int column = i % n;
-        return BadInputException.at(file(), "read " + read + ", column " + column + " (byte offset " + (firstByte + i) + ")",
+    @Override
+    boolean storedBinary() {
+        return coding == SampleCoding.BINARY;
+    }
+
+    @Override
+    BadInputException badStored(long firstRead, int index, byte b) {
+        long read = firstRead + index / n;
+        int column = index % n;
+        long offset = npy.byteOffsetOf(firstRead * n + index);
+        return BadInputException.at(file(), "read " + read + ", column " + column + " (byte offset " + offset + ")",
                 "holds " + b + "; " + coding.rule(), coding == SampleCoding.SPIN
                         ? "write spins as int8 -1/+1 (0/1 files need the binary coding)"
                         : "write binary values as int8 0/1");

@@ -110,21 +110,52 @@ public final class ResultsTable {
      */
     public static Loaded read(Path file, Map<String, Double> ground, Path groundFile, SuccessRule rule)
             throws IOException {
+        return read(List.of(file), ground, groundFile, rule);
+    }
+
+    /**
+     * Reads several results tables into one campaign, as if they were one table. A file given
+     * twice, or an (instance, setting, gauge) found in two of the files, is refused: each
+     * gauge's reads would be counted twice. ground may be null (best seen over all files).
+     *
+     * @throws BadInputException at the first bad row, a repeated file or gauge, or an instance with no ground energy
+     */
+    public static Loaded read(List<Path> files, Map<String, Double> ground, Path groundFile, SuccessRule rule)
+            throws IOException {
+        if (files.isEmpty()) {
+            throw new IllegalArgumentException("no results table to read");
+        }
+        Map<Path, Path> real = new HashMap<>();
+        for (Path f : files) {
+            Path key = f.toAbsolutePath().normalize();
+            try {
+                key = f.toRealPath();
+            } catch (IOException e) {
+                // a missing file is reported by the reader below, with its name
+            }
+            Path prev = real.put(key, f);
+            if (prev != null) {
+                throw BadInputException.at(f, "", "is given twice (also as " + prev + ")",
+                        "give each results table once");
+            }
+        }
         Map<String, Double> best = null;
         Map<String, EnergyFrame> groundFrames = ground == null || groundFile == null ? Map.of()
                 : readGroundFrames(groundFile);
         Map<String, EnergyFrame> frames = new HashMap<>();
         if (ground == null) {
             best = new HashMap<>();
-            try (CsvReader csv = CsvReader.open(file)) {
-                int[] col = csv.require("a results table", COLUMNS.toArray(new String[0]));
-                int frameCol = csv.column(FRAME);
-                String[] r;
-                while ((r = csv.record()) != null) {
-                    Row row = parse(csv, col, r);
-                    checkFrame(csv, frameCol, r, row.instance, frames, null, null);
-                    if (!Double.isNaN(row.energy)) {
-                        best.merge(row.instance, row.energy, Math::min);
+            for (Path file : files) {
+                try (CsvReader csv = CsvReader.open(file)) {
+                    int[] col = csv.require("a results table", COLUMNS.toArray(new String[0]));
+                    int frameCol = csv.column(FRAME);
+                    String[] r;
+                    while ((r = csv.record()) != null) {
+                        Row row = parse(csv, col, r);
+                        checkFrame(csv, frameCol, r, row.instance, frames, null, null);
+                        if (!Double.isNaN(row.energy)) {
+                            best.merge(row.instance, row.energy, Math::min);
+                        }
                     }
                 }
             }
@@ -135,66 +166,86 @@ public final class ResultsTable {
         Map<String, Map<String, String>> values = new LinkedHashMap<>();
         Map<String, Map<String, Boolean>> varies = new HashMap<>();
         Map<String, Double> groundSeen = new HashMap<>();
-        try (CsvReader csv = CsvReader.open(file)) {
-            int[] col = csv.require("a results table", COLUMNS.toArray(new String[0]));
-            List<String> header = csv.header();
-            List<Integer> extraIdx = new ArrayList<>();
-            int frameCol = csv.column(FRAME);
-            for (int i = 0; i < header.size(); i++) {
-                if (!COLUMNS.contains(header.get(i)) && i != frameCol) {
-                    extras.add(header.get(i));
-                    extraIdx.add(i);
-                    values.put(header.get(i), new LinkedHashMap<>());
-                    varies.put(header.get(i), new HashMap<>());
+        // (instance, setting, gauge) → the file it came from: one gauge's reads live in one file.
+        Map<List<Object>, Integer> gaugeFile = new HashMap<>();
+        for (int fileIndex = 0; fileIndex < files.size(); fileIndex++) {
+            Path file = files.get(fileIndex);
+            try (CsvReader csv = CsvReader.open(file)) {
+                int[] col = csv.require("a results table", COLUMNS.toArray(new String[0]));
+                List<String> header = csv.header();
+                List<Integer> extraIdx = new ArrayList<>();
+                List<String> extraHere = new ArrayList<>();
+                int frameCol = csv.column(FRAME);
+                for (int i = 0; i < header.size(); i++) {
+                    if (!COLUMNS.contains(header.get(i)) && i != frameCol) {
+                        extraHere.add(header.get(i));
+                        extraIdx.add(i);
+                        if (!values.containsKey(header.get(i))) {
+                            extras.add(header.get(i));
+                            values.put(header.get(i), new LinkedHashMap<>());
+                            varies.put(header.get(i), new HashMap<>());
+                        }
+                    }
                 }
-            }
-            String[] r;
-            while ((r = csv.record()) != null) {
-                Row row = parse(csv, col, r);
-                if (ground != null) {
-                    checkFrame(csv, frameCol, r, row.instance, frames, groundFrames, groundFile);
-                }
-                Double g = groundSeen.get(row.instance);
-                if (g == null) {
+                String[] r;
+                while ((r = csv.record()) != null) {
+                    Row row = parse(csv, col, r);
                     if (ground != null) {
-                        g = ground.get(row.instance);
-                        if (g == null) {
-                            throw BadInputException.at(groundFile, "", "has no ground energy for instance '"
-                                    + row.instance + "' (" + file + ", line " + csv.line() + ")",
-                                    "add a row '" + Messages.excerpt(row.instance) + ",<energy>' or leave out --ground to use the best energy seen");
+                        checkFrame(csv, frameCol, r, row.instance, frames, groundFrames, groundFile);
+                    }
+                    if (files.size() > 1) {
+                        Integer first = gaugeFile.putIfAbsent(List.of(row.instance, row.setting, row.gauge), fileIndex);
+                        if (first != null && first != fileIndex) {
+                            throw BadInputException.at(file, "line " + csv.line(), "repeats instance '" + row.instance
+                                    + "', setting '" + row.setting + "', gauge "
+                                    + (row.gauge == Campaign.NO_GAUGE ? "(none)" : String.valueOf(row.gauge))
+                                    + " already read from " + files.get(first),
+                                    "give each gauge's reads in one table only");
                         }
-                        b.ground(row.instance, g, true);
+                    }
+                    Double g = groundSeen.get(row.instance);
+                    if (g == null) {
+                        if (ground != null) {
+                            g = ground.get(row.instance);
+                            if (g == null) {
+                                throw BadInputException.at(groundFile, "", "has no ground energy for instance '"
+                                        + row.instance + "' (" + file + ", line " + csv.line() + ")",
+                                        "add a row '" + Messages.excerpt(row.instance) + ",<energy>' or leave out --ground to use the best energy seen");
+                            }
+                            b.ground(row.instance, g, true);
+                        } else {
+                            g = best.get(row.instance);
+                            if (g == null) {
+                                throw BadInputException.at(file, "instance '" + Messages.excerpt(row.instance) + "'", "has no read with an "
+                                        + "energy, so no best energy seen to score against", "give its ground energy with --ground");
+                            }
+                            b.ground(row.instance, g, false);
+                        }
+                        groundSeen.put(row.instance, g);
+                    }
+                    if (Double.isNaN(row.energy)) {
+                        b.addUnanswered(row.instance, row.setting, row.gauge, row.count, row.runUs * row.count,
+                                row.broken * row.count);
                     } else {
-                        g = best.get(row.instance);
-                        if (g == null) {
-                            throw BadInputException.at(file, "instance '" + Messages.excerpt(row.instance) + "'", "has no read with an "
-                                    + "energy, so no best energy seen to score against", "give its ground energy with --ground");
+                        long succ = rule.isSuccess(row.energy, g) ? row.count : 0;
+                        b.add(row.instance, row.setting, row.gauge, row.count, succ, (row.energy - g) * row.count,
+                                row.runUs * row.count, row.broken * row.count, row.energy);
+                    }
+                    for (String name : extras) {
+                        int k = extraHere.indexOf(name);
+                        // A column that one file lacks is empty on that file's rows.
+                        String v = k < 0 ? "" : r[extraIdx.get(k)];
+                        String prev = values.get(name).putIfAbsent(row.setting, v);
+                        if (prev != null && !prev.equals(v)) {
+                            varies.get(name).put(row.setting, true);
                         }
-                        b.ground(row.instance, g, false);
                     }
-                    groundSeen.put(row.instance, g);
+                    rows++;
                 }
-                if (Double.isNaN(row.energy)) {
-                    b.addUnanswered(row.instance, row.setting, row.gauge, row.count, row.runUs * row.count,
-                            row.broken * row.count);
-                } else {
-                    long succ = rule.isSuccess(row.energy, g) ? row.count : 0;
-                    b.add(row.instance, row.setting, row.gauge, row.count, succ, (row.energy - g) * row.count,
-                            row.runUs * row.count, row.broken * row.count, row.energy);
-                }
-                for (int k = 0; k < extras.size(); k++) {
-                    String name = extras.get(k);
-                    String v = r[extraIdx.get(k)];
-                    String prev = values.get(name).putIfAbsent(row.setting, v);
-                    if (prev != null && !prev.equals(v)) {
-                        varies.get(name).put(row.setting, true);
-                    }
-                }
-                rows++;
             }
         }
         if (rows == 0) {
-            throw BadInputException.at(file, "", "has a header but no rows", "score a table with at least one read");
+            throw BadInputException.at(files.get(0), "", "has a header but no rows", "score a table with at least one read");
         }
         for (String name : extras) {
             for (String s : varies.get(name).keySet()) {

@@ -59,7 +59,8 @@ public abstract class SampleReader implements Closeable {
         if (scratch.length < need) {
             scratch = new byte[(int) need];
         }
-        int got = readRows(scratch, maxReads);
+        long first = readsDone();
+        int got = readStored(scratch, maxReads);
         if (got == 0) {
             return null;
         }
@@ -73,8 +74,32 @@ public abstract class SampleReader implements Closeable {
         } else {
             block = SampleBlock.allDown(got, n);
         }
-        block.packRows(scratch, 0, got, 0);
+        // One branch-free pass checks and packs; only a chunk with a bad value is scanned again.
+        int bad = block.packChecked(scratch, 0, got, 0, storedBinary());
+        if (bad >= 0) {
+            throw badStored(first, bad, scratch[bad]);
+        }
         return block;
+    }
+
+    /**
+     * Reads up to maxRows rows as stored, possibly unchecked: −1/+1, or 0/1 where
+     * {@link #storedBinary()}. The default hands out the checked spins of {@link #readRows}.
+     */
+    int readStored(byte[] rows, int maxRows) throws IOException {
+        return readRows(rows, maxRows);
+    }
+
+    /** Whether {@link #readStored} gives 0/1 values rather than spins. */
+    boolean storedBinary() {
+        return false;
+    }
+
+    /** The error for stored value {@code index} of the chunk whose first read is {@code firstRead}. */
+    RuntimeException badStored(long firstRead, int index, byte value) {
+        int n = variables();
+        return BadInputException.at(file(), "read " + (firstRead + index / n) + ", column " + index % n,
+                "holds " + value + "; spins must be -1 or +1", "write spins as -1/+1");
     }
 
     /** Reads the rest of the file into one block. */

@@ -43,21 +43,42 @@ public abstract class SampleWriter implements Closeable {
         }
         int chunk = Math.max(64, CHUNK_BYTES / Math.max(1, n) / 64 * 64);
         chunk = Math.min(chunk, Math.max(1, block.reads()));
-        if (scratch.length < chunk * n) {
-            scratch = new byte[chunk * n];
-        }
         for (int at = 0; at < block.reads(); at += chunk) {
             int count = Math.min(chunk, block.reads() - at);
-            block.unpackRows(at, count, scratch);
-            writeRows(scratch, 0, count);
+            byte[] buffer = storedBuffer(count * n);
+            // The block's bits are spins by construction: unpack straight into the stored coding, no re-check.
+            block.unpackRows(at, count, buffer, storedDown(), (byte) 1);
+            writeStored(buffer, count);
         }
     }
 
+    /** A buffer of at least len bytes for the next {@link #writeStored} call. */
+    byte[] storedBuffer(int len) {
+        if (scratch.length < len) {
+            scratch = new byte[len];
+        }
+        return scratch;
+    }
+
+    /** The stored value of s = −1 that {@link #writeStored} takes (s = +1 is stored as 1 in both codings). */
+    byte storedDown() {
+        return -1;
+    }
+
+    /**
+     * Appends count rows of stored values (−1 or {@link #storedDown()} for s = −1, 1 for
+     * s = +1) that the program made itself, so they need no check. The array is one that
+     * {@link #storedBuffer} gave; a writer may keep it until its next call. The default writes
+     * them as spins through {@link #writeRows}.
+     */
+    void writeStored(byte[] stored, int count) throws IOException {
+        writeRows(stored, 0, count);
+    }
+
     static void checkSpins(byte[] spins, int from, int len) {
-        for (int i = from; i < from + len; i++) {
-            if (spins[i] != 1 && spins[i] != -1) {
-                throw new IllegalArgumentException("value " + spins[i] + " at index " + i + " is not a spin -1 or +1");
-            }
+        int i = SampleBlock.firstBadValue(spins, from, len, false);
+        if (i >= 0) {
+            throw new IllegalArgumentException("value " + spins[i] + " at index " + i + " is not a spin -1 or +1");
         }
     }
 

@@ -29,36 +29,75 @@ import org.obverse.stats.SummaryOptions;
 public final class ScoreFiles {
     /** The columns of instances.csv, in order. */
     public static final List<String> INSTANCE_COLUMNS = List.of("instance", "setting", "reads", "successes",
-            "p_success", "tts_us", "gauges", "p_wilson_low", "p_wilson_high", "p_cp_low", "p_cp_high", "tts_low_us",
-            "tts_high_us", "run_us", "ground_energy", "ground_source", "residual_mean", "min_energy", "broken_mean",
-            "p_gauge_min", "p_gauge_q1", "p_gauge_median", "p_gauge_q3", "p_gauge_max", "p_gauge_mean",
-            "tts_gauge_median_us");
+            "p_success", "tts_us", "gauges", "p_wilson_low", "p_wilson_high", "p_cp_low", "p_cp_high",
+            "tts_at_p_cp_high_us", "tts_at_p_cp_low_us", "run_us", "ground_energy", "ground_source", "residual_mean",
+            "min_energy", "broken_mean", "p_gauge_min", "p_gauge_q1", "p_gauge_median", "p_gauge_q3", "p_gauge_max",
+            "p_gauge_mean", "tts_gauge_median_us");
 
-    /** The columns of settings.csv, in order (sweep_value and best_fraction only with a sweep). */
-    public static final List<String> SETTING_COLUMNS = List.of("setting", "instances", "median_tts_us",
-            "band_low_us", "band_high_us", "band_outer_low_us", "band_outer_high_us", "median_p_success",
-            "p_band_low", "p_band_high", "p_band_outer_low", "p_band_outer_high", "solved_instances", "quantile");
+    /** The columns of settings.csv, in order (sweep_group, sweep_value and best_fraction only with a sweep). */
+    public static final List<String> SETTING_COLUMNS = List.of("setting", "instances", "solved_instances",
+            "instance_quantile", "tts_us", "tts_band_low_us", "tts_band_high_us", "tts_outer_low_us",
+            "tts_outer_high_us", "observed_tts_us", "p_success", "p_success_band_low", "p_success_band_high",
+            "p_success_outer_low", "p_success_outer_high", "observed_p_success");
 
-    /** The columns of comparisons.csv, in order. */
-    public static final List<String> COMPARISON_COLUMNS = List.of("setting_a", "setting_b", "paired", "faster",
-            "slower", "ties", "fraction_improved", "sign_test_p", "median_ratio", "ratio_band_low", "ratio_band_high",
-            "ratio_band_outer_low", "ratio_band_outer_high", "median_difference_us", "difference_band_low_us",
-            "difference_band_high_us", "improved_band_low", "improved_band_high");
+    /** The columns of comparisons.csv and baseline.csv, in order. */
+    public static final List<String> COMPARISON_COLUMNS = banded(List.of("setting", "reference", "paired",
+            "setting_faster", "reference_faster", "ties", "sign_test_p", "instance_quantile"),
+            "tts_ratio_reference_over_setting", "", "tts_reference_minus_setting", "_us", "fraction_setting_faster", "");
 
     /** The columns of sweep.csv, in order. */
-    public static final List<String> SWEEP_COLUMNS = List.of("parameter", "best_setting", "best_value",
-            "best_tts_us", "band_low_us", "band_high_us", "band_outer_low_us", "band_outer_high_us", "best_fraction");
+    public static final List<String> SWEEP_COLUMNS = banded(List.of("swept", "group", "candidates", "best_setting",
+            "best_values", "best_fraction"), "least_tts", "_us");
 
     private ScoreFiles() {
     }
 
-    /** Rows of each output file as ordered maps (column → text), shared by CSV, JSON and the report. */
-    public record Tables(List<Map<String, Object>> instances, List<Map<String, Object>> settings,
-            List<Map<String, Object>> comparisons, List<Map<String, Object>> sweep) {
+    /** Fixed columns then, per (name, unit) pair, name, its bands and observed_name. */
+    private static List<String> banded(List<String> fixed, String... nameUnit) {
+        List<String> out = new ArrayList<>(fixed);
+        for (int k = 0; k < nameUnit.length; k += 2) {
+            String n = nameUnit[k];
+            String u = nameUnit[k + 1];
+            out.addAll(List.of(n + u, n + "_band_low" + u, n + "_band_high" + u, n + "_outer_low" + u,
+                    n + "_outer_high" + u, "observed_" + n + u));
+        }
+        return List.copyOf(out);
     }
 
-    /** Builds the tables; sweepName (may be null) names the swept parameter. */
-    public static Tables tables(CampaignSummary summary, String sweepName) {
+    private static void put(Map<String, Object> m, String name, String unit, CampaignSummary.Banded v) {
+        m.put(name + unit, v.headline());
+        m.put(name + "_band_low" + unit, v.band()[0]);
+        m.put(name + "_band_high" + unit, v.band()[1]);
+        m.put(name + "_outer_low" + unit, v.outer()[0]);
+        m.put(name + "_outer_high" + unit, v.outer()[1]);
+        m.put("observed_" + name + unit, v.observed());
+    }
+
+    /**
+     * Rows of each output file as ordered maps (column → value), shared by CSV, JSON and the
+     * report: comparisons from --compare and from the baseline are separate lists.
+     */
+    public record Tables(List<Map<String, Object>> instances, List<Map<String, Object>> settings,
+            List<Map<String, Object>> comparisons, List<Map<String, Object>> baseline,
+            List<Map<String, Object>> sweep) {
+    }
+
+    /**
+     * A scored campaign as the outputs need it: the summary, the success rule, the tables read
+     * and the ground file (may be null), per setting its setting columns, the swept columns
+     * (empty without a sweep) with the first one's numeric value per setting (NaN where empty;
+     * null without a sweep), a name per sweep group (the fixed column values), how many of the
+     * summary's comparisons are from --compare (the rest are baseline pairs), the baseline
+     * (COLUMN=VALUE, or null) and the settings that found no baseline.
+     */
+    public record Scored(CampaignSummary summary, SuccessRule rule, List<Path> results, Path ground,
+            List<Map<String, String>> settingColumns, List<String> sweep, double[] sweepValueBySetting,
+            List<String> sweepGroupNames, int compareCount, String baseline, List<String> withoutBaseline) {
+    }
+
+    /** Builds the tables of a scored campaign. */
+    public static Tables tables(Scored scored) {
+        CampaignSummary summary = scored.summary();
         Campaign c = summary.campaign();
         List<Map<String, Object>> inst = new ArrayList<>();
         for (CellScore s : summary.cells()) {
@@ -74,8 +113,8 @@ public final class ScoreFiles {
             m.put("p_wilson_high", s.wilson().upper());
             m.put("p_cp_low", s.clopperPearson().lower());
             m.put("p_cp_high", s.clopperPearson().upper());
-            m.put("tts_low_us", s.ttsLow());
-            m.put("tts_high_us", s.ttsHigh());
+            m.put("tts_at_p_cp_high_us", s.ttsLow());
+            m.put("tts_at_p_cp_low_us", s.ttsHigh());
             m.put("run_us", s.runTime());
             m.put("ground_energy", c.ground(s.instance()));
             m.put("ground_source", c.groundGiven(s.instance()) ? "file" : "best_seen");
@@ -92,80 +131,75 @@ public final class ScoreFiles {
             inst.add(m);
         }
         SummaryOptions o = summary.options();
-        int[] order = o.sweepOrder();
-        double[] sweepValue = new double[c.settingCount()];
-        double[] bestFraction = new double[c.settingCount()];
-        java.util.Arrays.fill(sweepValue, Double.NaN);
+        int nS = c.settingCount();
+        String[] groupOf = new String[nS];
+        double[] bestFraction = new double[nS];
         java.util.Arrays.fill(bestFraction, Double.NaN);
-        if (order != null) {
-            for (int k = 0; k < order.length; k++) {
-                sweepValue[order[k]] = o.sweepValues()[k];
-                bestFraction[order[k]] = summary.sweep().bestFraction()[k];
+        List<int[]> groups = o.sweepGroups();
+        for (int k = 0; k < groups.size(); k++) {
+            int[] members = groups.get(k);
+            for (int j = 0; j < members.length; j++) {
+                groupOf[members[j]] = scored.sweepGroupNames().get(k);
+                bestFraction[members[j]] = summary.sweeps().get(k).bestFraction()[j];
             }
         }
+        boolean sweep = !groups.isEmpty();
         List<Map<String, Object>> set = new ArrayList<>();
         for (CampaignSummary.SettingRow r : summary.settings()) {
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("setting", c.settings().get(r.setting()));
             m.put("instances", (long) r.instances());
-            m.put("median_tts_us", r.tts());
-            m.put("band_low_us", r.ttsBand()[0]);
-            m.put("band_high_us", r.ttsBand()[1]);
-            m.put("band_outer_low_us", r.ttsOuter()[0]);
-            m.put("band_outer_high_us", r.ttsOuter()[1]);
-            m.put("median_p_success", r.p());
-            m.put("p_band_low", r.pBand()[0]);
-            m.put("p_band_high", r.pBand()[1]);
-            m.put("p_band_outer_low", r.pOuter()[0]);
-            m.put("p_band_outer_high", r.pOuter()[1]);
             m.put("solved_instances", (long) r.solved());
-            m.put("quantile", o.quantile());
-            if (order != null) {
-                m.put("sweep_value", sweepValue[r.setting()]);
+            m.put("instance_quantile", o.quantile());
+            put(m, "tts", "_us", r.tts());
+            put(m, "p_success", "", r.p());
+            if (sweep) {
+                m.put("sweep_group", groupOf[r.setting()]);
+                m.put("sweep_value", scored.sweepValueBySetting()[r.setting()]);
                 m.put("best_fraction", bestFraction[r.setting()]);
             }
             set.add(m);
         }
         List<Map<String, Object>> cmp = new ArrayList<>();
-        for (CampaignSummary.ComparisonRow r : summary.comparisons()) {
+        List<Map<String, Object>> base = new ArrayList<>();
+        for (int k = 0; k < summary.comparisons().size(); k++) {
+            CampaignSummary.ComparisonRow r = summary.comparisons().get(k);
             Map<String, Object> m = new LinkedHashMap<>();
-            m.put("setting_a", c.settings().get(r.a()));
-            m.put("setting_b", c.settings().get(r.b()));
+            m.put("setting", c.settings().get(r.setting()));
+            m.put("reference", c.settings().get(r.reference()));
             m.put("paired", (long) r.counts().paired());
-            m.put("faster", (long) r.counts().faster());
-            m.put("slower", (long) r.counts().slower());
+            m.put("setting_faster", (long) r.counts().faster());
+            m.put("reference_faster", (long) r.counts().slower());
             m.put("ties", (long) r.counts().ties());
-            m.put("fraction_improved", r.counts().fractionImproved());
             m.put("sign_test_p", r.counts().signTestP());
-            m.put("median_ratio", r.ratio());
-            m.put("ratio_band_low", r.ratioBand()[0]);
-            m.put("ratio_band_high", r.ratioBand()[1]);
-            m.put("ratio_band_outer_low", r.ratioOuter()[0]);
-            m.put("ratio_band_outer_high", r.ratioOuter()[1]);
-            m.put("median_difference_us", r.difference());
-            m.put("difference_band_low_us", r.differenceBand()[0]);
-            m.put("difference_band_high_us", r.differenceBand()[1]);
-            m.put("improved_band_low", r.improvedBand()[0]);
-            m.put("improved_band_high", r.improvedBand()[1]);
-            cmp.add(m);
+            m.put("instance_quantile", o.quantile());
+            put(m, "tts_ratio_reference_over_setting", "", r.ratio());
+            put(m, "tts_reference_minus_setting", "_us", r.saved());
+            put(m, "fraction_setting_faster", "", r.improved());
+            (k < scored.compareCount() ? cmp : base).add(m);
         }
-        List<Map<String, Object>> sweep = new ArrayList<>();
-        if (order != null) {
-            BootstrapResult.Sweep in = summary.sweep();
-            BootstrapResult.Sweep out = summary.sweepOuter();
+        List<Map<String, Object>> sw = new ArrayList<>();
+        for (int k = 0; k < groups.size(); k++) {
+            BootstrapResult.Sweep in = summary.sweeps().get(k);
+            BootstrapResult.Sweep out = summary.sweepsOuter().get(k);
             Map<String, Object> m = new LinkedHashMap<>();
-            m.put("parameter", sweepName == null ? "" : sweepName);
+            m.put("swept", String.join("+", scored.sweep()));
+            m.put("group", scored.sweepGroupNames().get(k));
+            m.put("candidates", (long) groups.get(k).length);
             m.put("best_setting", in.best() < 0 ? "" : c.settings().get(in.best()));
-            m.put("best_value", in.best() < 0 ? Double.NaN : sweepValue[in.best()]);
-            m.put("best_tts_us", in.tts());
-            m.put("band_low_us", in.bandLow());
-            m.put("band_high_us", in.bandHigh());
-            m.put("band_outer_low_us", out.bandLow());
-            m.put("band_outer_high_us", out.bandHigh());
+            List<String> values = new ArrayList<>();
+            if (in.best() >= 0) {
+                for (String n : scored.sweep()) {
+                    values.add(n + "=" + scored.settingColumns().get(in.best()).get(n));
+                }
+            }
+            m.put("best_values", String.join(", ", values));
             m.put("best_fraction", in.best() < 0 ? Double.NaN : bestFraction[in.best()]);
-            sweep.add(m);
+            put(m, "least_tts", "_us", new CampaignSummary.Banded(in.leastTts(), new double[] {in.bandLow(),
+                in.bandHigh()}, new double[] {out.bandLow(), out.bandHigh()}, in.observedLeast()));
+            sw.add(m);
         }
-        return new Tables(inst, set, cmp, sweep);
+        return new Tables(inst, set, cmp, base, sw);
     }
 
     /** Writes the CSV files into a directory (which the caller creates atomically). */
@@ -174,6 +208,9 @@ public final class ScoreFiles {
         writeCsv(dir.resolve("settings.csv"), t.settings(), SETTING_COLUMNS);
         if (!t.comparisons().isEmpty()) {
             writeCsv(dir.resolve("comparisons.csv"), t.comparisons(), COMPARISON_COLUMNS);
+        }
+        if (!t.baseline().isEmpty()) {
+            writeCsv(dir.resolve("baseline.csv"), t.baseline(), COMPARISON_COLUMNS);
         }
         if (!t.sweep().isEmpty()) {
             writeCsv(dir.resolve("sweep.csv"), t.sweep(), SWEEP_COLUMNS);
@@ -222,16 +259,18 @@ public final class ScoreFiles {
     }
 
     /** The JSON document. */
-    public static String json(CampaignSummary summary, Tables t, SuccessRule rule, String results, String ground,
-            String sweepName) throws IOException {
+    public static String json(Scored scored, Tables t) throws IOException {
+        CampaignSummary summary = scored.summary();
+        SuccessRule rule = scored.rule();
         ObjectMapper mapper = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
         ObjectNode root = mapper.createObjectNode();
-        root.put("format", "obverse.scores/1");
-        root.put("results", results);
-        if (ground == null) {
+        root.put("format", "obverse.scores/2");
+        ArrayNode res = root.putArray("results");
+        scored.results().forEach(p -> res.add(p.toString()));
+        if (scored.ground() == null) {
             root.putNull("ground");
         } else {
-            root.put("ground", ground);
+            root.put("ground", scored.ground().toString());
         }
         SummaryOptions o = summary.options();
         root.put("target", o.target());
@@ -241,9 +280,9 @@ public final class ScoreFiles {
         tol.put("absolute", rule.absolute());
         tol.put("relative", rule.relative());
         ObjectNode boot = root.putObject("bootstrap");
-        boot.put("scheme", !o.resampleGauges() && !o.resampleReads() ? "instances"
-                : o.resampleReads() && o.resampleGauges() ? "instances, then gauges within an instance, then reads within a gauge (binomial)"
-                : o.resampleGauges() ? "instances, then gauges within an instance" : "instances, then reads within a gauge (binomial)");
+        boot.put("resample", o.resampling().label());
+        boot.put("scheme", o.resampling().description());
+        boot.put("headline", "median of the replicates");
         boot.put("generator", "XO_RO_SHI_RO_128_PP");
         boot.put("seed", o.seed());
         boot.put("replicates", o.replicates());
@@ -251,12 +290,19 @@ public final class ScoreFiles {
         bands.addArray().add(o.band()[0]).add(o.band()[1]);
         bands.addArray().add(o.outerBand()[0]).add(o.outerBand()[1]);
         root.put("quantile_definition", "Hyndman-Fan type 7");
-        if (sweepName != null) {
-            root.put("sweep", sweepName);
+        ArrayNode swept = root.putArray("sweep");
+        scored.sweep().forEach(swept::add);
+        if (scored.baseline() == null) {
+            root.putNull("baseline");
+        } else {
+            root.put("baseline", scored.baseline());
         }
+        ArrayNode without = root.putArray("without_baseline");
+        scored.withoutBaseline().forEach(without::add);
         put(root.putArray("instances"), t.instances());
         put(root.putArray("settings"), t.settings());
         put(root.putArray("comparisons"), t.comparisons());
+        put(root.putArray("baseline_comparisons"), t.baseline());
         put(root.putArray("best_of_sweep"), t.sweep());
         return mapper.writeValueAsString(root) + "\n";
     }

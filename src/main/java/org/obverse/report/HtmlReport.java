@@ -25,8 +25,8 @@ public final class HtmlReport {
     }
 
     /** What the page is about. */
-    public record Inputs(String results, String ground, SuccessRule rule, String sweepName, String magnetisation,
-            String correlations) {
+    public record Inputs(String results, String ground, SuccessRule rule, List<String> sweep, String baseline,
+            String magnetisation, String correlations) {
     }
 
     /** The page. */
@@ -41,9 +41,9 @@ public final class HtmlReport {
                 .append("body{font-family:system-ui,Segoe UI,Helvetica,Arial,sans-serif;max-width:1100px;margin:2em auto;")
                 .append("padding:0 1em;color:#222;line-height:1.45}\n")
                 .append("table{border-collapse:collapse;margin:0.6em 0 1.2em;font-size:0.92em}\n")
-                .append("th,td{border:1px solid #ccc;padding:0.25em 0.6em;text-align:right}\n")
+                .append("th,td{border:1px solid #ccc;padding:0.25em 0.6em;text-align:right;white-space:nowrap}\n")
                 .append("th{background:#eef2f7}td.l,th.l{text-align:left}\n")
-                .append("figure{margin:1.2em 0}figure img{max-width:100%;border:1px solid #ddd}\n")
+                .append("figure{margin:1.2em 0}figure img{max-width:100%;height:auto;border:1px solid #ddd}\n")
                 .append("figcaption{font-size:0.9em;color:#444;max-width:860px}\n.flag{color:#b22;font-weight:bold}\n")
                 .append("code{background:#f4f4f4;padding:0 0.2em}\n</style>\n</head>\n<body>\n");
         h.append("<h1>Campaign scores</h1>\n");
@@ -66,69 +66,75 @@ public final class HtmlReport {
         h.append("<li>Over instances: the ").append(o.quantile() == 0.5 ? "median" : num(o.quantile()) + " quantile")
                 .append(" (Hyndman–Fan type 7; ∞ sorts above every finite value and a positive interpolation weight on")
                 .append(" ∞ gives ∞).</li>\n");
-        String scheme = o.resampleReads() && o.resampleGauges() ? "instances, then gauges, then reads as binomial draws"
-                : o.resampleGauges() ? "instances, then gauges" : o.resampleReads() ? "instances, then reads" : "instances only";
-        h.append("<li>Bands: hierarchical bootstrap (").append(scheme).append("), ")
+        h.append("<li>Headline values are the median of the bootstrap replicates; bands are percentiles of the same ")
+                .append("replicates (so every headline lies inside its bands); the statistic on the observed data is in ")
+                .append("the <code>observed_…</code> columns. Bootstrap <code>--resample ").append(o.resampling().label())
+                .append("</code>: ").append(esc(o.resampling().description())).append("; ")
                 .append(o.replicates()).append(" replicates, seed ").append(o.seed()).append(", percentiles ")
                 .append(num(100 * o.band()[0])).append("–").append(num(100 * o.band()[1])).append(" and ")
                 .append(num(100 * o.outerBand()[0])).append("–").append(num(100 * o.outerBand()[1]))
+                .append(o.resampling().drawsInstances() && c.instanceCount() < 8 ? ". <b>Only " + c.instanceCount()
+                        + " instances:</b> an instance bootstrap of so few is coarse (an inner band may be one instance's "
+                        + "value wide); <code>--resample gauges-only</code> shows how well these instances were measured"
+                        : "")
                 .append(". Binomial intervals per instance at ").append(num(100 * o.confidence()))
                 .append(" % (Wilson and Clopper–Pearson) are in <code>instances.csv</code>.</li>\n</ul>\n");
 
-        h.append("<h2>Settings</h2>\n<table>\n<tr><th class=\"l\">setting</th><th>instances</th><th>solved</th>")
-                .append("<th>median TTS (µs)</th><th>inner band</th><th>outer band</th><th>median p</th>")
+        h.append("<h2>Settings</h2>\n<table>\n<tr><th>#</th><th class=\"l\">setting</th><th>instances</th><th>solved</th>")
+                .append("<th>TTS (µs)</th><th>inner band</th><th>outer band</th><th>p</th>")
                 .append("<th>inner band</th><th>outer band</th></tr>\n");
+        int number = 0;
         for (Map<String, Object> r : tables.settings()) {
-            h.append("<tr><td class=\"l\">").append(esc((String) r.get("setting"))).append("</td><td>")
+            h.append("<tr><td>").append(++number).append("</td><td class=\"l\">").append(esc((String) r.get("setting"))).append("</td><td>")
                     .append(r.get("instances")).append("</td><td>").append(r.get("solved_instances")).append("</td><td>")
-                    .append(num((Double) r.get("median_tts_us"))).append("</td><td>")
-                    .append(range(r, "band_low_us", "band_high_us")).append("</td><td>")
-                    .append(range(r, "band_outer_low_us", "band_outer_high_us")).append("</td><td>")
-                    .append(num((Double) r.get("median_p_success"))).append("</td><td>")
-                    .append(range(r, "p_band_low", "p_band_high")).append("</td><td>")
-                    .append(range(r, "p_band_outer_low", "p_band_outer_high")).append("</td></tr>\n");
+                    .append(num((Double) r.get("tts_us"))).append("</td><td>")
+                    .append(range(r, "tts_band_low_us", "tts_band_high_us")).append("</td><td>")
+                    .append(range(r, "tts_outer_low_us", "tts_outer_high_us")).append("</td><td>")
+                    .append(num((Double) r.get("p_success"))).append("</td><td>")
+                    .append(range(r, "p_success_band_low", "p_success_band_high")).append("</td><td>")
+                    .append(range(r, "p_success_outer_low", "p_success_outer_high")).append("</td></tr>\n");
         }
         h.append("</table>\n");
+        h.append("<h2>Figures</h2>\n<ol>\n");
+        for (Figure f : figures) {
+            h.append("<li><a href=\"#fig-").append(f.name()).append("\"><code>").append(f.name())
+                    .append("</code></a></li>\n");
+        }
+        h.append("</ol>\n");
         figure(h, figures, "tts");
         figure(h, figures, "success");
-
-        if (!tables.sweep().isEmpty()) {
-            Map<String, Object> s = tables.sweep().get(0);
-            h.append("<h2>Best value of the sweep over ").append(esc(inputs.sweepName())).append("</h2>\n<p>")
-                    .append("Least median TTS at <b>").append(esc((String) s.get("best_setting"))).append("</b> (")
-                    .append(esc(inputs.sweepName())).append(" = ").append(num((Double) s.get("best_value")))
-                    .append("): ").append(num((Double) s.get("best_tts_us"))).append(" µs; the least median over the ")
-                    .append("settings lies in ").append(range(s, "band_low_us", "band_high_us")).append(" µs (inner band) and ")
-                    .append(range(s, "band_outer_low_us", "band_outer_high_us")).append(" µs (outer band). It is best in ")
-                    .append(num(100 * (Double) s.get("best_fraction"))).append(" % of the bootstrap replicates.</p>\n");
-        }
-
-        if (!tables.comparisons().isEmpty()) {
-            h.append("<h2>Comparisons, instance by instance</h2>\n<table>\n<tr><th class=\"l\">A</th><th class=\"l\">B</th>")
-                    .append("<th>paired</th><th>A faster</th><th>A slower</th><th>tied</th><th>fraction improved</th>")
-                    .append("<th>sign test p</th><th>median TTS_A/TTS_B</th><th>inner band</th><th>outer band</th>")
-                    .append("<th>median TTS_A−TTS_B (µs)</th><th>inner band</th></tr>\n");
-            for (Map<String, Object> r : tables.comparisons()) {
-                h.append("<tr><td class=\"l\">").append(esc((String) r.get("setting_a"))).append("</td><td class=\"l\">")
-                        .append(esc((String) r.get("setting_b"))).append("</td><td>").append(r.get("paired"))
-                        .append("</td><td>").append(r.get("faster")).append("</td><td>").append(r.get("slower"))
-                        .append("</td><td>").append(r.get("ties")).append("</td><td>")
-                        .append(num((Double) r.get("fraction_improved"))).append("</td><td>")
-                        .append(num((Double) r.get("sign_test_p"))).append("</td><td>")
-                        .append(num((Double) r.get("median_ratio"))).append("</td><td>")
-                        .append(range(r, "ratio_band_low", "ratio_band_high")).append("</td><td>")
-                        .append(range(r, "ratio_band_outer_low", "ratio_band_outer_high")).append("</td><td>")
-                        .append(num((Double) r.get("median_difference_us"))).append("</td><td>")
-                        .append(range(r, "difference_band_low_us", "difference_band_high_us")).append("</td></tr>\n");
-            }
-            h.append("</table>\n<p>Ties (equal TTS, including both infinite) are left out of the sign test; ")
-                    .append("a ratio of two infinite TTS counts as 1.</p>\n");
+        boolean campaign = figures.stream().anyMatch(f -> f.name().startsWith("pause-") || f.name().startsWith("heat-")
+                || f.name().startsWith("coupling-"));
+        if (campaign) {
+            h.append("<h2>Pause and chain coupling</h2>\n");
             for (Figure f : figures) {
-                if (f.name().startsWith("compare-")) {
+                if (f.name().startsWith("pause-") || f.name().startsWith("heat-") || f.name().startsWith("coupling-")) {
                     figure(h, figures, f.name());
                 }
             }
         }
+
+        if (!tables.sweep().isEmpty()) {
+            h.append("<h2>Best setting of the sweep over ").append(esc(String.join(" × ", inputs.sweep())))
+                    .append("</h2>\n<p>Within each group of settings that agree on every other setting column: the setting ")
+                    .append("with the least headline TTS, the least TTS over the group (median over replicates, bands), ")
+                    .append("and the fraction of replicates in which that setting is the least.</p>\n<table>\n")
+                    .append("<tr><th class=\"l\">group</th><th>candidates</th><th class=\"l\">best setting</th>")
+                    .append("<th>least TTS (µs)</th><th>inner band</th><th>outer band</th><th>best in</th></tr>\n");
+            for (Map<String, Object> s : tables.sweep()) {
+                h.append("<tr><td class=\"l\">").append(esc((String) s.get("group"))).append("</td><td>")
+                        .append(s.get("candidates")).append("</td><td class=\"l\">")
+                        .append(esc((String) s.get("best_setting"))).append("</td><td>")
+                        .append(num((Double) s.get("least_tts_us"))).append("</td><td>")
+                        .append(range(s, "least_tts_band_low_us", "least_tts_band_high_us")).append("</td><td>")
+                        .append(range(s, "least_tts_outer_low_us", "least_tts_outer_high_us")).append("</td><td>")
+                        .append(num(100 * (Double) s.get("best_fraction"))).append(" %</td></tr>\n");
+            }
+            h.append("</table>\n");
+        }
+        comparisons(h, "Comparisons, instance by instance", tables.comparisons(), figures, "compare-");
+        comparisons(h, "Against the baseline " + (inputs.baseline() == null ? "" : inputs.baseline()), tables.baseline(),
+                figures, "baseline");
 
         h.append("<h2>Gauges</h2>\n<p>Per setting, over every gauge of every instance: the success probability of ")
                 .append("single gauges. Pooled is Σ successes / Σ reads; when success is rare a few lucky gauges pull ")
@@ -183,7 +189,8 @@ public final class HtmlReport {
                         .append(it.gauges()).append("</td><td>").append(it.reads()).append("</td><td>")
                         .append(num(it.bias())).append("</td><td>").append(num(it.stdError())).append("</td><td>")
                         .append(num(it.z())).append("</td><td class=\"l\">")
-                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : "no").append("</td></tr>\n");
+                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : it.flipped() ? "no" : "not tested (never flipped)")
+                        .append("</td></tr>\n");
             }
             h.append("</table>\n");
         }
@@ -202,7 +209,8 @@ public final class HtmlReport {
                         .append("</td><td>").append(it.gauges()).append("</td><td>").append(it.reads()).append("</td><td>")
                         .append(num(it.bias())).append("</td><td>").append(num(it.stdError())).append("</td><td>")
                         .append(num(it.z())).append("</td><td class=\"l\">")
-                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : "no").append("</td></tr>\n");
+                        .append(it.flagged() ? "<span class=\"flag\">yes</span>" : it.flipped() ? "no" : "not tested (never flipped)")
+                        .append("</td></tr>\n");
             }
             h.append("</table>\n");
         }
@@ -212,10 +220,46 @@ public final class HtmlReport {
         return h.toString();
     }
 
+    private static void comparisons(StringBuilder h, String title, List<Map<String, Object>> rows,
+            List<Figure> figures, String figurePrefix) {
+        if (rows.isEmpty()) {
+            return;
+        }
+        h.append("<h2>").append(esc(title)).append("</h2>\n<p>Per instance, ΔTTS = TTS<sub>reference</sub> − ")
+                .append("TTS<sub>setting</sub> (positive: the setting is faster) and the ratio TTS<sub>reference</sub> / ")
+                .append("TTS<sub>setting</sub> (above 1: faster); the table gives their median over instances ")
+                .append("(headline: median of the bootstrap replicates) with the inner band, the fraction of instances ")
+                .append("the setting improves, and the two-sided sign test on the untied instances.</p>\n<table>\n")
+                .append("<tr><th class=\"l\">setting</th><th class=\"l\">reference</th><th>paired</th><th>faster</th>")
+                .append("<th>slower</th><th>tied</th><th>sign test p</th><th>ΔTTS (µs)</th><th>inner band</th>")
+                .append("<th>ratio</th><th>inner band</th><th>fraction improved</th><th>inner band</th></tr>\n");
+        for (Map<String, Object> r : rows) {
+            h.append("<tr><td class=\"l\">").append(esc((String) r.get("setting"))).append("</td><td class=\"l\">")
+                    .append(esc((String) r.get("reference"))).append("</td><td>").append(r.get("paired"))
+                    .append("</td><td>").append(r.get("setting_faster")).append("</td><td>")
+                    .append(r.get("reference_faster")).append("</td><td>").append(r.get("ties")).append("</td><td>")
+                    .append(num((Double) r.get("sign_test_p"))).append("</td><td>")
+                    .append(num((Double) r.get("tts_reference_minus_setting_us"))).append("</td><td>")
+                    .append(range(r, "tts_reference_minus_setting_band_low_us", "tts_reference_minus_setting_band_high_us"))
+                    .append("</td><td>").append(num((Double) r.get("tts_ratio_reference_over_setting"))).append("</td><td>")
+                    .append(range(r, "tts_ratio_reference_over_setting_band_low", "tts_ratio_reference_over_setting_band_high"))
+                    .append("</td><td>").append(num((Double) r.get("fraction_setting_faster"))).append("</td><td>")
+                    .append(range(r, "fraction_setting_faster_band_low", "fraction_setting_faster_band_high"))
+                    .append("</td></tr>\n");
+        }
+        h.append("</table>\n<p>Ties (equal TTS, including both infinite) are left out of the sign test; a ratio of ")
+                .append("two infinite TTS counts as 1.</p>\n");
+        for (Figure f : figures) {
+            if (f.name().startsWith(figurePrefix)) {
+                figure(h, figures, f.name());
+            }
+        }
+    }
+
     private static void figure(StringBuilder h, List<Figure> figures, String name) {
         for (Figure f : figures) {
             if (f.name().equals(name)) {
-                h.append("<figure><img alt=\"").append(esc(f.caption())).append("\" src=\"data:image/png;base64,")
+                h.append("<figure id=\"fig-").append(f.name()).append("\"><img alt=\"").append(esc(f.caption())).append("\" src=\"data:image/png;base64,")
                         .append(Base64.getEncoder().encodeToString(f.png())).append("\">\n<figcaption>")
                         .append(esc(f.caption())).append(" <a href=\"plots/").append(f.name()).append(".svg\">SVG</a>")
                         .append("</figcaption></figure>\n");

@@ -6,14 +6,13 @@ import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import org.knowm.xchart.BoxChart;
-import org.knowm.xchart.BoxChartBuilder;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
-import org.knowm.xchart.style.BoxStyler;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
+import org.obverse.device.CellLattice;
+import org.obverse.io.ScoreFiles;
 import org.obverse.stats.BiasDiagnostics;
 import org.obverse.stats.Campaign;
 import org.obverse.stats.CampaignScoring;
@@ -53,25 +52,26 @@ public final class ReportPlots {
             return new Axis(title, x, labels, logarithmic, groupOfSetting.clone());
         }
 
-        /** Positions 1 … S labelled by setting, or the swept values. */
-        public static Axis of(CampaignSummary summary, String sweepName) {
+        /** Positions 1 … S labelled by setting, or the first swept column's values when all are numbers. */
+        public static Axis of(ScoreFiles.Scored scored) {
+            CampaignSummary summary = scored.summary();
             Campaign c = summary.campaign();
-            int[] order = summary.options().sweepOrder();
+            String sweepName = scored.sweep().isEmpty() ? null : scored.sweep().get(0);
+            double[] v = scored.sweepValueBySetting();
             int n = c.settingCount();
             double[] x = new double[n];
             String[] labels = new String[n];
-            if (order == null) {
+            if (v == null || java.util.Arrays.stream(v).anyMatch(Double::isNaN)) {
                 for (int s = 0; s < n; s++) {
                     x[s] = s + 1;
                     labels[s] = c.settings().get(s);
                 }
                 return new Axis("setting", x, labels, false);
             }
-            double[] v = summary.options().sweepValues();
             boolean positive = true;
             for (int k = 0; k < n; k++) {
-                x[order[k]] = v[k];
-                labels[order[k]] = c.settings().get(order[k]);
+                x[k] = v[k];
+                labels[k] = c.settings().get(k);
                 positive &= v[k] > 0;
             }
             double lo = java.util.Arrays.stream(v).min().orElse(1);
@@ -85,28 +85,19 @@ public final class ReportPlots {
         List<CampaignSummary.SettingRow> rows = summary.settings();
         double q = summary.options().quantile();
         XYChart chart = base("TTS (" + label(q) + " over instances) against " + axis.title(), axis, "TTS (µs)");
-        // A log axis labels only decades: use it only when the values span more than one and a half.
-        double lo = Double.POSITIVE_INFINITY;
-        double hi = 0;
+        List<double[]> all = new ArrayList<>();
         for (CampaignSummary.SettingRow r : rows) {
-            for (double v : new double[] {r.tts(), r.ttsOuter()[0], r.ttsOuter()[1]}) {
-                if (Double.isFinite(v) && v > 0) {
-                    lo = Math.min(lo, v);
-                    hi = Math.max(hi, v);
-                }
-            }
+            all.add(new double[] {r.tts().headline(), r.tts().outer()[0], r.tts().outer()[1]});
         }
-        boolean log = hi / lo > 30;
-        chart.getStyler().setYAxisLogarithmic(log);
-        if (!log && hi > 0) {
-            chart.getStyler().setYAxisMin(0.0);
-        }
-        int missing = addBanded(chart, axis, rows.size(), s -> rows.get(s).tts(), s -> rows.get(s).ttsBand(),
-                s -> rows.get(s).ttsOuter(), log, band(summary.options().band()), band(summary.options().outerBand()));
+        Charts.yRange(chart, all, true);
+        boolean log = chart.getStyler().isYAxisLogarithmic();
+        int missing = addBanded(chart, axis, rows.size(), s -> rows.get(s).tts().headline(), s -> rows.get(s).tts().band(),
+                s -> rows.get(s).tts().outer(), log, band(summary.options().band()), band(summary.options().outerBand()));
         String note = missing > 0 ? " " + missing + " point(s) are infinite or undefined and not drawn." : "";
         return Figure.render("tts", "TTS at the " + pct(summary.options().target()) + " target, the " + label(q)
-                + " over instances of the pooled TTS, with the " + band(summary.options().band()) + " (solid) and "
-                + band(summary.options().outerBand()) + " (dashed) hierarchical bootstrap bands." + note, chart);
+                + " over instances of the pooled TTS (headline: median of the bootstrap replicates), with the "
+                + band(summary.options().band()) + " (darker) and " + band(summary.options().outerBand())
+                + " (lighter) bootstrap bands shaded. " + Charts.counts(summary) + note, chart);
     }
 
     /** Median success probability over instances against the setting, with bands. */
@@ -119,60 +110,96 @@ public final class ReportPlots {
         // Rare success would be a flat line on [0, 1]: fit the axis to the largest upper band.
         double top = 0;
         for (CampaignSummary.SettingRow r : rows) {
-            for (double v : new double[] {r.p(), r.pOuter()[1]}) {
+            for (double v : new double[] {r.p().headline(), r.p().outer()[1]}) {
                 if (Double.isFinite(v)) {
                     top = Math.max(top, v);
                 }
             }
         }
         chart.getStyler().setYAxisMax(top > 0 && top < 0.5 ? Math.min(1.0, 1.15 * top) : 1.0);
-        addBanded(chart, axis, rows.size(), s -> rows.get(s).p(), s -> rows.get(s).pBand(),
-                s -> rows.get(s).pOuter(), false, band(summary.options().band()), band(summary.options().outerBand()));
+        addBanded(chart, axis, rows.size(), s -> rows.get(s).p().headline(), s -> rows.get(s).p().band(),
+                s -> rows.get(s).p().outer(), false, band(summary.options().band()), band(summary.options().outerBand()));
         return Figure.render("success", "Success probability per read, the " + label(q)
-                + " over instances of the pooled estimate, with the " + band(summary.options().band()) + " (solid) and "
-                + band(summary.options().outerBand()) + " (dashed) bootstrap bands.", chart);
+                + " over instances of the pooled estimate (headline: median of the bootstrap replicates), with the "
+                + band(summary.options().band()) + " (darker) and " + band(summary.options().outerBand())
+                + " (lighter) bootstrap bands shaded. " + Charts.counts(summary), chart);
     }
 
-    /** Box plot of per-gauge success (every gauge of every instance) for each setting. */
+    /**
+     * Per-gauge success by setting as a strip plot: every gauge of every instance a dot (spread
+     * sideways by its rank so equal values stay visible), the median over gauges a bar, the
+     * quartiles a vertical line. Legible with many settings, unlike side-by-side boxes.
+     */
     public static Figure gaugeSpread(CampaignSummary summary) throws IOException {
         Campaign c = summary.campaign();
-        BoxChart chart = new BoxChartBuilder().width(WIDTH).height(HEIGHT)
-                .title("Per-gauge success probability by setting").xAxisTitle("setting")
-                .yAxisTitle("success probability of one gauge").build();
-        BoxStyler st = chart.getStyler();
-        st.setBoxplotCalCulationMethod(BoxStyler.BoxplotCalCulationMethod.N_LESS_1_PLUS_1);
-        st.setLegendVisible(false);
-        st.setChartBackgroundColor(Color.WHITE);
-        st.setToolTipsEnabled(false);
-        st.setYAxisMin(0.0);
-        st.setYAxisMax(1.0);
-        st.setSeriesColors(new Color[] {INNER});
-        for (int s = 0; s < c.settingCount(); s++) {
-            double[] v = CampaignScoring.gaugeSuccess(c, s);
-            if (v.length > 0) {
-                chart.addSeries(c.settings().get(s), v);
-            }
+        int n = c.settingCount();
+        double[] x = new double[n];
+        String[] labels = new String[n];
+        for (int s = 0; s < n; s++) {
+            x[s] = s + 1;
+            labels[s] = c.settings().get(s);
         }
-        return Figure.render("gauges", "Distribution of the success probability of single gauges (all gauges of all "
-                + "instances) per setting: box from the first to the third quartile, line at the median, whiskers to "
-                + "1.5 interquartile ranges. A pooled mean far above the median means a few lucky gauges carry it.",
-                chart);
+        XYChart chart = base("Per-gauge success probability by setting", new Axis("setting", x, labels, false),
+                "success probability of one gauge");
+        chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+        chart.getStyler().setMarkerSize(5);
+        List<Double> dx = new ArrayList<>();
+        List<Double> dy = new ArrayList<>();
+        List<Double> mx = new ArrayList<>();
+        List<Double> my = new ArrayList<>();
+        double top = 0;
+        for (int s = 0; s < n; s++) {
+            double[] v = CampaignScoring.gaugeSuccess(c, s);
+            if (v.length == 0) {
+                continue;
+            }
+            double[] sorted = v.clone();
+            java.util.Arrays.sort(sorted);
+            for (int k = 0; k < sorted.length; k++) {
+                dx.add(s + 1 + 0.5 * ((k + 0.5) / sorted.length - 0.5));
+                dy.add(sorted[k]);
+                top = Math.max(top, sorted[k]);
+            }
+            double[] q = org.obverse.stats.Quantiles.of(v, 0.25, 0.5, 0.75);
+            XYSeries iqr = chart.addSeries("quartiles " + s, new double[] {s + 1, s + 1}, new double[] {q[0], q[2]});
+            iqr.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+            iqr.setMarker(SeriesMarkers.NONE);
+            iqr.setLineColor(new Color(0, 0, 0, 110));
+            iqr.setLineStyle(new BasicStroke(3f));
+            iqr.setShowInLegend(false);
+            mx.add((double) s + 1);
+            my.add(q[1]);
+        }
+        if (!dx.isEmpty()) {
+            XYSeries dots = chart.addSeries("one gauge", dx, dy);
+            dots.setMarker(SeriesMarkers.CIRCLE);
+            dots.setMarkerColor(Charts.translucent(INNER, 120));
+            XYSeries med = chart.addSeries("median over gauges", mx, my);
+            med.setMarker(SeriesMarkers.DIAMOND);
+            med.setMarkerColor(FLAG);
+        }
+        chart.getStyler().setYAxisMin(0.0);
+        chart.getStyler().setYAxisMax(top > 0 ? Math.min(1.0, 1.08 * top) : 1.0);
+        return Figure.render("gauges", "Success probability of single gauges (every gauge of every instance, one dot "
+                + "each) per setting; diamond: median over gauges; grey line: first to third quartile. A pooled figure "
+                + "far above the median means a few lucky gauges carry it. Settings are numbered as in the settings table. "
+                + Charts.counts(summary), chart);
     }
 
     /** Instance-wise TTS of A against B on log axes, with the diagonal. */
     public static Figure comparison(CampaignSummary summary, int index) throws IOException {
         CampaignSummary.ComparisonRow row = summary.comparisons().get(index);
         Campaign c = summary.campaign();
-        String a = c.settings().get(row.a());
-        String b = c.settings().get(row.b());
+        String a = c.settings().get(row.setting());
+        String b = c.settings().get(row.reference());
         double[] ta = new double[c.instanceCount()];
         double[] tb = new double[c.instanceCount()];
         java.util.Arrays.fill(ta, Double.NaN);
         java.util.Arrays.fill(tb, Double.NaN);
         for (CellScore cs : summary.cells()) {
-            if (cs.setting() == row.a()) {
+            if (cs.setting() == row.setting()) {
                 ta[cs.instance()] = cs.tts();
-            } else if (cs.setting() == row.b()) {
+            } else if (cs.setting() == row.reference()) {
                 tb[cs.instance()] = cs.tts();
             }
         }
@@ -194,14 +221,28 @@ public final class ReportPlots {
             lo = Math.min(lo, Math.min(ta[i], tb[i]));
             hi = Math.max(hi, Math.max(ta[i], tb[i]));
         }
-        XYChart chart = new XYChartBuilder().width(640).height(560).title("TTS per instance: " + a + " against " + b)
-                .xAxisTitle("TTS under " + b + " (µs)").yAxisTitle("TTS under " + a + " (µs)").build();
+        XYChart chart = new XYChartBuilder().width(760).height(660).title("TTS per instance")
+                .xAxisTitle("TTS, " + b + " (µs)").yAxisTitle("TTS, " + a + " (µs)").build();
         style(chart);
+        chart.getStyler().setLegendPosition(Styler.LegendPosition.InsideNW);
         chart.getStyler().setXAxisLogarithmic(true);
         chart.getStyler().setYAxisLogarithmic(true);
+        if (lo <= hi) {
+            // Whole decades on both axes, so each axis has at least two labelled ticks.
+            double d0 = Math.pow(10, Math.floor(Math.log10(lo)));
+            double d1 = Math.pow(10, Math.max(Math.ceil(Math.log10(hi)), Math.log10(d0) + 1));
+            chart.getStyler().setXAxisMin(d0);
+            chart.getStyler().setXAxisMax(d1);
+            chart.getStyler().setYAxisMin(d0);
+            chart.getStyler().setYAxisMax(d1);
+            chart.getStyler().setXAxisDecimalPattern("#,##0.###");
+            chart.getStyler().setYAxisDecimalPattern("#,##0.###");
+        }
         chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
         if (!xs.isEmpty()) {
-            XYSeries diag = chart.addSeries("equal TTS", new double[] {lo / 1.2, hi * 1.2}, new double[] {lo / 1.2, hi * 1.2});
+            double d0 = Math.pow(10, Math.floor(Math.log10(lo)));
+            double d1 = Math.pow(10, Math.max(Math.ceil(Math.log10(hi)), Math.log10(d0) + 1));
+            XYSeries diag = chart.addSeries("equal TTS", new double[] {d0, d1}, new double[] {d0, d1});
             diag.setXYSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
             diag.setMarker(SeriesMarkers.NONE);
             diag.setLineColor(Color.GRAY);
@@ -211,15 +252,77 @@ public final class ReportPlots {
             pts.setMarker(SeriesMarkers.CIRCLE);
         }
         String note = undrawn > 0 ? " " + undrawn + " instance(s) with an infinite TTS are not drawn." : "";
-        return Figure.render("compare-" + (index + 1), "Each point is one instance; below the diagonal " + a
+        return Figure.render("compare-" + (index + 1), "TTS per instance, " + a + " (y) against " + b + " (x), "
+                + "log axes. Each point is one instance; below the diagonal " + a
                 + " is faster. " + row.counts().faster() + " of " + row.counts().paired() + " instances improved, "
                 + row.counts().ties() + " tied; two-sided sign test p = " + String.format(Locale.ROOT, "%.3g",
-                row.counts().signTestP()) + "." + note, chart);
+                row.counts().signTestP()) + ". " + Charts.counts(summary) + note, chart);
     }
 
     /** The bias map: z-score of each qubit's gauge-averaged device-frame magnetisation. */
     public static Figure biasMap(BiasDiagnostics.Result result, List<Integer> qubitIds) throws IOException {
         return biasMap(result, qubitIds, false);
+    }
+
+    /**
+     * The bias map on a cell lattice: each qubit at its cell-grid position (cell column and row;
+     * inside a cell the vertical side's qubits left, the horizontal side's right), tested qubits
+     * coloured by the sign of z and sized by |z|, flagged ones marked, never-flipped ones grey.
+     */
+    public static Figure biasGrid(BiasDiagnostics.Result result, List<Integer> qubitIds, CellLattice lattice)
+            throws IOException {
+        int t = lattice.shore();
+        int width = Math.max(WIDTH, 80 + lattice.cols() * (2 * t + 1) * 22);
+        int height = Math.max(420, 120 + lattice.rows() * 70);
+        XYChart chart = new XYChartBuilder().width(width).height(height)
+                .title("Device-frame magnetisation averaged over gauges, by cell").xAxisTitle("cell column")
+                .yAxisTitle("− cell row (row 0 at the top)").build();
+        style(chart);
+        chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Scatter);
+        List<List<Double>> xs = new ArrayList<>();
+        List<List<Double>> ys = new ArrayList<>();
+        String[] names = {"z > 0", "z < 0", "flagged", "never flipped, not tested"};
+        for (int k = 0; k < names.length; k++) {
+            xs.add(new ArrayList<>());
+            ys.add(new ArrayList<>());
+        }
+        int outside = 0;
+        for (BiasDiagnostics.Item it : result.items()) {
+            int q = qubitIds.get(it.item());
+            if (q < 0 || q >= lattice.qubitCount()) {
+                outside++;
+                continue;
+            }
+            // Cell (row, col) spans [col, col + 0.8]; its 2t qubits spread evenly inside.
+            double x = lattice.colOf(q) + 0.8 * (lattice.sideOf(q) * t + lattice.indexOf(q)) / Math.max(1, 2 * t - 1);
+            double y = -lattice.rowOf(q) - 0.15 * lattice.sideOf(q);
+            int k = !it.flipped() ? 3 : it.flagged() ? 2 : it.z() >= 0 ? 0 : 1;
+            xs.get(k).add(x);
+            ys.get(k).add(y);
+        }
+        Color[] colors = {MAIN, new Color(0xe0, 0x86, 0x3c), FLAG, Color.GRAY};
+        for (int k = 0; k < names.length; k++) {
+            if (!xs.get(k).isEmpty()) {
+                XYSeries s = chart.addSeries(names[k], xs.get(k), ys.get(k));
+                s.setMarkerColor(colors[k]);
+                s.setMarker(k == 2 ? SeriesMarkers.DIAMOND : k == 3 ? SeriesMarkers.TRIANGLE_UP : SeriesMarkers.CIRCLE);
+            }
+        }
+        chart.getStyler().setXAxisMin(-0.3);
+        chart.getStyler().setXAxisMax(lattice.cols() + 0.1);
+        chart.getStyler().setYAxisMin(-lattice.rows() + 0.5);
+        chart.getStyler().setYAxisMax(0.5);
+        chart.getStyler().setXAxisDecimalPattern("0");
+        chart.getStyler().setYAxisDecimalPattern("0");
+        long untested = result.items().stream().filter(i -> !i.flipped()).count();
+        return Figure.render("bias", "Each point is a qubit at its place in the " + lattice.rows() + " × "
+                + lattice.cols() + " cell lattice (within a cell: the vertical side's " + t + " qubits on the upper "
+                + "row, the horizontal side's on the lower, left to right), coloured by the sign of z = bias / standard "
+                + "error of its gauge-averaged device-frame magnetisation. " + result.flagged().size() + " qubit(s) "
+                + "flagged at |z| > " + String.format(Locale.ROOT, "%.2f", result.threshold()) + " (Bonferroni, "
+                + "family-wise false-positive rate " + result.alpha() + "); " + untested + " qubit(s) that no gauge "
+                + "flipped (pinned) are left out of the test (grey)." + (outside > 0 ? " " + outside
+                + " qubit id(s) outside the lattice are not drawn." : ""), chart);
     }
 
     /** The coupler map: z-score of each coupler's gauge-averaged device-frame correlation (x: coupler number). */
@@ -245,11 +348,24 @@ public final class ReportPlots {
         List<Double> fx = new ArrayList<>();
         List<Double> fz = new ArrayList<>();
         double zMax = result.threshold();
+        List<Double> ux = new ArrayList<>();
+        List<Double> uz = new ArrayList<>();
         for (BiasDiagnostics.Item it : result.items()) {
             double z = Double.isFinite(it.z()) ? it.z() : Math.copySign(1e3, it.z());
+            if (!it.flipped()) {
+                // Never flipped by a gauge (locked coupler, pinned qubit): not tested, drawn on the axis.
+                ux.add((double) qubitIds.get(it.item()));
+                uz.add(0.0);
+                continue;
+            }
             zMax = Math.max(zMax, Math.abs(z));
             (it.flagged() ? fx : qx).add((double) qubitIds.get(it.item()));
             (it.flagged() ? fz : qz).add(z);
+        }
+        if (!ux.isEmpty()) {
+            XYSeries s = chart.addSeries("never flipped, not tested", ux, uz);
+            s.setMarker(SeriesMarkers.TRIANGLE_UP);
+            s.setMarkerColor(Color.GRAY);
         }
         double x0 = qubitIds.isEmpty() ? 0 : qubitIds.get(0);
         double x1 = qubitIds.isEmpty() ? 1 : qubitIds.get(qubitIds.size() - 1);
@@ -279,7 +395,10 @@ public final class ReportPlots {
                 + "(the logical part flips sign with the gauge and cancels, a device bias does not), divided by its "
                 + "standard error. Dashed lines: |z| = " + String.format(Locale.ROOT, "%.2f", result.threshold())
                 + ", the Bonferroni threshold for a family-wise false-positive rate of " + result.alpha() + ". "
-                + result.flagged().size() + (couplers ? " coupler(s)" : " qubit(s)") + " flagged.", chart);
+                + result.flagged().size() + (couplers ? " coupler(s)" : " qubit(s)") + " flagged. " + ux.size()
+                + (couplers ? " coupler(s)" : " qubit(s)") + " that no gauge flipped (locked chain couplers, pinned "
+                + "qubits) are left out of the test and of the Bonferroni count: their logical part never changes "
+                + "sign, so it cannot be told from a device bias (grey triangles on the axis).", chart);
     }
 
     private interface Value {
@@ -325,13 +444,22 @@ public final class ReportPlots {
             java.util.Arrays.sort(order, (a, b) -> Double.compare(axis.x()[a], axis.x()[b]));
             Color[] c = GROUP_COLORS[gi % GROUP_COLORS.length];
             String prefix = g.isEmpty() ? "" : g + ": ";
-            series(chart, prefix + outerName, axis, order, s -> outer.at(s)[0], log, c[2], DASHED, false, true);
-            series(chart, prefix + outerName + " ", axis, order, s -> outer.at(s)[1], log, c[2], DASHED, false, false);
-            series(chart, prefix + innerName, axis, order, s -> inner.at(s)[0], log, c[1], THIN, false, true);
-            series(chart, prefix + innerName + " ", axis, order, s -> inner.at(s)[1], log, c[1], THIN, false, false);
+            shade(chart, prefix + outerName, axis, order, outer, log, Charts.translucent(c[1], 45));
+            shade(chart, prefix + innerName, axis, order, inner, log, Charts.translucent(c[1], 95));
             series(chart, prefix + "estimate", axis, order, mid, log, c[0], new BasicStroke(2.4f), true, true);
         }
         return missing;
+    }
+
+    private static void shade(XYChart chart, String name, Axis axis, Integer[] order, Pair band, boolean log,
+            Color fill) {
+        List<Double> xs = new ArrayList<>();
+        List<double[]> ys = new ArrayList<>();
+        for (int s : order) {
+            xs.add(axis.x()[s]);
+            ys.add(new double[] {Double.NaN, band.at(s)[0], band.at(s)[1]});
+        }
+        Charts.band(chart, name, xs, ys, log, fill);
     }
 
     private static void series(XYChart chart, String name, Axis axis, Integer[] order, Value v, boolean log,
@@ -361,34 +489,30 @@ public final class ReportPlots {
     }
 
     private static XYChart base(String title, Axis axis, String yTitle) {
-        XYChart chart = new XYChartBuilder().width(WIDTH).height(HEIGHT).title(title).xAxisTitle(axis.title())
+        boolean categories = axis.title().equals("setting");
+        // Settings are numbered 1 … S on a plain numeric axis (its ticks are always labelled); the
+        // key is the # column of the settings table and the caption.
+        XYChart chart = new XYChartBuilder().width(WIDTH + 120).height(HEIGHT).title(title)
+                .xAxisTitle(categories ? "setting number (key: the # column of the settings table)" : axis.title())
                 .yAxisTitle(yTitle).build();
         style(chart);
         chart.getStyler().setXAxisLogarithmic(axis.logarithmic());
         double lo = java.util.Arrays.stream(axis.x()).min().orElse(0);
         double hi = java.util.Arrays.stream(axis.x()).max().orElse(1);
-        if (!axis.logarithmic()) {
+        if (categories) {
+            chart.getStyler().setXAxisDecimalPattern("0");
+            chart.getStyler().setXAxisMin(0.0);
+            chart.getStyler().setXAxisMax(axis.labels().length + 1.0);
+        } else if (!axis.logarithmic()) {
             double pad = hi > lo ? 0.08 * (hi - lo) : 0.5;
             chart.getStyler().setXAxisMin(lo - pad);
             chart.getStyler().setXAxisMax(hi + pad);
-        }
-        if (axis.title().equals("setting")) {
-            String[] labels = axis.labels();
-            chart.setCustomXAxisTickLabelsFormatter(x -> {
-                long k = Math.round(x);
-                return Math.abs(x - k) < 1e-9 && k >= 1 && k <= labels.length ? labels[(int) k - 1] : "";
-            });
         }
         return chart;
     }
 
     private static void style(XYChart chart) {
-        org.knowm.xchart.style.XYStyler st = chart.getStyler();
-        st.setChartBackgroundColor(Color.WHITE);
-        st.setLegendPosition(Styler.LegendPosition.OutsideE);
-        st.setToolTipsEnabled(false);
-        st.setPlotGridLinesColor(new Color(0xdd, 0xdd, 0xdd));
-        chart.getStyler().setDefaultSeriesRenderStyle(XYSeries.XYSeriesRenderStyle.Line);
+        Charts.style(chart);
     }
 
     private static String label(double q) {

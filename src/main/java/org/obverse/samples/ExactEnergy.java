@@ -8,6 +8,17 @@ import org.obverse.model.IsingProblem;
  * {@link IsingProblem#energy(byte[])}, so the results are equal bit for bit. A term is h or J
  * with its sign bit flipped where the product is −1, exactly as the multiplication by ±1
  * gives. 64 reads go together, each with its own accumulator.
+ *
+ * <p>Where the order cannot matter it is not followed: if every term (offset, h, J) is an
+ * integer multiple of one power of two 2^q and B = 4·|offset| + 8·(Σ|h| + Σ|J|) is below
+ * 2^(53+q), every sum of terms, doubled terms and their integer multiples that either path
+ * forms is a multiple of 2^q below 2^(53+q) in size, so it is a double without rounding
+ * (Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed., SIAM 2002, §2.1: a
+ * floating-point sum or product is exact when the exact result is representable). Both this
+ * path and the fast kernels then return the exact real energy, the same double; a zero is
+ * +0.0 on this path (the sum starts at +0.0), so the fast result has +0.0 added. Integer and
+ * few-bit problems, the common case on hardware, take the fast kernels this way with the same
+ * bits; others take the per-read order above.
  */
 final class ExactEnergy implements EnergyKernel {
     private final IsingProblem problem;
@@ -18,6 +29,8 @@ final class ExactEnergy implements EnergyKernel {
     private final long[] couplingBits;
     private final double offset;
     private final double[] acc = new double[64];
+    // A fast kernel that gives the same bits (see the type's comment), or null.
+    private final EnergyKernel sameBits;
 
     ExactEnergy(IsingProblem problem) {
         this.problem = problem;
@@ -33,6 +46,48 @@ final class ExactEnergy implements EnergyKernel {
             couplingBits[e] = Double.doubleToRawLongBits(problem.coupling(e));
         }
         this.offset = problem.offset();
+        this.sameBits = exactOnGrid(problem) ? EnergyKernel.of(problem) : null;
+    }
+
+    /** Whether every term is a multiple of one 2^q and all sums stay below 2^(53+q): no sum rounds. */
+    static boolean exactOnGrid(IsingProblem p) {
+        int q = Integer.MAX_VALUE;
+        double sum = 0.0;
+        for (int k = 0; k < p.size(); k++) {
+            q = Math.min(q, lowestBit(p.field(k)));
+            sum += Math.abs(p.field(k));
+        }
+        for (int e = 0; e < p.edgeCount(); e++) {
+            q = Math.min(q, lowestBit(p.coupling(e)));
+            sum += Math.abs(p.coupling(e));
+        }
+        q = Math.min(q, lowestBit(p.offset()));
+        if (q == Integer.MIN_VALUE) {
+            return false;
+        }
+        if (q == Integer.MAX_VALUE) {
+            return true; // every term is zero
+        }
+        // The bound, computed with rounding, is enlarged by a margin far above its rounding error.
+        double bound = (4 * Math.abs(p.offset()) + 8 * sum) * 1.0001;
+        return q <= 900 && bound < Math.scalb(1.0, Math.max(-1074, 53 + q));
+    }
+
+    /** Exponent of the lowest set bit of x (x = odd · 2^result); MAX_VALUE for zero, MIN_VALUE where not finite or subnormal. */
+    private static int lowestBit(double x) {
+        if (x == 0.0) {
+            return Integer.MAX_VALUE;
+        }
+        if (!Double.isFinite(x) || Math.abs(x) < Double.MIN_NORMAL) {
+            return Integer.MIN_VALUE;
+        }
+        long mantissa = (Double.doubleToRawLongBits(x) & 0x000FFFFFFFFFFFFFL) | 0x0010000000000000L;
+        return Math.getExponent(x) - 52 + Long.numberOfTrailingZeros(mantissa);
+    }
+
+    /** Whether this kernel takes the fast kernels for its problem (same bits, see the type's comment). */
+    boolean regroups() {
+        return sameBits != null;
     }
 
     private ExactEnergy(ExactEnergy o) {
@@ -43,6 +98,7 @@ final class ExactEnergy implements EnergyKernel {
         this.edgeV = o.edgeV;
         this.couplingBits = o.couplingBits;
         this.offset = o.offset;
+        this.sameBits = o.sameBits == null ? null : o.sameBits.copy();
     }
 
     @Override
@@ -63,6 +119,13 @@ final class ExactEnergy implements EnergyKernel {
     @Override
     public void energies(SampleBlock block, double[] out, int offsetOut) {
         FastEnergy.checkBlock(problem, block, out, offsetOut);
+        if (sameBits != null) {
+            sameBits.energies(block, out, offsetOut);
+            for (int r = offsetOut; r < offsetOut + block.reads(); r++) {
+                out[r] += 0.0; // -0.0 to +0.0, as the per-read sum gives; nothing else changes
+            }
+            return;
+        }
         long[] w = block.words();
         int blocks = block.blockCount();
         for (int b = 0; b < blocks; b++) {

@@ -10,6 +10,8 @@ package org.obverse.samples;
  * {@link #words()} directly. Cost: n · ⌈reads / 64⌉ longs.
  */
 public final class SampleBlock {
+    /** Chunks of at least this many stored bytes are packed on two cores. */
+    private static final long PARALLEL_BYTES = 1L << 20;
     private final int reads;
     private final int variables;
     private final long[] words;
@@ -62,40 +64,79 @@ public final class SampleBlock {
     /**
      * Packs {@code count} rows of ±1 spins from {@code spins} (row-major, starting at row
      * {@code fromRow}) into reads {@code toRead …}. Used when streaming a file in chunks.
+     *
+     * @throws IllegalArgumentException at the first value that is not −1 or +1, naming read and column
      */
     public void packRows(byte[] spins, int fromRow, int count, int toRead) {
-        int n = variables;
-        for (int r = 0; r < count; r++) {
-            int read = toRead + r;
-            int base = (read >>> 6) * n;
-            long bit = 1L << (read & 63);
-            int row = (fromRow + r) * n;
-            for (int k = 0; k < n; k++) {
-                byte s = spins[row + k];
-                if (s == 1) {
-                    words[base + k] |= bit;
-                } else if (s == -1) {
-                    words[base + k] &= ~bit;
-                } else {
-                    throw new IllegalArgumentException("read " + (fromRow + r) + ", column " + k + " holds " + s
-                            + "; spins must be -1 or +1");
-                }
-            }
+        int bad = packChecked(spins, fromRow, count, toRead, false);
+        if (bad >= 0) {
+            int n = variables;
+            throw new IllegalArgumentException("read " + (bad / n) + ", column " + (bad % n) + " holds " + spins[bad]
+                    + "; spins must be -1 or +1");
         }
+    }
+
+    /**
+     * Checks and packs {@code count} stored rows of {@code src} (row-major, from row
+     * {@code fromRow}) into reads {@code toRead …} in one branch-free pass: stored values are
+     * −1/+1, or 0/1 where {@code binary} (then 1 means s = +1). Every live bit of those reads
+     * is set or cleared; other reads are left as they are.
+     *
+     * @return −1 where every value is valid, else the index in {@code src} of the first bad
+     *         value in row-major order (reads up to that value's block are packed, later ones
+     *         are not)
+     */
+    public int packChecked(byte[] src, int fromRow, int count, int toRead, boolean binary) {
+        int n = variables;
+        if (fromRow < 0 || count < 0 || toRead < 0 || (long) toRead + count > reads
+                || ((long) fromRow + count) * n > src.length) {
+            throw new IllegalArgumentException(count + " rows from row " + fromRow + " into read " + toRead
+                    + " do not fit " + src.length + " values or " + reads + " reads of " + n);
+        }
+        int at = fromRow * n;
+        // Large chunks: two halves on two cores, split at a 64-read boundary so that each
+        // writes its own words; the first half's bad value comes first in row order.
+        int headRows = (64 - (toRead & 63)) & 63;
+        if ((long) count * n >= PARALLEL_BYTES && count - headRows >= 128) {
+            int split = headRows + ((count - headRows) / 128) * 64;
+            java.util.concurrent.ForkJoinTask<Integer> second = java.util.concurrent.ForkJoinTask.adapt(
+                    () -> BitPack.pack(src, at + split * n, count - split, n, words, toRead + split, binary)).fork();
+            int first = BitPack.pack(src, at, split, n, words, toRead, binary);
+            int later = second.join();
+            return first >= 0 ? first : later;
+        }
+        return BitPack.pack(src, at, count, n, words, toRead, binary);
+    }
+
+    /**
+     * Checks stored values without packing them, eight at a time and branch-free: −1/+1, or
+     * 0/1 where {@code binary}.
+     *
+     * @return −1 where all of {@code values[from … from+len)} are valid, else the index of the first bad one
+     */
+    public static int firstBadValue(byte[] values, int from, int len, boolean binary) {
+        if (from < 0 || len < 0 || (long) from + len > values.length) {
+            throw new IllegalArgumentException(len + " values from " + from + " do not fit " + values.length);
+        }
+        return BitPack.firstBad(values, from, len, binary);
     }
 
     /** Unpacks reads {@code fromRead … fromRead+count-1} into row-major ±1 values at {@code out[0…]}. */
     public void unpackRows(int fromRead, int count, byte[] out) {
-        int n = variables;
-        for (int r = 0; r < count; r++) {
-            int read = fromRead + r;
-            int base = (read >>> 6) * n;
-            int shift = read & 63;
-            int row = r * n;
-            for (int k = 0; k < n; k++) {
-                out[row + k] = (byte) ((((words[base + k] >>> shift) & 1L) << 1) - 1);
-            }
+        unpackRows(fromRead, count, out, (byte) -1, (byte) 1);
+    }
+
+    /**
+     * Unpacks reads {@code fromRead … fromRead+count-1} into row-major stored values at
+     * {@code out[0…]}: {@code down} where s = −1, {@code up} where s = +1 (−1/+1 for spins,
+     * 0/1 for binary values). Branch-free, 8 × 8 bit blocks at a time.
+     */
+    public void unpackRows(int fromRead, int count, byte[] out, byte down, byte up) {
+        if (fromRead < 0 || count < 0 || (long) fromRead + count > reads || (long) count * variables > out.length) {
+            throw new IllegalArgumentException(count + " reads from read " + fromRead + " do not fit " + out.length
+                    + " values or " + reads + " reads of " + variables);
         }
+        BitPack.unpack(words, variables, fromRead, count, out, down, up);
     }
 
     /** All reads as row-major ±1 values. */

@@ -44,9 +44,14 @@ public final class BiasDiagnostics {
      * @param bias      the bias estimate b_i (device frame, in [-1, 1] units of spin)
      * @param stdError  its standard error (the larger of the read-based and gauge-based ones)
      * @param z         bias / stdError (±∞ when the error is zero and the bias is not)
-     * @param flagged   whether |z| exceeds the threshold
+     * @param flagged   whether |z| exceeds the threshold (never for an item that no gauge flipped)
+     * @param flipped   false when signs were given and every gauge gave the item the same sign (a
+     *                  locked chain coupler, a pinned qubit): its logical part never changes sign,
+     *                  so it cannot be told from a device bias, and it is left out of the flags and
+     *                  of the Bonferroni count
      */
-    public record Item(int item, int gauges, long reads, double bias, double stdError, double z, boolean flagged) {
+    public record Item(int item, int gauges, long reads, double bias, double stdError, double z, boolean flagged,
+            boolean flipped) {
     }
 
     /**
@@ -119,16 +124,26 @@ public final class BiasDiagnostics {
             if (n == 0) {
                 continue;
             }
-            found.add(item(i, n, total, m, var, x, signs != null, balancedGauges && signs == null));
+            boolean flipped = true;
+            if (signs != null) {
+                flipped = false;
+                for (int k = 1; k < n; k++) {
+                    flipped |= x[k] != x[0];
+                }
+            }
+            Item it = item(i, n, total, m, var, x, signs != null, balancedGauges && signs == null);
+            found.add(new Item(it.item(), it.gauges(), it.reads(), it.bias(), it.stdError(), it.z(), false, flipped));
         }
-        int tested = Math.max(1, found.size());
+        int tested = Math.max(1, (int) found.stream().filter(Item::flipped).count());
         double threshold = SpecialFunctions.normalQuantile(1 - alpha / (2.0 * tested));
         List<Item> ranked = new ArrayList<>(found.size());
         for (Item it : found) {
             ranked.add(new Item(it.item(), it.gauges(), it.reads(), it.bias(), it.stdError(), it.z(),
-                    Math.abs(it.z()) > threshold));
+                    it.flipped() && Math.abs(it.z()) > threshold, it.flipped()));
         }
-        ranked.sort(Comparator.comparingDouble((Item it) -> -Math.abs(it.z())).thenComparingInt(Item::item));
+        // Tested items first by |z|, then the never-flipped ones.
+        ranked.sort(Comparator.comparing((Item it) -> !it.flipped()).thenComparingDouble((Item it) -> -Math.abs(it.z()))
+                .thenComparingInt(Item::item));
         return new Result(List.copyOf(ranked), threshold, alpha);
     }
 
@@ -179,6 +194,6 @@ public final class BiasDiagnostics {
         double gaugeVar = !readsOnly && dof > 0 ? sumC2 * rss / dof : 0;
         double se = Math.sqrt(Math.max(readVar, gaugeVar));
         double z = se > 0 ? bias / se : (bias == 0 ? 0 : Math.copySign(Double.POSITIVE_INFINITY, bias));
-        return new Item(index, n, total, bias, se, z, false);
+        return new Item(index, n, total, bias, se, z, false, true);
     }
 }

@@ -3,10 +3,12 @@ package org.obverse.stats;
 import java.util.Arrays;
 
 /**
- * The outcome of a {@link HierarchicalBootstrap}: the statistic on the data as observed (the
- * point estimate) and its value in every replicate, per setting and per compared pair. Bands
- * are type-7 percentiles of the replicate values ({@link Quantiles}), replicates whose value is
- * undefined (NaN: no drawn instance was run under the setting) left out.
+ * The outcome of a {@link HierarchicalBootstrap}: the statistic on the data as observed and its
+ * value in every replicate, per setting and per compared pair. The headline value of a
+ * statistic is the median of its replicates ({@link #headline}) and its bands are type-7
+ * percentiles of the same replicates ({@link #band}), so the headline lies inside every band
+ * that contains the 50th percentile; replicates whose value is undefined (NaN: no drawn
+ * instance was run under the setting) are left out of both.
  *
  * <p>The arrays are owned by this object; accessors return them without copying for speed and
  * callers must not modify them.
@@ -45,27 +47,27 @@ public final class BootstrapResult {
     }
 
     /** The quantile over instances of TTS for a setting, on the observed data. */
-    public double tts(int setting) {
+    public double observedTts(int setting) {
         return pointTts[setting];
     }
 
     /** The quantile over instances of success probability for a setting, on the observed data. */
-    public double pSuccess(int setting) {
+    public double observedP(int setting) {
         return pointP[setting];
     }
 
-    /** The quantile over instances of TTS_A / TTS_B for a pair, on the observed data. */
-    public double ratio(int pair) {
+    /** The quantile over instances of TTS_reference / TTS_setting for a pair, on the observed data. */
+    public double observedRatio(int pair) {
         return pointRatio[pair];
     }
 
-    /** The quantile over instances of TTS_A − TTS_B for a pair, on the observed data. */
-    public double difference(int pair) {
+    /** The quantile over instances of TTS_reference − TTS_setting for a pair, on the observed data. */
+    public double observedDifference(int pair) {
         return pointDiff[pair];
     }
 
-    /** The fraction of instances where A is faster than B, on the observed data. */
-    public double improvedFraction(int pair) {
+    /** The fraction of instances where the setting is faster than the reference, on the observed data. */
+    public double observedImproved(int pair) {
         return pointImproved[pair];
     }
 
@@ -95,6 +97,14 @@ public final class BootstrapResult {
     }
 
     /**
+     * The headline value of a statistic: the median (type 7) of its replicate values, NaN left
+     * out; NaN when every value is NaN.
+     */
+    public static double headline(double[] replicates) {
+        return band(replicates, 0.5, 0.5)[0];
+    }
+
+    /**
      * The percentile band [Q(lo), Q(hi)] (type 7) of replicate values, NaN left out; both NaN
      * when every value is NaN.
      */
@@ -110,19 +120,27 @@ public final class BootstrapResult {
     }
 
     /**
-     * A sweep over settings (in the given order, e.g. ascending swept value): the setting
-     * with the least TTS statistic on the observed data, the band of the least TTS statistic
-     * over the replicates, and how often each setting is the least in a replicate (ties go to
-     * the earlier setting; replicates where none is defined are left out).
+     * The best of a group of settings: the setting whose headline TTS (median of its replicates)
+     * is least (ties go to the earlier setting in the given order), how often each setting has
+     * the least TTS statistic in a replicate (ties go to the earlier setting; replicates where
+     * none is defined are left out), and the least TTS statistic over the group: its headline
+     * (median over replicates of the per-replicate least), its band, and its observed value.
      */
     public Sweep sweep(int[] settings, double lo, double hi) {
         if (settings.length == 0) {
             throw new IllegalArgumentException("a sweep needs at least one setting");
         }
         int best = -1;
+        double bestHeadline = Double.NaN;
+        double observedLeast = Double.NaN;
         for (int s : settings) {
-            if (!Double.isNaN(pointTts[s]) && (best < 0 || pointTts[s] < pointTts[best])) {
+            double h = headline(tts[s]);
+            if (!Double.isNaN(h) && (best < 0 || h < bestHeadline)) {
                 best = s;
+                bestHeadline = h;
+            }
+            if (!Double.isNaN(pointTts[s]) && !(pointTts[s] >= observedLeast)) {
+                observedLeast = pointTts[s];
             }
         }
         int reps = plan.replicates();
@@ -147,18 +165,20 @@ public final class BootstrapResult {
             wins[k] = counted == 0 ? Double.NaN : wins[k] / counted;
         }
         double[] b = band(least, lo, hi);
-        return new Sweep(best, best < 0 ? Double.NaN : pointTts[best], b[0], b[1], wins);
+        return new Sweep(best, headline(least), b[0], b[1], observedLeast, wins);
     }
 
     /**
-     * The best setting of a sweep.
+     * The best setting of a group.
      *
-     * @param best          the setting index with the least TTS statistic (−1 if none is defined)
-     * @param tts           its TTS statistic
+     * @param best          the setting index with the least headline TTS (−1 if none is defined)
+     * @param leastTts      headline of the least TTS statistic over the group (median over replicates)
      * @param bandLow       low end of the band of the least TTS statistic over replicates
      * @param bandHigh      high end of that band
-     * @param bestFraction  per swept setting (in sweep order), the fraction of replicates where it is best
+     * @param observedLeast the least TTS statistic over the group on the observed data
+     * @param bestFraction  per setting (in the given order), the fraction of replicates where it is least
      */
-    public record Sweep(int best, double tts, double bandLow, double bandHigh, double[] bestFraction) {
+    public record Sweep(int best, double leastTts, double bandLow, double bandHigh, double observedLeast,
+            double[] bestFraction) {
     }
 }

@@ -7,10 +7,24 @@ import java.util.function.IntConsumer;
 
 /**
  * Everything a score report holds: per-cell scores, per-setting quantiles over instances
- * with bootstrap bands, instance-wise comparisons of setting pairs, and the best setting of a
- * sweep. Built once from a {@link Campaign}; immutable.
+ * with bootstrap bands, instance-wise comparisons of a setting against a reference, and the
+ * best setting of each sweep group. Every banded value is given twice: the headline (median of
+ * the bootstrap replicates, inside its bands) and the statistic on the observed data. Built
+ * once from a {@link Campaign}; immutable.
  */
 public final class CampaignSummary {
+    /**
+     * A headline value (median of bootstrap replicates), its inner and outer bands, and the
+     * statistic on the observed data.
+     */
+    public record Banded(double headline, double[] band, double[] outer, double observed) {
+        /** From replicates and the observed value. */
+        static Banded of(double[] replicates, double observed, double[] in, double[] out) {
+            return new Banded(BootstrapResult.headline(replicates), BootstrapResult.band(replicates, in[0], in[1]),
+                    BootstrapResult.band(replicates, out[0], out[1]), observed);
+        }
+    }
+
     /**
      * One setting over its instances.
      *
@@ -18,31 +32,23 @@ public final class CampaignSummary {
      * @param instances instances run under it
      * @param solved    instances with at least one success
      * @param tts       the quantile over instances of pooled TTS
-     * @param ttsBand   inner bootstrap band of it
-     * @param ttsOuter  outer bootstrap band of it
      * @param p         the quantile over instances of pooled success probability
-     * @param pBand     inner bootstrap band of it
-     * @param pOuter    outer bootstrap band of it
      */
-    public record SettingRow(int setting, int instances, int solved, double tts, double[] ttsBand, double[] ttsOuter,
-            double p, double[] pBand, double[] pOuter) {
+    public record SettingRow(int setting, int instances, int solved, Banded tts, Banded p) {
     }
 
     /**
-     * A against B.
+     * A setting against a reference (e.g. a baseline), instance by instance.
      *
-     * @param a            index of setting A
-     * @param b            index of setting B
-     * @param counts       instance-wise counts and sign test
-     * @param ratio        quantile over instances of TTS_A / TTS_B
-     * @param ratioBand    inner band of it
-     * @param ratioOuter   outer band of it
-     * @param difference   quantile over instances of TTS_A − TTS_B
-     * @param differenceBand inner band of it
-     * @param improvedBand inner band of the fraction improved
+     * @param setting   index of the setting
+     * @param reference index of the reference setting
+     * @param counts    instance-wise counts and sign test ("faster": the setting's TTS is less)
+     * @param ratio     quantile over instances of TTS_reference / TTS_setting (> 1: the setting is faster)
+     * @param saved     quantile over instances of TTS_reference − TTS_setting (> 0: the setting is faster)
+     * @param improved  fraction of instances where the setting is faster
      */
-    public record ComparisonRow(int a, int b, SettingComparison counts, double ratio, double[] ratioBand,
-            double[] ratioOuter, double difference, double[] differenceBand, double[] improvedBand) {
+    public record ComparisonRow(int setting, int reference, SettingComparison counts, Banded ratio, Banded saved,
+            Banded improved) {
     }
 
     private final Campaign campaign;
@@ -51,20 +57,20 @@ public final class CampaignSummary {
     private final BootstrapResult bootstrap;
     private final List<SettingRow> settings;
     private final List<ComparisonRow> comparisons;
-    private final BootstrapResult.Sweep sweep;
-    private final BootstrapResult.Sweep sweepOuter;
+    private final List<BootstrapResult.Sweep> sweeps;
+    private final List<BootstrapResult.Sweep> sweepsOuter;
 
     private CampaignSummary(Campaign campaign, SummaryOptions options, List<CellScore> cells, BootstrapResult bootstrap,
-            List<SettingRow> settings, List<ComparisonRow> comparisons, BootstrapResult.Sweep sweep,
-            BootstrapResult.Sweep sweepOuter) {
+            List<SettingRow> settings, List<ComparisonRow> comparisons, List<BootstrapResult.Sweep> sweeps,
+            List<BootstrapResult.Sweep> sweepsOuter) {
         this.campaign = campaign;
         this.options = options;
         this.cells = List.copyOf(cells);
         this.bootstrap = bootstrap;
         this.settings = List.copyOf(settings);
         this.comparisons = List.copyOf(comparisons);
-        this.sweep = sweep;
-        this.sweepOuter = sweepOuter;
+        this.sweeps = List.copyOf(sweeps);
+        this.sweepsOuter = List.copyOf(sweepsOuter);
     }
 
     /** Scores and bootstraps a campaign; progress (may be null) gets finished replicates. */
@@ -90,27 +96,23 @@ public final class CampaignSummary {
         double[] out = options.outerBand();
         List<SettingRow> rows = new ArrayList<>();
         for (int s = 0; s < nS; s++) {
-            rows.add(new SettingRow(s, present[s], solved[s], boot.tts(s),
-                    BootstrapResult.band(boot.ttsReplicates(s), in[0], in[1]),
-                    BootstrapResult.band(boot.ttsReplicates(s), out[0], out[1]), boot.pSuccess(s),
-                    BootstrapResult.band(boot.pReplicates(s), in[0], in[1]),
-                    BootstrapResult.band(boot.pReplicates(s), out[0], out[1])));
+            rows.add(new SettingRow(s, present[s], solved[s], Banded.of(boot.ttsReplicates(s), boot.observedTts(s), in,
+                    out), Banded.of(boot.pReplicates(s), boot.observedP(s), in, out)));
         }
         List<ComparisonRow> cmp = new ArrayList<>();
         for (int k = 0; k < options.pairs().size(); k++) {
             int a = options.pairs().get(k)[0];
             int b = options.pairs().get(k)[1];
-            cmp.add(new ComparisonRow(a, b, SettingComparison.of(tts[a], tts[b]), boot.ratio(k),
-                    BootstrapResult.band(boot.ratioReplicates(k), in[0], in[1]),
-                    BootstrapResult.band(boot.ratioReplicates(k), out[0], out[1]), boot.difference(k),
-                    BootstrapResult.band(boot.differenceReplicates(k), in[0], in[1]),
-                    BootstrapResult.band(boot.improvedReplicates(k), in[0], in[1])));
+            cmp.add(new ComparisonRow(a, b, SettingComparison.of(tts[a], tts[b]),
+                    Banded.of(boot.ratioReplicates(k), boot.observedRatio(k), in, out),
+                    Banded.of(boot.differenceReplicates(k), boot.observedDifference(k), in, out),
+                    Banded.of(boot.improvedReplicates(k), boot.observedImproved(k), in, out)));
         }
-        BootstrapResult.Sweep sw = null;
-        BootstrapResult.Sweep swOut = null;
-        if (options.sweepOrder() != null) {
-            sw = boot.sweep(options.sweepOrder(), in[0], in[1]);
-            swOut = boot.sweep(options.sweepOrder(), out[0], out[1]);
+        List<BootstrapResult.Sweep> sw = new ArrayList<>();
+        List<BootstrapResult.Sweep> swOut = new ArrayList<>();
+        for (int[] group : options.sweepGroups()) {
+            sw.add(boot.sweep(group, in[0], in[1]));
+            swOut.add(boot.sweep(group, out[0], out[1]));
         }
         return new CampaignSummary(campaign, options, cells, boot, rows, cmp, sw, swOut);
     }
@@ -139,13 +141,13 @@ public final class CampaignSummary {
         return comparisons;
     }
 
-    /** The sweep with the inner band, or null without a sweep. */
-    public BootstrapResult.Sweep sweep() {
-        return sweep;
+    /** The best of each sweep group (in the order of {@link SummaryOptions#sweepGroups()}) with the inner band. */
+    public List<BootstrapResult.Sweep> sweeps() {
+        return sweeps;
     }
 
-    /** The sweep with the outer band, or null without a sweep. */
-    public BootstrapResult.Sweep sweepOuter() {
-        return sweepOuter;
+    /** The same with the outer band. */
+    public List<BootstrapResult.Sweep> sweepsOuter() {
+        return sweepsOuter;
     }
 }

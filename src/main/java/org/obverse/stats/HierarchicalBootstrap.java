@@ -10,25 +10,26 @@ import org.apache.commons.rng.UniformRandomProvider;
 import org.apache.commons.rng.simple.RandomSource;
 
 /**
- * The hierarchical bootstrap of a campaign (Efron and Tibshirani, An Introduction to the
- * Bootstrap, Chapman &amp; Hall 1993; over instances as in Rønnow et al., Science 345, 420,
- * 2014). One replicate: draw as many instances as there are, uniformly with replacement;
- * for each drawn instance and each setting it was run under, draw its gauges with
- * replacement; for each drawn gauge, redraw its successes as Binomial(reads, p̂) with p̂ its
- * observed success rate (exact inversion, {@link BinomialSampler}); pool the drawn gauges
- * into p* and TTS*. The replicate's statistic is the chosen quantile over the drawn instances
- * (type 7, {@link Quantiles}) of TTS* and of p*, and for each pair of settings the quantile of
- * the instance-wise ratio TTS*_A / TTS*_B and difference TTS*_A − TTS*_B, and the fraction of
- * instances where A is faster. The same drawn instances serve every setting (a paired design).
+ * The bootstrap of a campaign over its levels instances → gauges → reads ({@link Resampling};
+ * the default redraws instances only, Davison and Hinkley 1997 §3.8; over instances as in
+ * Rønnow et al., Science 345, 420, 2014). One replicate: draw as many instances as there are,
+ * uniformly with replacement (or take each once); for each drawn instance and each setting it
+ * was run under, pool its gauges (drawn with replacement where the scheme says so, their
+ * successes redrawn as Binomial(reads, p̂) by exact inversion where it says so) into p* and
+ * TTS*. The replicate's statistic is the chosen quantile over the drawn instances (type 7,
+ * {@link Quantiles}) of TTS* and of p*, and for each pair {setting, reference} the quantile of
+ * the instance-wise ratio TTS*_reference / TTS*_setting and difference TTS*_reference −
+ * TTS*_setting, and the fraction of instances where the setting is faster. The same drawn
+ * instances serve every setting (a paired design).
  *
  * <p>Ratio and difference with infinite TTS: equal values (including ∞ and ∞) give ratio 1
  * and difference 0 (a tie); ∞ against a finite value gives ratio ∞ or 0 and difference ±∞.
  *
  * <p>Reproducible to the last digit: replicate r draws only from a XO_RO_SHI_RO_128_PP
  * stream seeded from (seed, r) by SplitMix64 mixing, and writes only its own slot, so the
- * result does not depend on the thread count. Memory: one sampler per gauge slot; the table
- * itself is never needed row by row. Cost per replicate: about one uniform and one binomial
- * draw per (instance, setting, gauge).
+ * result does not depend on the thread count. Cost: where a scheme redraws nothing inside an
+ * instance, each cell's p and TTS are computed once and a replicate only draws instance
+ * indices; binomial tables are built once per gauge and only when reads are redrawn.
  */
 public final class HierarchicalBootstrap {
     private HierarchicalBootstrap() {
@@ -49,9 +50,16 @@ public final class HierarchicalBootstrap {
             }
         }
         int slots = campaign.gaugeSlots();
-        BinomialSampler[] samplers = new BinomialSampler[slots];
-        for (int k = 0; k < slots; k++) {
-            samplers[k] = BinomialSampler.of(campaign.reads(k), (double) campaign.successes(k) / campaign.reads(k));
+        Resampling scheme = plan.resampling();
+        boolean needSamplers = scheme.drawsReads() || scheme.drawsGauges();
+        BinomialSampler[] samplers = new BinomialSampler[needSamplers ? slots : 0];
+        for (int c = 0; needSamplers && c < nI * nS; c++) {
+            // Under gauges-only only one-gauge cells redraw reads; build only the tables used.
+            boolean used = scheme.drawsReads()
+                    || (scheme == Resampling.GAUGES_ONLY && campaign.gaugeTo(c) - campaign.gaugeFrom(c) == 1);
+            for (int k = campaign.gaugeFrom(c); used && k < campaign.gaugeTo(c); k++) {
+                samplers[k] = BinomialSampler.of(campaign.reads(k), (double) campaign.successes(k) / campaign.reads(k));
+            }
         }
         double[] runMean = new double[nI * nS];
         for (int c = 0; c < nI * nS; c++) {
@@ -62,6 +70,21 @@ public final class HierarchicalBootstrap {
                 run += campaign.runTimeSum(k);
             }
             runMean[c] = reads == 0 ? Double.NaN : run / reads;
+        }
+        double logMiss0 = Math.log1p(-plan.target());
+        // Each cell's pooled p and TTS as observed, computed once: a replicate that redraws
+        // nothing inside an instance only looks them up.
+        double[] cellP = new double[nI * nS];
+        double[] cellTts = new double[nI * nS];
+        for (int c = 0; c < nI * nS; c++) {
+            long succ = 0;
+            long total = 0;
+            for (int k = campaign.gaugeFrom(c); k < campaign.gaugeTo(c); k++) {
+                succ += campaign.successes(k);
+                total += campaign.reads(k);
+            }
+            cellP[c] = total == 0 ? Double.NaN : (double) succ / total;
+            cellTts[c] = total == 0 ? Double.NaN : TimeToSolution.kernel(cellP[c], runMean[c], logMiss0);
         }
         double logMiss = Math.log1p(-plan.target());
         int nP = plan.pairs().size();
@@ -80,7 +103,7 @@ public final class HierarchicalBootstrap {
         double[] pointRatio = new double[nP];
         double[] pointDiff = new double[nP];
         double[] pointImproved = new double[nP];
-        Replicate point = new Replicate(campaign, samplers, runMean, logMiss, plan);
+        Replicate point = new Replicate(campaign, samplers, runMean, logMiss, plan, cellP, cellTts);
         point.evaluate(identity, null, false, pointTts, pointP, pointRatio, pointDiff, pointImproved);
 
         AtomicInteger done = new AtomicInteger();
@@ -88,14 +111,14 @@ public final class HierarchicalBootstrap {
             UniformRandomProvider rng = stream(plan.seed(), r);
             int[] drawn = new int[nI];
             for (int j = 0; j < nI; j++) {
-                drawn[j] = rng.nextInt(nI);
+                drawn[j] = scheme.drawsInstances() ? rng.nextInt(nI) : j;
             }
             double[] t = new double[nS];
             double[] p = new double[nS];
             double[] ra = new double[nP];
             double[] di = new double[nP];
             double[] im = new double[nP];
-            new Replicate(campaign, samplers, runMean, logMiss, plan).evaluate(drawn, rng, true, t, p, ra, di, im);
+            new Replicate(campaign, samplers, runMean, logMiss, plan, cellP, cellTts).evaluate(drawn, rng, true, t, p, ra, di, im);
             for (int s = 0; s < nS; s++) {
                 tts[s][r] = t[s];
                 ps[s][r] = p[s];
@@ -169,13 +192,18 @@ public final class HierarchicalBootstrap {
         private final double[] runMean;
         private final double logMiss;
         private final BootstrapPlan plan;
+        private final double[] cellP;
+        private final double[] cellTts;
 
-        Replicate(Campaign campaign, BinomialSampler[] samplers, double[] runMean, double logMiss, BootstrapPlan plan) {
+        Replicate(Campaign campaign, BinomialSampler[] samplers, double[] runMean, double logMiss, BootstrapPlan plan,
+                double[] cellP, double[] cellTts) {
             this.campaign = campaign;
             this.samplers = samplers;
             this.runMean = runMean;
             this.logMiss = logMiss;
             this.plan = plan;
+            this.cellP = cellP;
+            this.cellTts = cellTts;
         }
 
         void evaluate(int[] drawn, UniformRandomProvider rng, boolean resample, double[] ttsOut, double[] pOut,
@@ -184,8 +212,9 @@ public final class HierarchicalBootstrap {
             int nS = campaign.settingCount();
             double[][] tts = new double[nS][nI];
             double[][] p = new double[nS][nI];
-            boolean gauges = resample && plan.resampleGauges();
-            boolean reads = resample && plan.resampleReads();
+            Resampling scheme = plan.resampling();
+            boolean gauges = resample && scheme.drawsGauges();
+            boolean reads = resample && scheme.drawsReads();
             for (int s = 0; s < nS; s++) {
                 for (int j = 0; j < nI; j++) {
                     int c = campaign.cell(drawn[j], s);
@@ -196,11 +225,18 @@ public final class HierarchicalBootstrap {
                         p[s][j] = Double.NaN;
                         continue;
                     }
+                    if (!gauges && !reads) {
+                        p[s][j] = cellP[c];
+                        tts[s][j] = cellTts[c];
+                        continue;
+                    }
+                    // Gauges-only: a cell with one gauge has no gauge level; its reads are its next stage.
+                    boolean redraw = reads || (gauges && g == 1 && scheme == Resampling.GAUGES_ONLY);
                     long succ = 0;
                     long total = 0;
                     for (int k = 0; k < g; k++) {
-                        int slot = gauges ? from + rng.nextInt(g) : from + k;
-                        succ += reads ? samplers[slot].sample(rng) : campaign.successes(slot);
+                        int slot = gauges && g > 1 ? from + rng.nextInt(g) : from + k;
+                        succ += redraw ? samplers[slot].sample(rng) : campaign.successes(slot);
                         total += campaign.reads(slot);
                     }
                     double pj = (double) succ / total;
@@ -227,8 +263,9 @@ public final class HierarchicalBootstrap {
                     if (Double.isNaN(ta) || Double.isNaN(tb)) {
                         continue;
                     }
-                    r[n] = ratio(ta, tb);
-                    d[n] = difference(ta, tb);
+                    // a is the setting, b the reference: ratio TTS_b / TTS_a, difference TTS_b − TTS_a.
+                    r[n] = ratio(tb, ta);
+                    d[n] = difference(tb, ta);
                     if (ta < tb) {
                         better++;
                     }

@@ -10,6 +10,7 @@ import org.junit.jupiter.api.Test;
 import org.obverse.io.BadInputException;
 import org.obverse.stats.Campaign;
 import org.obverse.stats.CellScore;
+import org.obverse.stats.Resampling;
 import org.obverse.testsupport.QuietTest;
 
 import static org.assertj.core.api.Assertions.assertThat;
@@ -25,8 +26,9 @@ class ScoreStepTest extends QuietTest {
 
     private static ScoreStep.Request request(List<ScoreStep.Comparison> compare, String sweep,
             StepProgress progress) {
-        return new ScoreStep.Request(RESULTS, GROUND, 0.99, 0.95, 0.5, new double[] {0.35, 0.65},
-                new double[] {0.05, 0.95}, 200, 1, 2, compare, sweep, 1e-9, 1e-9, ScoreStep.Depth.READS, progress);
+        return new ScoreStep.Request(List.of(RESULTS), GROUND, 0.99, 0.95, 0.5, new double[] {0.35, 0.65},
+                new double[] {0.05, 0.95}, 200, 1, 2, compare, null, sweep == null ? List.of() : List.of(sweep), 1e-9,
+                1e-9, Resampling.READS_ONLY, progress);
     }
 
     private static CellScore cell(ScoreStep.Result r, String instance, String setting) {

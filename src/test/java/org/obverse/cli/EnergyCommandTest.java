@@ -45,4 +45,29 @@ class EnergyCommandTest extends CommandTestSupport {
         assertThat(bad.code()).isEqualTo(2);
         assertThat(bad.err()).contains("s.csv").contains("2");
     }
+
+    /** The fast kernel on request: within its printed bound of the exact energies (here exact: halves are exact sums). */
+    @Test
+    void fastKernelOnRequestAndUnknownKernelRefused() throws Exception {
+        IsingProblem p = IsingProblem.builder().field(3, 0.1).field(8, -1).coupling(3, 8, 1.7).offset(0.3).build();
+        Path pf = dir.resolve("p.json");
+        ProblemCodec.write(pf, false, ProblemFile.of(p, null));
+        Path s = dir.resolve("s.npy");
+        byte[] spins = {1, 1, -1, 1, 1, -1, -1, -1};
+        SampleFiles.writeAll(s, p.variables(), false, SampleBlock.fromSpins(spins, 4, 2));
+        Path e = dir.resolve("e.npy");
+        Run fast = obverse("energy", "--problem", pf.toString(), "--samples", s.toString(), "--out", e.toString(),
+                "--kernel", "fast");
+        assertThat(fast.code()).as(fast.err()).isZero();
+        assertThat(fast.out()).contains("fast kernel: each energy within");
+        double bound = org.obverse.samples.EnergyKernel.of(p).tolerance();
+        double[] got = NpyVectors.readFloat64(e, 4);
+        for (int r = 0; r < 4; r++) {
+            double exact = p.energy(new byte[] {spins[2 * r], spins[2 * r + 1]});
+            assertThat(Math.abs(got[r] - exact)).isLessThanOrEqualTo(bound);
+        }
+        Run bad = obverse("energy", "--problem", pf.toString(), "--samples", s.toString(), "--kernel", "quick");
+        assertThat(bad.code()).isEqualTo(2);
+        assertThat(bad.err()).contains("--kernel quick");
+    }
 }

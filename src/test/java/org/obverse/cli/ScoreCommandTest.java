@@ -70,12 +70,13 @@ class ScoreCommandTest extends QuietTest {
         Run r = run("score", "--results", res.toString(), "--ground", gr.toString(), "--out", out.toString(),
                 "--replicates", "200", "--compare", "anneal=40", "anneal=10", "--sweep", "anneal_us");
         assertThat(r.code()).as(r.err()).isZero();
-        assertThat(r.out()).contains("anneal=10").contains("median TTS").contains("anneal=40 vs anneal=10");
+        assertThat(r.out()).contains("anneal=10").contains("TTS (us)").contains("anneal=40 against anneal=10");
         List<String> inst = Files.readAllLines(out.resolve("instances.csv"));
         assertThat(inst.get(0)).startsWith("instance,setting,reads,successes,p_success,tts_us");
         assertThat(inst).hasSize(1 + 24);
         List<String> set = Files.readAllLines(out.resolve("settings.csv"));
-        assertThat(set.get(0)).startsWith("setting,instances,median_tts_us,band_low_us,band_high_us");
+        assertThat(set.get(0)).startsWith("setting,instances,solved_instances,instance_quantile,tts_us,tts_band_low_us,"
+                + "tts_band_high_us,tts_outer_low_us,tts_outer_high_us,observed_tts_us,");
         assertThat(set).hasSize(3);
         assertThat(out.resolve("comparisons.csv")).exists();
         assertThat(out.resolve("sweep.csv")).exists();
@@ -103,21 +104,25 @@ class ScoreCommandTest extends QuietTest {
                 double median = new org.apache.commons.math3.stat.descriptive.rank.Percentile()
                         .withEstimationType(org.apache.commons.math3.stat.descriptive.rank.Percentile.EstimationType.R_7)
                         .evaluate(tts, 50);
-                assertThat(Double.parseDouble(f[2])).isCloseTo(median, within(1e-9 * median));
+                assertThat(Double.parseDouble(f[9])).isCloseTo(median, within(1e-9 * median));
             }
-            assertThat(Double.parseDouble(f[3])).isLessThanOrEqualTo(Double.parseDouble(f[4]));
+            // The headline (median of the replicates) lies inside both bands.
+            assertThat(Double.parseDouble(f[5])).isLessThanOrEqualTo(Double.parseDouble(f[4]));
+            assertThat(Double.parseDouble(f[4])).isLessThanOrEqualTo(Double.parseDouble(f[6]));
+            assertThat(Double.parseDouble(f[7])).isLessThanOrEqualTo(Double.parseDouble(f[5]));
+            assertThat(Double.parseDouble(f[6])).isLessThanOrEqualTo(Double.parseDouble(f[8]));
         }
         // Same seed, same digits; --json prints the same content.
         Run j = run("score", "--results", res.toString(), "--ground", gr.toString(), "--json", "--replicates", "200",
                 "--compare", "anneal=40", "anneal=10", "--sweep", "anneal_us", "--threads", "1");
         assertThat(j.code()).isZero();
         JsonNode doc = new ObjectMapper().readTree(j.out());
-        assertThat(doc.get("format").asText()).isEqualTo("obverse.scores/1");
+        assertThat(doc.get("format").asText()).isEqualTo("obverse.scores/2");
         JsonNode s0 = doc.get("settings").get(0);
         String[] csv0 = set.get(1).split(",");
         assertThat(s0.get("setting").asText()).isEqualTo(csv0[0]);
-        assertThat(s0.get("band_low_us").asDouble()).isEqualTo(Double.parseDouble(csv0[3]));
-        assertThat(s0.get("band_high_us").asDouble()).isEqualTo(Double.parseDouble(csv0[4]));
+        assertThat(s0.get("tts_band_low_us").asDouble()).isEqualTo(Double.parseDouble(csv0[5]));
+        assertThat(s0.get("tts_band_high_us").asDouble()).isEqualTo(Double.parseDouble(csv0[6]));
         // An existing output is not replaced without --force.
         Run again = run("score", "--results", res.toString(), "--ground", gr.toString(), "--out", out.toString());
         assertThat(again.code()).isEqualTo(2);

@@ -39,6 +39,68 @@ class EnergyKernelTest extends QuietTest {
         });
     }
 
+    /**
+     * Problems on a grid of 2^q with terms up to 2^50 grid steps (some past the bound, where the
+     * exact kernel keeps its per-read order), zero energies and a −0.0 offset included: the
+     * exact kernel equals the per-read definition on the raw bits whichever way it computes.
+     */
+    @Test
+    void exactKernelRegroupsOnlyWhereNoSumRoundsAndKeepsTheBits() {
+        int[] regrouped = new int[2];
+        Seeds.forEachCase(300, 15_000, (rng, seed) -> {
+            int q = rng.nextInt(61) - 30;
+            int magnitudeBits = rng.nextBoolean() ? 1 + rng.nextInt(8) : 45 + rng.nextInt(6);
+            int n = 1 + rng.nextInt(70);
+            double[] h = new double[n];
+            for (int k = 0; k < n; k++) {
+                h[k] = rng.nextInt(3) == 0 ? 0.0 : Math.scalb((double) (rng.nextLong() >> (64 - magnitudeBits)), q);
+            }
+            int cap = n * (n - 1) / 2;
+            int[] u = new int[cap];
+            int[] v = new int[cap];
+            double[] j = new double[cap];
+            double density = rng.nextDouble() * 0.3;
+            int e = 0;
+            for (int x = 0; x < n; x++) {
+                for (int y = x + 1; y < n; y++) {
+                    if (rng.nextDouble() < density) {
+                        u[e] = x;
+                        v[e] = y;
+                        j[e++] = Math.scalb((double) (rng.nextLong() >> (64 - magnitudeBits)), q);
+                    }
+                }
+            }
+            double offset = rng.nextInt(4) == 0 ? -0.0 : Math.scalb((double) (rng.nextInt(2001) - 1000), q);
+            int[] ids = java.util.stream.IntStream.range(0, n).toArray();
+            IsingProblem p = IsingProblem.of(org.obverse.model.VariableIndex.of(ids), h, java.util.Arrays.copyOf(u, e),
+                    java.util.Arrays.copyOf(v, e), java.util.Arrays.copyOf(j, e), offset);
+            int reads = 1 + rng.nextInt(200);
+            byte[] s = GeneratedProblems.spins(rng, reads * n);
+            ExactEnergy exact = (ExactEnergy) EnergyKernel.exact(p);
+            regrouped[exact.regroups() ? 1 : 0]++;
+            double[] got = exact.copy().energies(SampleBlock.fromSpins(s, reads, n));
+            for (int r = 0; r < reads; r++) {
+                assertThat(bits(got[r])).as("read %d, regrouped %s", r, exact.regroups())
+                        .isEqualTo(bits(p.energy(GeneratedProblems.row(s, r, n))));
+            }
+        });
+        // Both ways are exercised: small magnitudes regroup, 50-bit ones mostly do not.
+        assertThat(regrouped[0]).isGreaterThan(30);
+        assertThat(regrouped[1]).isGreaterThan(100);
+    }
+
+    @Test
+    void exactKernelRegroupsIntegerAndHalfIntegerProblemsButNotGaussianOnes() {
+        int[] ids = {0, 1, 2};
+        IsingProblem halves = IsingProblem.of(org.obverse.model.VariableIndex.of(ids), new double[] {0.5, -0.25, 0},
+                new int[] {0, 1}, new int[] {1, 2}, new double[] {1, -1}, 0.0);
+        IsingProblem real = IsingProblem.of(org.obverse.model.VariableIndex.of(ids), new double[] {0.1, 0, 0},
+                new int[] {0}, new int[] {1}, new double[] {1}, 0.0);
+        assertThat(((ExactEnergy) EnergyKernel.exact(halves)).regroups()).isTrue();
+        assertThat(((ExactEnergy) EnergyKernel.exact(real)).regroups()).isFalse();
+        assertThat(EnergyKernel.exact(halves).tolerance()).isZero();
+    }
+
     @Test
     void fastKernelsAgreeWithExactWithinTheStatedTolerance() {
         Seeds.forEachCase(150, 20_000, (rng, seed) -> {

@@ -183,4 +183,31 @@ class BiasDiagnosticsTest extends QuietTest {
             assertThat(r0).containsExactly((long) reads);
         });
     }
+
+    @Test
+    void aLockedCouplerIsNotTestedWhateverItsCorrelation() {
+        // Two couplers over 8 gauges of 500 reads: coupler 0 is locked (sign +1 in every gauge,
+        // as a chain coupler is) and fully correlated, which a test would flag at any level;
+        // coupler 1 is flipped by the gauges and unbiased. Bonferroni over tested items only
+        // (common practice, no source): one tested item, so the threshold is Φ⁻¹(1 − α/2).
+        int gauges = 8;
+        double[][] sums = new double[gauges][2];
+        long[][] reads = new long[gauges][2];
+        byte[][] signs = new byte[gauges][2];
+        for (int g = 0; g < gauges; g++) {
+            reads[g][0] = 500;
+            reads[g][1] = 500;
+            sums[g][0] = 500;
+            signs[g][0] = 1;
+            signs[g][1] = (byte) (g % 2 == 0 ? 1 : -1);
+            sums[g][1] = signs[g][1] * 100;
+        }
+        BiasDiagnostics.Result res = BiasDiagnostics.diagnose(sums, reads, signs, 0.01);
+        assertThat(res.flagged()).isEmpty();
+        assertThat(res.items()).hasSize(2);
+        assertThat(res.items().get(0).item()).isEqualTo(1);
+        assertThat(res.items().get(1).flipped()).isFalse();
+        assertThat(res.threshold()).isCloseTo(new org.apache.commons.math3.distribution.NormalDistribution()
+                .inverseCumulativeProbability(1 - 0.005), org.assertj.core.api.Assertions.within(1e-9));
+    }
 }
