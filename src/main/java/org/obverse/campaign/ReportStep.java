@@ -118,6 +118,15 @@ public final class ReportStep {
         if (couplerBias != null) {
             figures.add(ReportPlots.couplerMap(couplerBias, couplers.size()));
         }
+        // A campaign on the path-integral sampler: success against the pause location beside the gap.
+        List<String> pauseGapTables = new ArrayList<>();
+        for (Path folder : campaignFolders(r.scoring().results())) {
+            PauseGapStep.Result pg = PauseGapStep.run(new PauseGapStep.Request(folder, PAUSE_GAP_FIGURES));
+            if (pg.skipped() == null) {
+                figures.addAll(pg.figures());
+                pauseGapTables.add(pg.table());
+            }
+        }
         String results = String.join(", ", scored.results().stream().map(Path::toString).toList());
         String ground = scored.ground() == null ? null : scored.ground().toString();
         String html = HtmlReport.page(scored.summary(), tables, new HtmlReport.Inputs(results, ground, scored.rule(),
@@ -133,9 +142,30 @@ public final class ReportStep {
                 Files.writeString(plots.resolve(f.name() + ".svg"), f.svg());
             }
             ScoreFiles.writeCsv(dir, tables);
+            for (int k = 0; k < pauseGapTables.size(); k++) {
+                Files.writeString(dir.resolve(k == 0 ? "pause_gap.csv" : "pause_gap-" + k + ".csv"),
+                        pauseGapTables.get(k));
+            }
             Files.writeString(dir.resolve("scores.json"), json);
         });
         return new Result(scored, r.out().resolve(PAGE), figures.size(), bias, couplerBias);
+    }
+
+    /** Figures of success against the pause location beside the gap, at most, per campaign folder. */
+    static final int PAUSE_GAP_FIGURES = 6;
+
+    /** The prepared campaign folders among the scored inputs (a folder, or the folder of its results.csv). */
+    private static List<Path> campaignFolders(List<Path> inputs) {
+        List<Path> out = new ArrayList<>();
+        for (Path p : inputs) {
+            Path folder = Files.isDirectory(p) ? p : p.toAbsolutePath().getParent();
+            if (folder != null && CampaignFolder.isPrepared(folder)
+                    && (Files.isDirectory(p) || p.getFileName().toString().equals(CampaignFolder.RESULTS))
+                    && !out.contains(folder)) {
+                out.add(folder);
+            }
+        }
+        return out;
     }
 
     /** The cell lattice a device file records under meta.lattice (written by 'device lattice'), or null. */
