@@ -83,82 +83,41 @@ public final class CampaignCollectStep {
     }
 
     public static Result run(Request r, StepProgress progress) throws IOException {
+        return run(r, CampaignEngine.local(r.threads()), progress);
+    }
+
+    /** Collect a campaign, its jobs collected by the given engine and merged here by job index. */
+    public static Result run(Request r, CampaignEngine engine, StepProgress progress) throws IOException {
         CampaignFolder folder = CampaignFolder.open(r.folder());
         CampaignPlan plan = folder.plan();
         List<JobTable.Job> jobs = folder.jobs();
-        ChainBreakRule rule = ChainBreakRule.named(plan.decode());
+        ChainBreakRule.named(plan.decode()); // refuses an unknown rule before any work
         Map<String, String> manifestFailures = auditManifests(folder, jobs);
-        Map<String, Logical> logical = new LinkedHashMap<>();
-        for (CampaignPlan.Instance i : plan.instances()) {
-            ChainList list = ChainsCodec.read(folder.resolve(CampaignFolder.chainsFile(i.name())));
-            logical.put(i.name(), new Logical(ProblemCodec.read(i.problem()).spin(),
-                    Chains.of(list.logicalIds(), list.qubitGroups())));
-        }
-        Map<String, ProblemFile> problems = new ConcurrentHashMap<>();
-        Map<String, GaugeManifest> manifests = new ConcurrentHashMap<>();
         String[] rows = new String[jobs.size()];
         String[] failures = new String[jobs.size()];
         long[] reads = new long[jobs.size()];
         boolean[] present = new boolean[jobs.size()];
         double[] best = new double[jobs.size()];
-        for (int k = 0; k < jobs.size(); k++) {
-            present[k] = rawFile(folder, jobs.get(k)) != null;
-        }
+        int[] work = new int[jobs.size()];
         int total = 0;
-        for (boolean p : present) {
-            total += p ? 1 : 0;
+        for (int k = 0; k < jobs.size(); k++) {
+            JobTable.Job j = jobs.get(k);
+            present[k] = rawFile(folder, j) != null;
+            String mf = j.manifest().isEmpty() ? null : manifestFailures.get(j.manifest());
+            if (present[k] && mf != null) {
+                failures[k] = j.id() + ": " + mf;
+            } else if (present[k]) {
+                work[total++] = k;
+            }
         }
-        IntConsumer tick = total == 0 ? null : progress.start("collecting", total, 0);
-        AtomicInteger done = new AtomicInteger();
-        int threads = Math.max(1, r.threads());
-        ExecutorService pool = Executors.newFixedThreadPool(threads, runnable -> {
-            Thread t = new Thread(runnable, "campaign-collector");
-            t.setDaemon(true);
-            return t;
-        });
-        try {
-            List<Future<?>> futures = new ArrayList<>();
-            for (int k = 0; k < jobs.size(); k++) {
-                if (!present[k]) {
-                    continue;
-                }
-                int index = k;
-                futures.add(pool.submit(() -> {
-                    JobTable.Job j = jobs.get(index);
-                    String mf = j.manifest().isEmpty() ? null : manifestFailures.get(j.manifest());
-                    if (mf != null) {
-                        failures[index] = j.id() + ": " + mf;
-                    } else {
-                        Collected c = collectJob(folder, j, index, plan, rule, logical.get(j.instance()), problems,
-                                manifests);
-                        rows[index] = c.rows;
-                        failures[index] = c.failure;
-                        reads[index] = c.reads;
-                        best[index] = c.best;
-                    }
-                    if (tick != null) {
-                        tick.accept(done.incrementAndGet());
-                    }
-                    return null;
-                }));
+        if (total > 0) {
+            IntConsumer tick = progress.start("collecting", total, 0);
+            for (JobRows c : engine.collect(folder, java.util.Arrays.copyOf(work, total), tick)) {
+                rows[c.index()] = c.rows();
+                failures[c.index()] = c.failure();
+                reads[c.index()] = c.reads();
+                best[c.index()] = c.best();
             }
-            for (Future<?> f : futures) {
-                f.get();
-            }
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            throw new IOException("interrupted while collecting", e);
-        } catch (ExecutionException e) {
-            Throwable c = e.getCause();
-            if (c instanceof RuntimeException re) {
-                throw re;
-            }
-            if (c instanceof IOException io) {
-                throw io;
-            }
-            throw new IllegalStateException(c);
-        } finally {
-            pool.shutdownNow();
         }
 
         java.io.StringWriter header = new java.io.StringWriter();
@@ -206,9 +165,104 @@ public final class CampaignCollectStep {
     private record Logical(IsingProblem problem, Chains chains) {
     }
 
-    private record Collected(String rows, String failure, long reads, double best) {
-        static Collected failed(String why) {
-            return new Collected(null, why, 0, Double.NaN);
+    /**
+     * What collecting one job gave: its results rows as text (null where it failed), or the
+     * line saying why it failed; its reads; its least logical energy (NaN where none).
+     * Serializable, so a cluster task can hand it back.
+     */
+    public record JobRows(int index, String rows, String failure, long reads, double best)
+            implements java.io.Serializable {
+        static JobRows failed(int index, String why) {
+            return new JobRows(index, null, why, 0, Double.NaN);
+        }
+    }
+
+    /**
+     * Collects single jobs of a campaign folder — un-gauge, audit, decode, rows, and the job's
+     * {@code decoded/} files — reading each shared input (logical problems, chains, gauged
+     * problems, manifests) once. The work of one job on any engine; safe to use from many
+     * threads. Doing a job twice rewrites the same bytes and gives the same rows.
+     */
+    public static final class JobCollector {
+        private final CampaignFolder folder;
+        private final CampaignPlan plan;
+        private final List<JobTable.Job> jobs;
+        private final ChainBreakRule rule;
+        private final Map<String, Logical> logical = new ConcurrentHashMap<>();
+        private final Map<String, ProblemFile> problems = new ConcurrentHashMap<>();
+        private final Map<String, GaugeManifest> manifests = new ConcurrentHashMap<>();
+
+        private JobCollector(CampaignFolder folder) throws IOException {
+            this.folder = folder;
+            this.plan = folder.plan();
+            this.jobs = folder.jobs();
+            this.rule = ChainBreakRule.named(plan.decode());
+        }
+
+        public static JobCollector open(CampaignFolder folder) throws IOException {
+            return new JobCollector(folder);
+        }
+
+        /** Collects the job at this index of jobs.csv, whose raw samples must be present. */
+        public JobRows collect(int index) throws IOException {
+            JobTable.Job j = jobs.get(index);
+            Logical l = logical.computeIfAbsent(j.instance(), this::readLogical);
+            return collectJob(folder, j, index, plan, rule, l, problems, manifests);
+        }
+
+        private Logical readLogical(String instance) {
+            for (CampaignPlan.Instance i : plan.instances()) {
+                if (i.name().equals(instance)) {
+                    ChainList list = ChainsCodec.read(folder.resolve(CampaignFolder.chainsFile(i.name())));
+                    return new Logical(ProblemCodec.read(i.problem()).spin(),
+                            Chains.of(list.logicalIds(), list.qubitGroups()));
+                }
+            }
+            throw BadInputException.at(folder.resolve(CampaignFolder.JOBS), "", "names instance " + instance
+                    + ", which the plan does not list", "prepare the folder again from its plan");
+        }
+    }
+
+    /** The local engine's collecting: a pool of threads, one job a thread at a time. */
+    static List<JobRows> collectOnThreads(CampaignFolder folder, int[] indices, int threads, IntConsumer tick)
+            throws IOException {
+        JobCollector collector = JobCollector.open(folder);
+        AtomicInteger done = new AtomicInteger();
+        ExecutorService pool = Executors.newFixedThreadPool(Math.max(1, threads), runnable -> {
+            Thread t = new Thread(runnable, "campaign-collector");
+            t.setDaemon(true);
+            return t;
+        });
+        try {
+            List<Future<JobRows>> futures = new ArrayList<>();
+            for (int index : indices) {
+                futures.add(pool.submit(() -> {
+                    JobRows c = collector.collect(index);
+                    if (tick != null) {
+                        tick.accept(done.incrementAndGet());
+                    }
+                    return c;
+                }));
+            }
+            List<JobRows> out = new ArrayList<>(indices.length);
+            for (Future<JobRows> f : futures) {
+                out.add(f.get());
+            }
+            return out;
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IOException("interrupted while collecting", e);
+        } catch (ExecutionException e) {
+            Throwable c = e.getCause();
+            if (c instanceof RuntimeException re) {
+                throw re;
+            }
+            if (c instanceof IOException io) {
+                throw io;
+            }
+            throw new IllegalStateException(c);
+        } finally {
+            pool.shutdownNow();
         }
     }
 
@@ -245,14 +299,14 @@ public final class CampaignCollectStep {
         return Files.isRegularFile(csv) ? csv : null;
     }
 
-    private static Collected collectJob(CampaignFolder folder, JobTable.Job j, int index, CampaignPlan plan,
+    private static JobRows collectJob(CampaignFolder folder, JobTable.Job j, int index, CampaignPlan plan,
                                         ChainBreakRule rule, Logical logical, Map<String, ProblemFile> problems,
                                         Map<String, GaugeManifest> manifests) throws IOException {
         Path raw = rawFile(folder, j);
         ProblemFile gaugedFile = problems.computeIfAbsent(j.problem(), p -> ProblemCodec.read(folder.resolve(p)));
         String hash = ProblemCodec.contentHash(gaugedFile);
         if (!hash.equals(j.problemSha256())) {
-            return Collected.failed(j.id() + ": " + j.problem() + " has content hash " + hash.substring(0, 12)
+            return JobRows.failed(index, j.id() + ": " + j.problem() + " has content hash " + hash.substring(0, 12)
                     + "…, jobs.csv records " + j.problemSha256().substring(0, 12) + "…");
         }
         IsingProblem gauged = gaugedFile.spin();
@@ -273,14 +327,14 @@ public final class CampaignCollectStep {
         try {
             block = SampleFiles.readAll(raw, gauged.variables());
         } catch (BadInputException e) {
-            return Collected.failed(j.id() + ": " + e.getMessage());
+            return JobRows.failed(index, j.id() + ": " + e.getMessage());
         }
         double[] deviceFrame = EnergyKernel.exact(gauged).energies(block);
         SpinFlip.of(gauged.size(), flipped).applyInPlace(block);
         double[] sourceFrame = EnergyKernel.exact(physical).energies(block);
         for (int r = 0; r < deviceFrame.length; r++) {
             if (Double.doubleToRawLongBits(deviceFrame[r]) != Double.doubleToRawLongBits(sourceFrame[r])) {
-                return Collected.failed(j.id() + ": read " + r + " has energy " + deviceFrame[r]
+                return JobRows.failed(index, j.id() + ": read " + r + " has energy " + deviceFrame[r]
                         + " under the gauged problem but " + sourceFrame[r] + " un-gauged: the gauge changed an energy");
             }
         }
@@ -290,12 +344,12 @@ public final class CampaignCollectStep {
             try {
                 rep = NpyVectors.readFloat64(reported, deviceFrame.length);
             } catch (BadInputException e) {
-                return Collected.failed(j.id() + ": " + e.getMessage());
+                return JobRows.failed(index, j.id() + ": " + e.getMessage());
             }
             double tol = ManifestAudit.REPORTED_RELATIVE_TOLERANCE * ManifestAudit.termScale(gauged);
             for (int r = 0; r < rep.length; r++) {
                 if (!(Math.abs(rep[r] - deviceFrame[r]) <= tol)) {
-                    return Collected.failed(j.id() + ": read " + r + " reports energy " + rep[r] + " but its sample has "
+                    return JobRows.failed(index, j.id() + ": read " + r + " reports energy " + rep[r] + " but its sample has "
                             + deviceFrame[r] + " (tolerance " + tol + ")");
                 }
             }
@@ -315,7 +369,7 @@ public final class CampaignCollectStep {
         for (double e : d.energies()) {
             best = Double.isNaN(best) ? e : Math.min(best, e);
         }
-        return new Collected(text.toString(), null, d.reads(), best);
+        return new JobRows(index, text.toString(), null, d.reads(), best);
     }
 
     /**

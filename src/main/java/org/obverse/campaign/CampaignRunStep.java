@@ -64,6 +64,11 @@ public final class CampaignRunStep {
     }
 
     public static Result run(Request r, StepProgress progress) throws IOException {
+        return run(r, CampaignEngine.local(r.threads()), progress);
+    }
+
+    /** Run a campaign, its jobs sampled and collected by the given engine. */
+    public static Result run(Request r, CampaignEngine engine, StepProgress progress) throws IOException {
         Path dir;
         CampaignPrepareStep.Result prepared = null;
         if (Files.isDirectory(r.source())) {
@@ -106,15 +111,17 @@ public final class CampaignRunStep {
                 todo.add(j);
             }
         }
-        SamplerSettings base = baseSettings(plan);
+        baseSettings(plan); // reads the sampler's files (errors, energy scales) before any work: a bad one stops here
         long work = 0;
         for (JobTable.Job j : todo) {
             work += (long) j.reads() * (long) Math.ceil(j.runUs() * plan.sampler().sweepsPerUs());
         }
         IntConsumer tick = todo.isEmpty() ? null : progress.start("sampling", todo.size(), work);
-        sample(folder, todo, base, Math.max(1, r.threads()), tick);
+        if (!todo.isEmpty()) {
+            engine.sample(folder, todo, tick);
+        }
         CampaignCollectStep.Result collected = CampaignCollectStep.run(
-                new CampaignCollectStep.Request(dir, r.threads()), progress);
+                new CampaignCollectStep.Request(dir, r.threads()), engine, progress);
         return new Result(dir, prepared, todo.size(), jobs.size() - todo.size(), collected);
     }
 
@@ -138,7 +145,7 @@ public final class CampaignRunStep {
     }
 
     /** The sampler the plan names: sa (the reference sampler) or sqa (the path-integral sampler). */
-    static SamplerSettings baseSettings(CampaignPlan plan) throws IOException {
+    public static SamplerSettings baseSettings(CampaignPlan plan) throws IOException {
         CampaignPlan.Sampler s = plan.sampler();
         SamplerSettings settings = SamplerSettings.defaults().withSweepsPerMicrosecond(s.sweepsPerUs()).withThreads(1);
         if (s.errors() != null) {
@@ -155,11 +162,33 @@ public final class CampaignRunStep {
         return settings;
     }
 
-    private static void sample(CampaignFolder folder, List<JobTable.Job> todo, SamplerSettings base, int threads,
-                               IntConsumer tick) throws IOException {
+    /**
+     * Samples one job into its raw file (energies first, samples last, each whole by rename): the
+     * work of one job on any engine. Its bytes depend only on the job's seed, so doing it twice
+     * rewrites the same bytes.
+     *
+     * @param settings the plan's {@link #baseSettings}, with the thread count this job may use
+     */
+    public static void sampleJob(CampaignFolder folder, JobTable.Job job, SamplerSettings settings)
+            throws IOException {
+        sampleJob(folder, job, settings, ProblemCodec.read(folder.resolve(job.problem())),
+                ScheduleCodec.readTable(folder.resolve(job.scheduleFile())));
+    }
+
+    private static void sampleJob(CampaignFolder folder, JobTable.Job j, SamplerSettings settings, ProblemFile pf,
+                                  AnnealSchedule a) throws IOException {
+        // Energies first, samples last: a job counts as done only once its samples file appears.
+        SampleStep.sampleInto(pf, settings.withSchedule(a), j.reads(), j.seed(), folder.resolve(j.raw()),
+                SampleCoding.SPIN, true);
+    }
+
+    /** The local engine's sampling: a pool of threads, one job a thread at a time. */
+    static void sampleOnThreads(CampaignFolder folder, List<JobTable.Job> todo, int threads, IntConsumer tick)
+            throws IOException {
         if (todo.isEmpty()) {
             return;
         }
+        SamplerSettings base = baseSettings(folder.plan());
         Map<String, ProblemFile> problems = new ConcurrentHashMap<>();
         Map<String, AnnealSchedule> schedules = new ConcurrentHashMap<>();
         AtomicInteger done = new AtomicInteger();
@@ -177,9 +206,7 @@ public final class CampaignRunStep {
                 futures.add(pool.submit(() -> {
                     ProblemFile pf = problems.computeIfAbsent(j.problem(), p -> ProblemCodec.read(folder.resolve(p)));
                     AnnealSchedule a = schedules.computeIfAbsent(j.scheduleFile(), f -> readSchedule(folder.resolve(f)));
-                    // Energies first, samples last: a job counts as done only once its samples file appears.
-                    SampleStep.sampleInto(pf, perJob.withSchedule(a), j.reads(), j.seed(), folder.resolve(j.raw()),
-                            SampleCoding.SPIN, true);
+                    sampleJob(folder, j, perJob, pf, a);
                     if (tick != null) {
                         tick.accept(done.incrementAndGet());
                     }

@@ -4,10 +4,12 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.obverse.campaign.CampaignCollectStep;
+import org.obverse.campaign.CampaignEngine;
 import org.obverse.campaign.CampaignPrepareStep;
 import org.obverse.campaign.CampaignRunStep;
 import org.obverse.campaign.StepProgress;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -105,11 +107,17 @@ public final class CampaignCommand implements Runnable {
         @Option(names = "--quiet", description = "no progress lines")
         boolean quiet;
 
+        @Mixin
+        EngineOptions engine;
+
         @Override
         public Integer call() throws Exception {
             long start = System.nanoTime();
-            CampaignRunStep.Result r = CampaignRunStep.run(new CampaignRunStep.Request(source, out, force,
-                    threads(threads)), progress(spec, quiet));
+            CampaignRunStep.Result r;
+            try (CampaignEngine e = engine.open(threads(threads))) {
+                r = CampaignRunStep.run(new CampaignRunStep.Request(source, out, force, threads(threads)), e,
+                        progress(spec, quiet));
+            }
             PrintWriter w = spec.commandLine().getOut();
             if (r.prepared() != null) {
                 r.prepared().notes().forEach(w::println);
@@ -142,10 +150,16 @@ public final class CampaignCommand implements Runnable {
         @Option(names = "--quiet", description = "no progress lines")
         boolean quiet;
 
+        @Mixin
+        EngineOptions engine;
+
         @Override
         public Integer call() throws Exception {
-            CampaignCollectStep.Result r = CampaignCollectStep.run(new CampaignCollectStep.Request(dir, threads(threads)),
-                    progress(spec, quiet));
+            CampaignCollectStep.Result r;
+            try (CampaignEngine e = engine.open(threads(threads))) {
+                r = CampaignCollectStep.run(new CampaignCollectStep.Request(dir, threads(threads)), e,
+                        progress(spec, quiet));
+            }
             return print(spec.commandLine().getOut(), r);
         }
 
@@ -159,6 +173,70 @@ public final class CampaignCommand implements Runnable {
             w.printf("audit: %d failed; their reads are left out of the table:%n", r.failures().size());
             r.failures().forEach(f -> w.println("FAILED " + f));
             return Main.CHECK_FAILED;
+        }
+    }
+
+    /** {@code --engine local|spark}, {@code --master URL}, {@code --jobs-per-task N} of run and collect. */
+    static final class EngineOptions {
+        /** A class every Spark installation has; absent when obverse runs from its own jar alone. */
+        static final String SPARK_PROBE = "org.apache.spark.api.java.JavaSparkContext";
+
+        @Option(names = "--engine", paramLabel = "local|spark", defaultValue = "local",
+                description = "where the jobs run: local (this process's threads; the default) or spark (Apache Spark "
+                        + "tasks; launch obverse through spark-submit); never changes the output")
+        String name;
+
+        @Option(names = "--master", paramLabel = "URL",
+                description = "with --engine spark: the Spark master (local[2], spark://host:7077, yarn …); default: "
+                        + "the one spark-submit sets")
+        String master;
+
+        @Option(names = "--jobs-per-task", paramLabel = "N",
+                description = "with --engine spark: jobs in one Spark task (default 1); never changes the output")
+        Integer jobsPerTask;
+
+        CampaignEngine open(int threads) {
+            switch (name) {
+                case "local" -> {
+                    if (master != null || jobsPerTask != null) {
+                        throw new org.obverse.io.BadInputException((master != null ? "--master" : "--jobs-per-task")
+                                + " has a meaning only with --engine spark");
+                    }
+                    return CampaignEngine.local(threads);
+                }
+                case "spark" -> {
+                    if (jobsPerTask != null && jobsPerTask < 1) {
+                        throw new org.obverse.io.BadInputException("--jobs-per-task " + jobsPerTask
+                                + ": need at least 1");
+                    }
+                    if (!sparkPresent()) {
+                        throw new org.obverse.io.BadInputException("--engine spark: Apache Spark is not on the class "
+                                + "path; launch through spark-submit: spark-submit --class org.obverse.cli.Main "
+                                + "obverse-cli.jar campaign ... --engine spark (README: Campaigns on Spark)");
+                    }
+                    return SparkStart.start(master, jobsPerTask == null ? 1 : jobsPerTask);
+                }
+                default -> throw new org.obverse.io.BadInputException("--engine " + name + ": use local or spark");
+            }
+        }
+
+        static boolean sparkPresent() {
+            try {
+                Class.forName(SPARK_PROBE, false, CampaignCommand.class.getClassLoader());
+                return true;
+            } catch (ClassNotFoundException | LinkageError e) {
+                return false;
+            }
+        }
+    }
+
+    /** Kept apart so the Spark engine's class is touched only once Spark is known to be there. */
+    static final class SparkStart {
+        private SparkStart() {
+        }
+
+        static CampaignEngine start(String master, int jobsPerTask) {
+            return org.obverse.campaign.spark.SparkCampaignEngine.start(master, jobsPerTask);
         }
     }
 

@@ -1,0 +1,224 @@
+package org.obverse.campaign.spark;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.util.Map;
+import java.util.TreeMap;
+import java.util.concurrent.atomic.AtomicInteger;
+import java.util.stream.Stream;
+import org.apache.spark.SparkConf;
+import org.apache.spark.Success$;
+import org.apache.spark.api.java.JavaSparkContext;
+import org.apache.spark.scheduler.SparkListener;
+import org.apache.spark.scheduler.SparkListenerTaskEnd;
+import org.junit.jupiter.api.AfterAll;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.obverse.campaign.CampaignCollectStep;
+import org.obverse.campaign.CampaignEngine;
+import org.obverse.campaign.CampaignFolder;
+import org.obverse.campaign.CampaignPrepareStep;
+import org.obverse.campaign.CampaignRunStep;
+import org.obverse.campaign.StepProgress;
+import org.obverse.testsupport.QuietTest;
+
+/**
+ * The Spark engine against the local one, on one Spark session in this JVM ({@code local[2,2]}:
+ * two worker threads, a failed task tried once more). The property judged is the engine's whole
+ * promise: the same plan gives the same bytes — results table, raw and decoded files, ground
+ * table, audit — on either engine, in any number of partitions, with tasks that fail once and
+ * are retried, and with every job done twice. The oracle is the local engine (common practice,
+ * no source), whose own table is checked against plain recomputation in CampaignCommandTest.
+ */
+class SparkCampaignEngineTest extends QuietTest {
+    private static JavaSparkContext sc;
+
+    /** The plan prepared once (preparing finds chains: the slow part); each test runs copies of it. */
+    @TempDir
+    static Path shared;
+
+    private static Path prepared;
+
+    /** Every output of the local engine on the prepared plan. */
+    private static Map<String, byte[]> expected;
+
+    @TempDir
+    Path dir;
+
+    /** A frustrated triangle: on the example device's ring graph it needs a chain. Invented values. */
+    private static final String TRIANGLE = """
+            {"format": "obverse.problem/1", "domain": "spin",
+             "h": [[0, %s], [1, -0.2], [2, 0.1]], "J": [[0, 1, 0.8], [1, 2, -0.6], [0, 2, 0.5]], "offset": 0.1}
+            """;
+
+    /** 2 instances × 2 chain couplings × 3 schedules × (3 gauges + the ungauged reference) = 48 jobs. */
+    private static final String PLAN = """
+            {"format": "obverse.campaign/1",
+             "instances": [{"name": "tri-a", "problem": "tri-a.json"}, {"name": "tri-b", "problem": "tri-b.json"}],
+             "device": "device.json",
+             "chain_couplings": [-1.2, -1.8],
+             "schedules": {"anneal_us": [1], "pause_s": [0.3, 0.6], "pause_us": [0.5], "baseline": true},
+             "gauges": {"count": 3, "design": "random", "ungauged_reference": true},
+             "reads": 40,
+             "decode": "majority",
+             "sampler": {"kind": "sa", "sweeps_per_us": 60, "errors": "errors.json"},
+             "seed": 11}
+            """;
+
+    private static final StepProgress SILENT = (phase, total, work) -> null;
+
+    @BeforeAll
+    static void startSparkAndRunLocally() throws IOException {
+        sc = new JavaSparkContext(new SparkConf().setMaster("local[2,2]").setAppName("obverse engine test")
+                .set("spark.ui.enabled", "false").set("spark.driver.host", "127.0.0.1"));
+        prepared = shared.resolve("prepared");
+        CampaignPrepareStep.run(new CampaignPrepareStep.Request(plan(shared), prepared, false, 2), SILENT);
+        Path local = copy(prepared, shared.resolve("local"));
+        CampaignRunStep.Result l = CampaignRunStep.run(new CampaignRunStep.Request(local, null, false, 2),
+                CampaignEngine.local(2), SILENT);
+        assertThat(l.sampled()).isEqualTo(48);
+        assertThat(l.collect().allPassed()).isTrue();
+        expected = outputs(local);
+        // 48 jobs: 48 raw + 48 energies + 3 × 48 decoded files, and the four tables.
+        assertThat(expected).hasSize(48 * 5 + 4);
+    }
+
+    @AfterAll
+    static void stopSpark() {
+        if (sc != null) {
+            sc.stop();
+        }
+    }
+
+    private static Path plan(Path dir) throws IOException {
+        Files.writeString(dir.resolve("tri-a.json"), String.format(TRIANGLE, "0.3"));
+        Files.writeString(dir.resolve("tri-b.json"), String.format(TRIANGLE, "-0.45"));
+        Files.copy(Path.of("examples/device.json"), dir.resolve("device.json"), StandardCopyOption.REPLACE_EXISTING);
+        Files.copy(Path.of("examples/errors.json"), dir.resolve("errors.json"), StandardCopyOption.REPLACE_EXISTING);
+        Path p = dir.resolve("plan.json");
+        Files.writeString(p, PLAN);
+        return p;
+    }
+
+    /** Runs a fresh copy of the prepared folder. */
+    private CampaignRunStep.Result run(Path out, CampaignEngine engine) throws IOException {
+        return CampaignRunStep.run(new CampaignRunStep.Request(copy(prepared, out), null, false, 2), engine, SILENT);
+    }
+
+    private static Path copy(Path from, Path to) throws IOException {
+        try (Stream<Path> s = Files.walk(from)) {
+            for (Path p : (Iterable<Path>) s::iterator) {
+                Path q = to.resolve(from.relativize(p).toString());
+                if (Files.isDirectory(p)) {
+                    Files.createDirectories(q);
+                } else {
+                    Files.copy(p, q);
+                }
+            }
+        }
+        return to;
+    }
+
+    /** Every file the run writes (raw, decoded, tables), by path relative to the folder, as bytes. */
+    private static Map<String, byte[]> outputs(Path folder) throws IOException {
+        Map<String, byte[]> out = new TreeMap<>();
+        for (String sub : new String[] {"raw", "decoded"}) {
+            try (Stream<Path> s = Files.list(folder.resolve(sub))) {
+                for (Path p : (Iterable<Path>) s::iterator) {
+                    out.put(sub + "/" + p.getFileName(), Files.readAllBytes(p));
+                }
+            }
+        }
+        for (String f : new String[] {"jobs.csv", "results.csv", "ground.csv", "audit.txt"}) {
+            out.put(f, Files.readAllBytes(folder.resolve(f)));
+        }
+        return out;
+    }
+
+    private static void assertSameBytes(Map<String, byte[]> actual, Map<String, byte[]> expected) {
+        assertThat(actual.keySet()).isEqualTo(expected.keySet());
+        for (Map.Entry<String, byte[]> e : expected.entrySet()) {
+            assertThat(actual.get(e.getKey())).as(e.getKey()).isEqualTo(e.getValue());
+        }
+    }
+
+    /** Counts task attempts that ended other than in success while it is registered. */
+    private static final class FailedTasks extends SparkListener implements AutoCloseable {
+        final AtomicInteger failed = new AtomicInteger();
+
+        FailedTasks() {
+            sc.sc().addSparkListener(this);
+        }
+
+        @Override
+        public void onTaskEnd(SparkListenerTaskEnd end) {
+            if (end.reason() != Success$.MODULE$) {
+                failed.incrementAndGet();
+            }
+        }
+
+        @Override
+        public void close() {
+            sc.sc().removeSparkListener(this);
+        }
+    }
+
+    @Test
+    void bothEnginesAndAnyPartitioningGiveTheSameBytes() throws IOException {
+        Path spark = dir.resolve("spark");
+        CampaignRunStep.Result s = run(spark, SparkCampaignEngine.on(sc, 1));
+        assertThat(s.sampled()).isEqualTo(48);
+        assertThat(s.collect().collected()).isEqualTo(48);
+        assertThat(s.collect().reads()).isEqualTo(2L * 2 * 3 * (3 * 40 + 3 * 40));
+        assertSameBytes(outputs(spark), expected);
+
+        // Sampled and collected in uneven partitions: 7 jobs a task, so 7 tasks, the last of 6.
+        Path seven = dir.resolve("spark-7");
+        run(seven, SparkCampaignEngine.on(sc, 7));
+        assertSameBytes(outputs(seven), expected);
+
+        // Collected again in 10 tasks and in one: the same table, however the rows come back.
+        for (int perTask : new int[] {5, 100}) {
+            CampaignCollectStep.Result c = CampaignCollectStep.run(new CampaignCollectStep.Request(spark, 2),
+                    SparkCampaignEngine.on(sc, perTask), SILENT);
+            assertThat(c.collected()).isEqualTo(48);
+            assertSameBytes(outputs(spark), expected);
+        }
+    }
+
+    @Test
+    void tasksThatFailOnceAndJobsDoneTwiceLoseAndRepeatNoRow() throws IOException {
+        // What a killed run leaves: a stray temporary file, and an energies file whose samples never came.
+        Path spark = copy(prepared, dir.resolve("spark"));
+        Files.createDirectories(spark.resolve("raw"));
+        Files.write(spark.resolve("raw/.j00005.npy.1234.part"), new byte[] {1, 2, 3});
+        Files.write(spark.resolve("raw/j00006.energies.npy"), expected.get("raw/j00006.energies.npy"));
+
+        // The first attempt of the tasks of three jobs fails after writing their files (and those of the
+        // other jobs of their task: 4 a task); Spark tries each such task again, all its jobs anew.
+        sc.setLocalProperty(SparkCampaignEngine.FAIL_FIRST_ATTEMPT, "j00003,j00017,j00047");
+        try (FailedTasks failures = new FailedTasks()) {
+            CampaignRunStep.Result r = CampaignRunStep.run(new CampaignRunStep.Request(spark, null, false, 2),
+                    SparkCampaignEngine.on(sc, 4), SILENT);
+            assertThat(r.sampled()).isEqualTo(48);
+            assertThat(r.collect().collected()).isEqualTo(48);
+            // Three failed attempts while sampling and three while collecting, all retried.
+            assertThat(failures.failed.get()).isEqualTo(6);
+        } finally {
+            sc.setLocalProperty(SparkCampaignEngine.FAIL_FIRST_ATTEMPT, null);
+        }
+        assertSameBytes(outputs(spark), expected);
+
+        // Every job done a second time (as speculative copies would): the same files, the same table.
+        CampaignFolder folder = CampaignFolder.open(spark);
+        SparkCampaignEngine twice = SparkCampaignEngine.on(sc, 3);
+        twice.sample(folder, folder.jobs(), null);
+        CampaignCollectStep.run(new CampaignCollectStep.Request(spark, 2), twice, SILENT);
+        assertSameBytes(outputs(spark), expected);
+    }
+}
