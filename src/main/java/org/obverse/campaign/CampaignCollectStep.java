@@ -9,11 +9,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.concurrent.ConcurrentHashMap;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
-import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.IntConsumer;
 import org.obverse.anneal.StreamSeeds;
 import org.obverse.embed.ChainBreakRule;
@@ -227,43 +222,7 @@ public final class CampaignCollectStep {
     static List<JobRows> collectOnThreads(CampaignFolder folder, int[] indices, int threads, IntConsumer tick)
             throws IOException {
         JobCollector collector = JobCollector.open(folder);
-        AtomicInteger done = new AtomicInteger();
-        ExecutorService pool = Executors.newFixedThreadPool(Math.max(1, threads), runnable -> {
-            Thread t = new Thread(runnable, "campaign-collector");
-            t.setDaemon(true);
-            return t;
-        });
-        try {
-            List<Future<JobRows>> futures = new ArrayList<>();
-            for (int index : indices) {
-                futures.add(pool.submit(() -> {
-                    JobRows c = collector.collect(index);
-                    if (tick != null) {
-                        tick.accept(done.incrementAndGet());
-                    }
-                    return c;
-                }));
-            }
-            List<JobRows> out = new ArrayList<>(indices.length);
-            for (Future<JobRows> f : futures) {
-                out.add(f.get());
-            }
-            return out;
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            throw new IOException("interrupted while collecting", e);
-        } catch (ExecutionException e) {
-            Throwable c = e.getCause();
-            if (c instanceof RuntimeException re) {
-                throw re;
-            }
-            if (c instanceof IOException io) {
-                throw io;
-            }
-            throw new IllegalStateException(c);
-        } finally {
-            pool.shutdownNow();
-        }
+        return JobThreads.run("collecting", indices.length, threads, tick, k -> collector.collect(indices[k]));
     }
 
     /** Re-derives every manifest of the campaign; the first failing check of each, by manifest path. */

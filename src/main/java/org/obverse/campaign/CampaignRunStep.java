@@ -8,11 +8,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
-import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.IntConsumer;
 import org.obverse.anneal.AnnealSchedule;
 import org.obverse.anneal.EnergyScales;
@@ -191,46 +186,16 @@ public final class CampaignRunStep {
         SamplerSettings base = baseSettings(folder.plan());
         Map<String, ProblemFile> problems = new ConcurrentHashMap<>();
         Map<String, AnnealSchedule> schedules = new ConcurrentHashMap<>();
-        AtomicInteger done = new AtomicInteger();
         int workers = Math.min(threads, todo.size());
         // Fewer jobs than threads: each job splits its reads (never changes the output).
         SamplerSettings perJob = base.withThreads(Math.max(1, threads / workers));
-        ExecutorService pool = Executors.newFixedThreadPool(workers, runnable -> {
-            Thread t = new Thread(runnable, "campaign-sampler");
-            t.setDaemon(true);
-            return t;
+        JobThreads.run("sampling", todo.size(), workers, tick, k -> {
+            JobTable.Job j = todo.get(k);
+            ProblemFile pf = problems.computeIfAbsent(j.problem(), p -> ProblemCodec.read(folder.resolve(p)));
+            AnnealSchedule a = schedules.computeIfAbsent(j.scheduleFile(), f -> readSchedule(folder.resolve(f)));
+            sampleJob(folder, j, perJob, pf, a);
+            return null;
         });
-        try {
-            List<Future<?>> futures = new ArrayList<>();
-            for (JobTable.Job j : todo) {
-                futures.add(pool.submit(() -> {
-                    ProblemFile pf = problems.computeIfAbsent(j.problem(), p -> ProblemCodec.read(folder.resolve(p)));
-                    AnnealSchedule a = schedules.computeIfAbsent(j.scheduleFile(), f -> readSchedule(folder.resolve(f)));
-                    sampleJob(folder, j, perJob, pf, a);
-                    if (tick != null) {
-                        tick.accept(done.incrementAndGet());
-                    }
-                    return null;
-                }));
-            }
-            for (Future<?> f : futures) {
-                f.get();
-            }
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            throw new IOException("interrupted while sampling", e);
-        } catch (ExecutionException e) {
-            Throwable c = e.getCause();
-            if (c instanceof RuntimeException re) {
-                throw re;
-            }
-            if (c instanceof IOException io) {
-                throw io;
-            }
-            throw new IllegalStateException(c);
-        } finally {
-            pool.shutdownNow();
-        }
     }
 
     private static AnnealSchedule readSchedule(Path file) {

@@ -65,16 +65,13 @@ public final class CampaignCommand implements Runnable {
         @Option(names = "--force", description = "replace an existing folder (its samples are lost)")
         boolean force;
 
-        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
-        Integer threads;
-
-        @Option(names = "--quiet", description = "no progress lines")
-        boolean quiet;
+        @Mixin
+        WorkOptions work;
 
         @Override
         public Integer call() throws Exception {
             CampaignPrepareStep.Result r = CampaignPrepareStep.run(new CampaignPrepareStep.Request(plan, out, force,
-                    threads(threads)), progress(spec, quiet));
+                    work.threads()), progress(spec, work.quiet));
             PrintWriter w = spec.commandLine().getOut();
             r.notes().forEach(w::println);
             w.printf("prepared %s: %d jobs listed in %s%n", r.folder(), r.jobs().size(), r.folder().resolve("jobs.csv"));
@@ -101,11 +98,8 @@ public final class CampaignCommand implements Runnable {
         @Option(names = "--force", description = "prepare the folder anew even where it exists (its samples are lost)")
         boolean force;
 
-        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
-        Integer threads;
-
-        @Option(names = "--quiet", description = "no progress lines")
-        boolean quiet;
+        @Mixin
+        WorkOptions work;
 
         @Mixin
         EngineOptions engine;
@@ -114,9 +108,9 @@ public final class CampaignCommand implements Runnable {
         public Integer call() throws Exception {
             long start = System.nanoTime();
             CampaignRunStep.Result r;
-            try (CampaignEngine e = engine.open(threads(threads))) {
-                r = CampaignRunStep.run(new CampaignRunStep.Request(source, out, force, threads(threads)), e,
-                        progress(spec, quiet));
+            try (CampaignEngine e = engine.open(work.threads())) {
+                r = CampaignRunStep.run(new CampaignRunStep.Request(source, out, force, work.threads()), e,
+                        progress(spec, work.quiet));
             }
             PrintWriter w = spec.commandLine().getOut();
             if (r.prepared() != null) {
@@ -144,11 +138,8 @@ public final class CampaignCommand implements Runnable {
         @Parameters(index = "0", paramLabel = "DIR", description = "a prepared campaign folder")
         Path dir;
 
-        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
-        Integer threads;
-
-        @Option(names = "--quiet", description = "no progress lines")
-        boolean quiet;
+        @Mixin
+        WorkOptions work;
 
         @Mixin
         EngineOptions engine;
@@ -156,9 +147,9 @@ public final class CampaignCommand implements Runnable {
         @Override
         public Integer call() throws Exception {
             CampaignCollectStep.Result r;
-            try (CampaignEngine e = engine.open(threads(threads))) {
-                r = CampaignCollectStep.run(new CampaignCollectStep.Request(dir, threads(threads)), e,
-                        progress(spec, quiet));
+            try (CampaignEngine e = engine.open(work.threads())) {
+                r = CampaignCollectStep.run(new CampaignCollectStep.Request(dir, work.threads()), e,
+                        progress(spec, work.quiet));
             }
             return print(spec.commandLine().getOut(), r);
         }
@@ -173,6 +164,19 @@ public final class CampaignCommand implements Runnable {
             w.printf("audit: %d failed; their reads are left out of the table:%n", r.failures().size());
             r.failures().forEach(f -> w.println("FAILED " + f));
             return Main.CHECK_FAILED;
+        }
+    }
+
+    /** {@code --threads T} and {@code --quiet} of every campaign verb. */
+    static final class WorkOptions {
+        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
+        Integer threads;
+
+        @Option(names = "--quiet", description = "no progress lines")
+        boolean quiet;
+
+        int threads() {
+            return CampaignCommand.threads(threads);
         }
     }
 
