@@ -5,6 +5,7 @@ import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
@@ -25,6 +26,7 @@ import org.obverse.io.SampleCoding;
 import org.obverse.io.SampleFiles;
 import org.obverse.io.SampleReader;
 import org.obverse.io.ScheduleCodec;
+import org.obverse.model.VariableIndex;
 
 /**
  * Samples every job of a campaign folder with the plan's sampler into the raw file the job
@@ -101,8 +103,10 @@ public final class CampaignRunStep {
         }
         removeStaleParts(folder.resolve(CampaignFolder.RAW));
         List<JobTable.Job> todo = new ArrayList<>();
+        // Each problem file is read once to learn its qubits, however many jobs share it.
+        Map<String, VariableIndex> variables = new HashMap<>();
         for (JobTable.Job j : jobs) {
-            if (!done(folder, j)) {
+            if (!done(folder, j, variables)) {
                 todo.add(j);
             }
         }
@@ -121,13 +125,15 @@ public final class CampaignRunStep {
     }
 
     /** Whether a job's raw file is present with one row per read and one column per qubit. */
-    static boolean done(CampaignFolder folder, JobTable.Job j) throws IOException {
+    static boolean done(CampaignFolder folder, JobTable.Job j, Map<String, VariableIndex> variables)
+            throws IOException {
         Path raw = folder.resolve(j.raw());
         if (!Files.isRegularFile(raw) || !Files.isRegularFile(energiesOf(raw))) {
             return false;
         }
-        ProblemFile pf = ProblemCodec.read(folder.resolve(j.problem()));
-        try (SampleReader in = SampleFiles.open(raw, pf.variables())) {
+        VariableIndex ids = variables.computeIfAbsent(j.problem(),
+                p -> ProblemCodec.read(folder.resolve(p)).variables());
+        try (SampleReader in = SampleFiles.open(raw, ids)) {
             return in.reads() == j.reads();
         } catch (BadInputException e) {
             return false;
