@@ -23,10 +23,10 @@ import picocli.CommandLine.Spec;
 @Command(name = "campaign", mixinStandardHelpOptions = true,
         description = {"Runs a whole campaign from a plan (obverse.campaign/1, spec/campaign.md): instances x chain "
                 + "couplings x schedules x gauges, in one folder and one results table.",
-            "  prepare PLAN --out DIR   embed, gauge and list every job (DIR/jobs.csv) for a sampler or a device",
-            "  run PLAN --out DIR       prepare (where DIR is new), sample every job, collect; resumable",
-            "  run DIR                  sample the jobs of a prepared folder that have no raw samples yet, collect",
-            "  collect DIR              un-gauge, audit, decode every job with raw samples into DIR/results.csv"},
+            "  prepare PLAN --out DIR   jobs for a sampler or a device (DIR/jobs.csv)",
+            "  run PLAN --out DIR       prepare where DIR is new, sample every job, collect",
+            "  run DIR                  sample the jobs without raw samples yet, collect",
+            "  collect DIR              un-gauge, audit, decode into DIR/results.csv"},
         subcommands = {CampaignCommand.Prepare.class, CampaignCommand.Run.class, CampaignCommand.Collect.class})
 public final class CampaignCommand implements Runnable {
     @Spec

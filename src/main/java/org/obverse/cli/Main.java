@@ -78,13 +78,13 @@ public final class Main implements Runnable {
         CommandLine cl = new CommandLine(new Main());
         cl.setParameterExceptionHandler((ex, args) -> {
             PrintWriter e = ex.getCommandLine().getErr();
-            e.println(line("obverse " + ex.getCommandLine().getCommandName() + ": " + ex.getMessage()
+            e.println(line(ex.getCommandLine().getCommandSpec().qualifiedName() + ": " + ex.getMessage()
                     + " (see --help)"));
             return BAD_INPUT;
         });
         cl.setExecutionExceptionHandler((ex, cmd, parsed) -> {
             PrintWriter e = cmd.getErr();
-            String verb = "obverse " + cmd.getCommandName();
+            String verb = cmd.getCommandSpec().qualifiedName();
             Throwable t = ex;
             if (t instanceof UncheckedIOException && t.getCause() != null) {
                 t = t.getCause();

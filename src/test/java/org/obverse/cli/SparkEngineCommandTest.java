@@ -107,16 +107,16 @@ class SparkEngineCommandTest extends CommandTestSupport {
         Path out = dir.resolve("c");
         Run bad = obverse("campaign", "run", plan.toString(), "--out", out.toString(), "--engine", "cluster");
         assertThat(bad.code()).isEqualTo(Main.BAD_INPUT);
-        assertThat(bad.err().strip()).isEqualTo("obverse run: --engine cluster: use local or spark");
+        assertThat(bad.err().strip()).isEqualTo("obverse campaign run: --engine cluster: use local or spark");
         assertThat(out).doesNotExist();
 
         Run master = obverse("campaign", "run", plan.toString(), "--out", out.toString(), "--master", "local[2]");
         assertThat(master.code()).isEqualTo(Main.BAD_INPUT);
-        assertThat(master.err().strip()).isEqualTo("obverse run: --master has a meaning only with --engine spark");
+        assertThat(master.err().strip()).isEqualTo("obverse campaign run: --master has a meaning only with --engine spark");
 
         Run none = obverse("campaign", "collect", dir.toString(), "--engine", "spark", "--jobs-per-task", "0");
         assertThat(none.code()).isEqualTo(Main.BAD_INPUT);
-        assertThat(none.err().strip()).isEqualTo("obverse collect: --jobs-per-task 0: need at least 1");
+        assertThat(none.err().strip()).isEqualTo("obverse campaign collect: --jobs-per-task 0: need at least 1");
         assertThat(CampaignCommand.EngineOptions.sparkPresent()).isTrue();
     }
 }
