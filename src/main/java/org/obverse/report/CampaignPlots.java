@@ -333,8 +333,9 @@ public final class CampaignPlots {
         c.getStyler().setToolTipsEnabled(false);
         c.getStyler().setLegendPosition(Styler.LegendPosition.OutsideE);
         c.getStyler().setRangeColors(tts ? new Color[] {new Color(0x1a, 0x98, 0x50), new Color(0xff, 0xff, 0xbf),
-            new Color(0xd7, 0x30, 0x27)} : new Color[] {new Color(0xf7, 0xfb, 0xff), new Color(0x6b, 0xae, 0xd6),
-            new Color(0x08, 0x30, 0x6b)});
+            new Color(0xd7, 0x30, 0x27)} : new Color[] {new Color(0xf7, 0xfb, 0xff), new Color(0x9e, 0xca, 0xe1),
+            new Color(0x42, 0x92, 0xc6)});
+        // The darkest cell stays a mid blue, so the black values printed on every cell stay legible.
         c.getStyler().setValueFontColor(Color.BLACK);
         c.getStyler().setHeatMapValueDecimalPattern(tts ? "#,##0" : "0.000");
         if (lo < hi) {
