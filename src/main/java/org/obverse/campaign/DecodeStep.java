@@ -221,25 +221,15 @@ public final class DecodeStep {
         List<Path> inputs = new ArrayList<>();
         List<Integer> missing = new ArrayList<>();
         for (GaugeManifest.Entry e : m.gauges()) {
-            Path npy = r.samples().resolve(SampleFormat.NPY.fileName(e.stem()));
-            Path csv = r.samples().resolve(SampleFormat.CSV.fileName(e.stem()));
-            boolean hasNpy = Files.exists(npy);
-            boolean hasCsv = Files.exists(csv);
-            if (hasNpy && hasCsv) {
-                throw BadInputException.at(r.samples(), e.stem(), "both " + npy.getFileName() + " and "
-                        + csv.getFileName() + " exist", "keep one samples file per gauge");
-            }
-            if (!hasNpy && !hasCsv) {
+            Path found = SourceFiles.gaugeSamples(r.samples(), e);
+            if (found == null) {
                 if (!r.allowMissing()) {
-                    throw BadInputException.at(r.samples(), "", "no un-gauged reads for gauge " + e.index()
-                            + " (expected " + npy.getFileName() + " or " + csv.getFileName() + ")",
-                            "un-gauge its raw samples first, or allow missing gauges if it was not run");
+                    throw BadInputException.at(r.samples(), "", "no un-gauged reads for gauge " + e.index() + " (expected "
+                            + SourceFiles.gaugeSampleNames(e) + ")", "un-gauge its raw samples first, or allow missing gauges if it was not run");
                 }
                 missing.add(e.index());
-                inputs.add(null);
-            } else {
-                inputs.add(hasNpy ? npy : csv);
             }
+            inputs.add(found);
         }
         Chains used = c.restrictedTo(q.variables());
         List<GaugeDone> done = new ArrayList<>();

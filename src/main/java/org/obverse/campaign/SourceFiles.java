@@ -1,5 +1,6 @@
 package org.obverse.campaign;
 
+import java.nio.file.Files;
 import java.nio.file.Path;
 import org.obverse.io.BadInputException;
 import org.obverse.io.ChainList;
@@ -9,6 +10,7 @@ import org.obverse.io.GaugeManifest;
 import org.obverse.io.ManifestCodec;
 import org.obverse.io.ProblemCodec;
 import org.obverse.io.ProblemFile;
+import org.obverse.io.SampleFormat;
 import org.obverse.device.DeviceLimits;
 
 /**
@@ -50,5 +52,28 @@ final class SourceFiles {
                     + actual.substring(0, 12) + "…, the manifest records " + recorded.substring(0, 12) + "…)",
                     "restore the original file or draw the gauges again");
         }
+    }
+
+    /**
+     * The samples file of a gauge in a folder, {@code <stem>.npy} or {@code <stem>.csv}, or null
+     * where there is neither.
+     *
+     * @throws BadInputException where both exist (which to read would be a guess)
+     */
+    static Path gaugeSamples(Path folder, GaugeManifest.Entry e) {
+        Path npy = folder.resolve(SampleFormat.NPY.fileName(e.stem()));
+        Path csv = folder.resolve(SampleFormat.CSV.fileName(e.stem()));
+        boolean hasNpy = Files.exists(npy);
+        boolean hasCsv = Files.exists(csv);
+        if (hasNpy && hasCsv) {
+            throw BadInputException.at(folder, e.stem(), "both " + npy.getFileName() + " and "
+                    + csv.getFileName() + " exist", "keep one samples file per gauge");
+        }
+        return hasNpy ? npy : hasCsv ? csv : null;
+    }
+
+    /** "g0003.npy or g0003.csv": the names a gauge's samples file may have. */
+    static String gaugeSampleNames(GaugeManifest.Entry e) {
+        return SampleFormat.NPY.fileName(e.stem()) + " or " + SampleFormat.CSV.fileName(e.stem());
     }
 }

@@ -14,7 +14,6 @@ import org.obverse.io.ProblemCodec;
 import org.obverse.io.ProblemFile;
 import org.obverse.io.SampleCoding;
 import org.obverse.io.SampleFiles;
-import org.obverse.io.SampleFormat;
 import org.obverse.io.SampleReader;
 import org.obverse.io.SampleWriter;
 import org.obverse.model.IsingProblem;
@@ -78,25 +77,16 @@ public final class UngaugeStep {
                         "restore the gauged problem or draw the gauges again");
             }
             gauges.add(toGauge(r.manifest(), e, ids));
-            Path npy = r.samples().resolve(SampleFormat.NPY.fileName(e.stem()));
-            Path csv = r.samples().resolve(SampleFormat.CSV.fileName(e.stem()));
-            boolean hasNpy = Files.exists(npy);
-            boolean hasCsv = Files.exists(csv);
-            if (hasNpy && hasCsv) {
-                throw BadInputException.at(r.samples(), e.stem(), "both " + npy.getFileName() + " and "
-                        + csv.getFileName() + " exist", "keep one samples file per gauge");
-            }
-            if (!hasNpy && !hasCsv) {
+            Path found = SourceFiles.gaugeSamples(r.samples(), e);
+            if (found == null) {
                 if (!r.allowMissing()) {
                     throw BadInputException.at(r.samples(), "", "no samples for gauge " + e.index() + " (expected "
-                            + npy.getFileName() + " or " + csv.getFileName() + ")",
+                            + SourceFiles.gaugeSampleNames(e) + ")",
                             "add the file, or pass --allow-missing if the gauge was not run");
                 }
                 missing.add(e.index());
-                inputs.add(null);
-            } else {
-                inputs.add(hasNpy ? npy : csv);
             }
+            inputs.add(found);
         }
         List<Done> done = new ArrayList<>();
         IsingProblem spin = pf.spin();
