@@ -51,12 +51,20 @@ public final class StreamSeeds {
 
     /** The generator of item {@code index} of stream {@code tag} under {@code seed}. */
     public static UniformRandomProvider generator(long seed, long tag, long index) {
+        return RandomSource.XO_RO_SHI_RO_128_PP.create(state(seed, tag, index));
+    }
+
+    /**
+     * The two state words {a, b} of {@link #generator}: a fresh array that
+     * {@link XoroshiroState#next} advances through the same numbers as the generator.
+     */
+    public static long[] state(long seed, long tag, long index) {
         long a = mix(seed ^ mix(tag * GOLDEN + index));
         long b = mix(a + GOLDEN);
         if (a == 0 && b == 0) {
             b = GOLDEN;
         }
-        return RandomSource.XO_RO_SHI_RO_128_PP.create(new long[] {a, b});
+        return new long[] {a, b};
     }
 
     /** One standard normal deviate by the Marsaglia polar method (two uniforms per try). */
