@@ -22,8 +22,11 @@ import org.obverse.samples.SampleBlock;
  * count. Reads start from uniformly random spins.
  *
  * <p>The exact kernel runs problems with small integer fields and couplings (and no per-read
- * noise) in integer arithmetic ({@link MetropolisKernels#sweepInteger}): the same decisions
- * from the same random numbers, so the same reads, in less time.
+ * noise) in integer arithmetic without a branch on the decision, drawing on the generator's
+ * bare state ({@link MetropolisKernels#sweepIntegerBranchFree}): the same decisions from the
+ * same random numbers, so the same reads, in less time. The multi-spin kernel sweeps its
+ * blocks four at a time or as vector lanes ({@link MultiSpinCoding#sweepLanes}), again with
+ * each block's own draws in their own order.
  *
  * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
  * problem's arrays per thread.
