@@ -16,7 +16,7 @@ import org.knowm.xchart.XYChartBuilder;
 import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
-import org.obverse.io.ScoreFiles;
+import org.obverse.io.table.ScoreFiles;
 import org.obverse.stats.Campaign;
 import org.obverse.stats.CampaignSummary;
 import org.obverse.stats.CellScore;

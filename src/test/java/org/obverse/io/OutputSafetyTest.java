@@ -1,5 +1,6 @@
 package org.obverse.io;
 
+import org.obverse.io.output.AtomicOutput;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
