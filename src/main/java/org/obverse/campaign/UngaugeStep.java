@@ -16,6 +16,7 @@ import org.obverse.io.samples.SampleCoding;
 import org.obverse.io.samples.SampleFiles;
 import org.obverse.io.samples.SampleReader;
 import org.obverse.io.samples.SampleWriter;
+import org.obverse.io.table.MagnetisationTable;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
 import org.obverse.samples.SampleBlock;
@@ -99,8 +100,8 @@ public final class UngaugeStep {
             read.add(src.folder.resolve(e.problem()));
         }
         AtomicOutput.writeDirectory(r.out(), r.force(), read, dir -> {
-            StringBuilder mag = new StringBuilder("qubit,gauge,reads,sum_spin,sign\n");
-            StringBuilder cor = new StringBuilder("qubit_a,qubit_b,gauge,reads,sum_product,sign\n");
+            MagnetisationTable.QubitRows mag = new MagnetisationTable.QubitRows();
+            MagnetisationTable.CouplerRows cor = new MagnetisationTable.CouplerRows();
             for (int i = 0; i < inputs.size(); i++) {
                 Path in = inputs.get(i);
                 if (in == null) {
@@ -118,8 +119,8 @@ public final class UngaugeStep {
                 }
                 done.add(new Done(e.index(), in, r.out().resolve(out.getFileName()), reads));
             }
-            Files.writeString(dir.resolve("magnetisation.csv"), mag);
-            Files.writeString(dir.resolve("correlations.csv"), cor);
+            mag.write(dir.resolve("magnetisation.csv"));
+            cor.write(dir.resolve("correlations.csv"));
         });
         return new Result(done, missing);
     }
@@ -142,20 +143,18 @@ public final class UngaugeStep {
     }
 
     /** Appends one gauge's device-frame sums (its raw reads) to the magnetisation and correlation tables. */
-    static void appendMoments(StringBuilder mag, StringBuilder cor, SpinMoments mom, int gauge, Gauge g,
-                              VariableIndex ids, IsingProblem p) {
+    static void appendMoments(MagnetisationTable.QubitRows mag, MagnetisationTable.CouplerRows cor, SpinMoments mom,
+                              int gauge, Gauge g, VariableIndex ids, IsingProblem p) {
         long reads = mom.reads();
         if (reads == 0) {
             return; // an empty file has no moments; the tables require reads >= 1
         }
         for (int k = 0; k < p.size(); k++) {
-            mag.append(ids.id(k)).append(',').append(gauge).append(',').append(reads).append(',')
-                    .append(mom.spinSum(k)).append(',').append(g.sign(k)).append('\n');
+            mag.add(ids.id(k), gauge, reads, mom.spinSum(k), g.sign(k));
         }
         for (int e = 0; e < p.edgeCount(); e++) {
-            cor.append(ids.id(p.edgeU(e))).append(',').append(ids.id(p.edgeV(e))).append(',').append(gauge).append(',')
-                    .append(reads).append(',').append(mom.productSum(e)).append(',')
-                    .append(g.sign(p.edgeU(e)) * g.sign(p.edgeV(e))).append('\n');
+            cor.add(ids.id(p.edgeU(e)), ids.id(p.edgeV(e)), gauge, reads, mom.productSum(e),
+                    g.sign(p.edgeU(e)) * g.sign(p.edgeV(e)));
         }
     }
 
