@@ -5,6 +5,8 @@ import java.util.concurrent.atomic.AtomicReference;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.obverse.model.BinaryProblem;
 import org.obverse.model.IsingProblem;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 import org.obverse.samples.SampleBlock;
 
 /**
@@ -16,7 +18,7 @@ import org.obverse.samples.SampleBlock;
  * submitted.
  *
  * <p>Reproducible: read r (exact kernel) draws its start state, its noise and every
- * Metropolis number from its own generator {@code StreamSeeds.generator(seed, READS, r)}; with
+ * Metropolis number from its own generator {@code RandomStreams.generator(seed, READS, r)}; with
  * the multi-spin kernel, 64-read word w uses {@code generator(seed, WORDS, w)}. Work is split
  * into 64-read blocks over the worker threads, so the output never depends on the thread
  * count. Reads start from uniformly random spins.
@@ -293,7 +295,7 @@ public final class ReferenceSampler {
                 readInteger(r, ws);
                 return;
             }
-            UniformRandomProvider rng = StreamSeeds.generator(seed, StreamSeeds.READS, r);
+            UniformRandomProvider rng = RandomStreams.generator(seed, StreamPurpose.READS, r);
             byte[] s = ws.spins;
             for (int k = 0; k < n; k += 64) {
                 long bits = rng.nextLong();
@@ -329,7 +331,7 @@ public final class ReferenceSampler {
          * decisions as {@link MetropolisKernels#sweepExactExponential} with the generator.
          */
         private void readInteger(int r, Workspace ws) {
-            long[] state = StreamSeeds.state(seed, StreamSeeds.READS, r);
+            long[] state = RandomStreams.state(seed, StreamPurpose.READS, r);
             byte[] s = ws.spins;
             for (int k = 0; k < n; k += 64) {
                 long bits = XoroshiroState.next(state);
@@ -434,7 +436,7 @@ public final class ReferenceSampler {
                 long[][] bits = ws.bits != null ? ws.bits : new long[4][n];
                 long[][] state = new long[c][];
                 for (int i = 0; i < c; i++) {
-                    state[i] = StreamSeeds.state(seed, StreamSeeds.WORDS, from + i);
+                    state[i] = RandomStreams.state(seed, StreamPurpose.WORDS, from + i);
                     for (int k = 0; k < n; k++) {
                         bits[i][k] = XoroshiroState.next(state[i]);
                     }
@@ -462,7 +464,7 @@ public final class ReferenceSampler {
             int m = lanes;
             long[] bits = ws.laneBits;
             for (int i = 0; i < m; i++) {
-                long[] state = StreamSeeds.state(seed, StreamSeeds.WORDS, first + i);
+                long[] state = RandomStreams.state(seed, StreamPurpose.WORDS, first + i);
                 for (int k = 0; k < n; k++) {
                     bits[k * m + i] = XoroshiroState.next(state);
                 }

@@ -7,6 +7,7 @@ import org.apache.commons.rng.simple.RandomSource;
 import org.junit.jupiter.api.Test;
 import org.obverse.model.IsingProblem;
 import org.obverse.problems.SpinGlasses;
+import org.obverse.random.RandomStreams;
 import org.obverse.testsupport.QuietTest;
 import org.obverse.testsupport.Seeds;
 
@@ -27,8 +28,8 @@ class BranchFreeKernelTest extends QuietTest {
             long s = rng.nextLong();
             long tag = rng.nextInt(8);
             long index = rng.nextInt(1 << 20);
-            long[] state = StreamSeeds.state(s, tag, index);
-            UniformRandomProvider g = StreamSeeds.generator(s, tag, index);
+            long[] state = RandomStreams.state(s, tag, index);
+            UniformRandomProvider g = RandomStreams.generator(s, tag, index);
             long[] raw = {rng.nextLong(), rng.nextLong()};
             UniformRandomProvider h = RandomSource.XO_RO_SHI_RO_128_PP.create(raw.clone());
             for (int i = 0; i < 500; i++) {
