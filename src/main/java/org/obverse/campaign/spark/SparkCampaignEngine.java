@@ -40,8 +40,9 @@ import org.obverse.io.table.JobTable;
  * Runs a campaign's jobs as Spark tasks. The jobs to do become one dataset of job ids (or
  * job-table indices), cut into contiguous partitions in job order — one job a partition unless
  * told otherwise — so the split is the same on every run. A task opens the campaign folder
- * (a path every executor sees: local in local mode, a shared file system on a cluster), and
- * for each of its jobs calls {@link CampaignRunStep#sampleJob} or
+ * (a path every executor sees: local in local mode, a shared file system on a cluster; or, for
+ * an engine made by {@link #at}, a local copy of what its jobs read from a Hadoop file system),
+ * and for each of its jobs calls {@link CampaignRunStep#sampleJob} or
  * {@link CampaignCollectStep.JobCollector#collect}, exactly as the local engine does.
  *
  * <p>Why retries and speculative copies are harmless: a job's files depend only on its recorded
