@@ -19,6 +19,8 @@ import org.obverse.io.BadInputException;
 import org.obverse.io.codec.CampaignPlanCodec;
 import org.obverse.io.codec.ProblemCodec;
 import org.obverse.io.json.JsonFiles;
+import org.obverse.io.npy.NpyDtype;
+import org.obverse.io.npy.NpyHeader;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.samples.SampleFormat;
 import org.obverse.io.table.JobTable;
@@ -171,15 +173,16 @@ public final class HadoopCampaign {
         }
 
         /**
-         * Present with lengths that fit one row per read: the int8 samples reads × qubits bytes
-         * and the float64 energies 8 × reads bytes, each after an NPY header (a multiple of 64
-         * bytes). Files appear only whole (published by rename, or as objects committed at close),
-         * so the header is not read: one listing of raw/ answers for every job.
+         * Present with the lengths the sampler gives a job's files: an NPY header for the shape,
+         * then reads × qubits bytes of int8 samples, or 8 × reads bytes of float64 energies.
+         * Files appear only whole (published by rename, or as objects committed at close), so
+         * their headers are not read: one listing of raw/ answers for every job.
          */
         @Override
         public boolean[] sampled(CampaignFolder folder, List<JobTable.Job> jobs) throws IOException {
             Map<String, Long> raw = home.list(CampaignFolder.RAW);
             Map<String, Integer> qubits = new HashMap<>();
+            long energiesHeader = NpyHeader.of(NpyDtype.FLOAT64, 0).encode(0).length;
             boolean[] out = new boolean[jobs.size()];
             for (int k = 0; k < out.length; k++) {
                 JobTable.Job j = jobs.get(k);
@@ -191,14 +194,10 @@ public final class HadoopCampaign {
                 }
                 int q = qubits.computeIfAbsent(j.problem(),
                         p -> ProblemCodec.read(folder.resolve(p)).variables().size());
-                out[k] = fits(samples, (long) j.reads() * q) && fits(energies, 8L * j.reads());
+                long samplesHeader = NpyHeader.of(NpyDtype.INT8, 0, q).encode(0).length;
+                out[k] = samples == samplesHeader + (long) j.reads() * q && energies == energiesHeader + 8L * j.reads();
             }
             return out;
-        }
-
-        private static boolean fits(long length, long data) {
-            long header = length - data;
-            return header >= 64 && header % 64 == 0 && header <= (1 << 20);
         }
 
         @Override

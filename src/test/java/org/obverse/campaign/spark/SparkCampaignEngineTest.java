@@ -258,6 +258,11 @@ class SparkCampaignEngineTest extends QuietTest {
         Files.createDirectories(folder.resolve("raw"));
         Files.write(folder.resolve("raw/.j00005.npy.1234.part"), new byte[] {1, 2, 3});
         Files.write(folder.resolve("raw/j00006.energies.npy"), expected.get("raw/j00006.energies.npy"));
+        // And a samples file 64 bytes short, whose length does not fit the job's reads: not done, so
+        // sampled again and replaced.
+        byte[] whole = expected.get("raw/j00009.npy");
+        Files.write(folder.resolve("raw/j00009.npy"), java.util.Arrays.copyOf(whole, whole.length - 64));
+        Files.write(folder.resolve("raw/j00009.energies.npy"), expected.get("raw/j00009.energies.npy"));
         String uri = uri(TestFileSystems.ObjectStore.SCHEME, folder);
         int renames = TestFileSystems.ObjectStore.RENAMES.get();
         int creates = TestFileSystems.ObjectStore.CREATES.get();
