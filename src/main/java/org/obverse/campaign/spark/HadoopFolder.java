@@ -230,7 +230,12 @@ final class HadoopFolder {
             try (OutputStream out = fs.create(part, false)) {
                 Files.copy(local, out);
             }
-            FileUtil.rename(fs, part, target, Options.Rename.OVERWRITE);
+            // A plain rename first: atomic, and on HDFS it refuses an existing target, which only a
+            // second attempt of a job (or a table collected again) meets; then rename with the
+            // overwrite option, also one atomic operation on HDFS.
+            if (!fs.rename(part, target)) {
+                FileUtil.rename(fs, part, target, Options.Rename.OVERWRITE);
+            }
             moved = true;
         } finally {
             if (!moved) {

@@ -265,6 +265,7 @@ public final class SparkCampaignEngine implements CampaignEngine {
         /** The executor's local copy of it, else null. */
         private final Path copy;
         private final Map<String, Boolean> staged = new ConcurrentHashMap<>();
+        private final Map<String, String> sources = new ConcurrentHashMap<>();
         private SamplerSettings settings;
         private CampaignCollectStep.JobCollector collector;
 
@@ -354,13 +355,7 @@ public final class SparkCampaignEngine implements CampaignEngine {
             shared(j.problem());
             if (!j.manifest().isEmpty()) {
                 shared(j.manifest());
-                Path manifest = copy.resolve(j.manifest());
-                Path source = manifest.getParent().resolve(ManifestCodec.read(manifest).problem().path()).normalize();
-                if (!source.startsWith(copy)) {
-                    throw new BadInputException(remote.describe(j.manifest()) + ": problem.path: points outside the "
-                            + "campaign folder; prepare the folder again with 'obverse campaign prepare'");
-                }
-                shared(copy.relativize(source).toString().replace(java.io.File.separatorChar, '/'));
+                shared(sources.computeIfAbsent(j.manifest(), this::manifestSource));
             }
             List<String> raw = CampaignFolder.rawFiles(j);
             if (!fetch(raw.get(1))) {
@@ -368,6 +363,17 @@ public final class SparkCampaignEngine implements CampaignEngine {
                 fetch(SampleFormat.CSV.fileName(n.substring(0, n.lastIndexOf('.'))));
             }
             fetch(raw.get(0));
+        }
+
+        /** The embedded problem a manifest (copied here) gauges, relative to the folder. */
+        private String manifestSource(String manifestFile) {
+            Path manifest = copy.resolve(manifestFile);
+            Path source = manifest.getParent().resolve(ManifestCodec.read(manifest).problem().path()).normalize();
+            if (!source.startsWith(copy)) {
+                throw new BadInputException(remote.describe(manifestFile) + ": problem.path: points outside the "
+                        + "campaign folder; prepare the folder again with 'obverse campaign prepare'");
+            }
+            return copy.relativize(source).toString().replace(java.io.File.separatorChar, '/');
         }
 
         /** Copies one job file here afresh; false where the folder has no such file. */

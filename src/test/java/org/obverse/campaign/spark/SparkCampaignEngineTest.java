@@ -247,7 +247,8 @@ class SparkCampaignEngineTest extends QuietTest {
         assertThat(r.collect().collected()).isEqualTo(48);
         // outputs() lists raw/ and decoded/ whole: a temporary name left behind would show as a key too.
         assertSameBytes(outputs(folder), expected);
-        // Each of the 48 × 5 job files and the three tables appeared by one rename.
+        // Each of the 48 × 5 job files and the three tables appeared by one rename (ground.csv, there since
+        // prepare, by the rename that replaces a file).
         assertThat(TestFileSystems.AtomicRename.RENAMES.get() - renames).isEqualTo(48 * 5 + 3);
     }
 

@@ -53,9 +53,10 @@ public final class TestFileSystems {
     }
 
     /**
-     * {@code testfs://}: rename is atomic and replaces the target, as HDFS's rename with the
-     * overwrite option (one namespace operation on the name node); a file being written is
-     * visible under its name while it is written, as on HDFS. Counts renames.
+     * {@code testfs://}: rename as on HDFS — atomic; the plain rename refuses an existing target
+     * (returns false), the rename with the overwrite option replaces it in one operation — and a
+     * file being written is visible under its name while it is written. Counts the renames that
+     * moved a file.
      */
     public static class AtomicRename extends UnderScheme {
         static final String SCHEME = "testfs";
@@ -73,12 +74,19 @@ public final class TestFileSystems {
 
         @Override
         public boolean rename(Path src, Path dst) throws IOException {
+            if (pathToFile(dst).exists()) {
+                return false;
+            }
             RENAMES.incrementAndGet();
-            return super.rename(src, dst);
+            Files.move(pathToFile(src).toPath(), pathToFile(dst).toPath(), StandardCopyOption.ATOMIC_MOVE);
+            return true;
         }
 
         @Override
         protected void rename(Path src, Path dst, Options.Rename... options) throws IOException {
+            if (!java.util.Arrays.asList(options).contains(Options.Rename.OVERWRITE) && pathToFile(dst).exists()) {
+                throw new FileAlreadyExistsException(dst.toString());
+            }
             RENAMES.incrementAndGet();
             Files.move(pathToFile(src).toPath(), pathToFile(dst).toPath(), StandardCopyOption.REPLACE_EXISTING,
                     StandardCopyOption.ATOMIC_MOVE);
