@@ -37,10 +37,6 @@ public final class CampaignCommand implements Runnable {
         spec.commandLine().usage(spec.commandLine().getOut());
     }
 
-    static int defaultThreads() {
-        return Math.max(1, Math.min(2, Runtime.getRuntime().availableProcessors()));
-    }
-
     static StepProgress progress(CommandSpec spec, boolean quiet) {
         PrintWriter err = spec.commandLine().getErr();
         return (phase, total, work) -> Progress.of(err, phase, total, work, quiet);
@@ -208,14 +204,14 @@ public final class CampaignCommand implements Runnable {
 
     /** {@code --threads T} and {@code --quiet} of every campaign verb. */
     static final class WorkOptions {
-        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
-        Integer threads;
+        @Mixin
+        ThreadsOption threads;
 
         @Option(names = "--quiet", description = "no progress lines")
         boolean quiet;
 
         int threads() {
-            return CampaignCommand.threads(threads);
+            return threads.count();
         }
     }
 
@@ -307,15 +303,5 @@ public final class CampaignCommand implements Runnable {
      */
     static boolean isUri(String folder) {
         return folder != null && folder.matches("^[A-Za-z][A-Za-z0-9+.-]+:/.*");
-    }
-
-    static int threads(Integer threads) {
-        if (threads == null) {
-            return defaultThreads();
-        }
-        if (threads < 1) {
-            throw new org.obverse.io.BadInputException("--threads " + threads + ": need at least 1");
-        }
-        return threads;
     }
 }

@@ -18,7 +18,7 @@ import org.obverse.campaign.StepProgress;
 import org.obverse.io.BadInputException;
 import org.obverse.io.codec.CampaignPlanCodec;
 import org.obverse.io.codec.ProblemCodec;
-import org.obverse.io.json.JsonFiles;
+import org.obverse.io.codec.PreparedCodec;
 import org.obverse.io.npy.NpyDtype;
 import org.obverse.io.npy.NpyHeader;
 import org.obverse.io.output.AtomicOutput;
@@ -71,7 +71,7 @@ public final class HadoopCampaign {
                     String now = CampaignPrepareStep.inputsHash(CampaignPlanCodec.read(plan));
                     Path p = local.resolve(CampaignFolder.PREPARED);
                     home.download(CampaignFolder.PREPARED, p);
-                    if (!now.equals(JsonFiles.read(p, "prepared").path("inputs_sha256").asText())) {
+                    if (!now.equals(PreparedCodec.inputsSha256(p))) {
                         throw new BadInputException(home.describe("") + ": was prepared from another plan or other input "
                                 + "files; give a new --out folder, or --force to prepare this one anew (its samples "
                                 + "are lost)");
