@@ -1,7 +1,5 @@
 package org.obverse.cli;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -15,7 +13,6 @@ import org.obverse.device.QubitGraph;
 import org.obverse.device.ValueRange;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.codec.DeviceCodec;
-import org.obverse.io.json.JsonFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Mixin;
@@ -103,22 +100,8 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
             b.couplingSum(range(couplingSum, "--coupling-sum"));
         }
         DeviceLimits d = b.build();
-        ObjectNode root = DeviceCodec.toJson(d);
-        ObjectNode meta = root.putObject("meta");
-        ObjectNode shape = meta.putObject("lattice");
-        shape.put("rows", rows).put("cols", cols).put("shore", shore);
-        shape.put("numbering", "qubit = ((row*cols + col)*2 + side)*shore + k; side 0 vertical, side 1 horizontal");
+        DeviceCodec.write(out, force.on(), d, new DeviceCodec.LatticeMeta(lattice, random ? s : null));
         QubitGraph full = lattice.graph();
-        ArrayNode missing = meta.putArray("removed_qubits");
-        for (int q : full.qubits().toArray()) {
-            if (!g.hasQubit(q)) {
-                missing.add(q);
-            }
-        }
-        if (random) {
-            meta.put("seed", s);
-        }
-        AtomicOutput.writeText(out, force.on(), List.of(), JsonFiles.text(root));
         PrintWriter w = spec.commandLine().getOut();
         w.printf("%s: %d of %d qubits, %d of %d couplers%s%n", lattice, g.qubits().size(), full.qubits().size(),
                 g.couplerCount(), full.couplerCount(), random ? " (random defects, seed " + s + ")" : "");
