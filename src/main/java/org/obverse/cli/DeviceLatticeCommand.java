@@ -75,7 +75,12 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         AtomicOutput.checkTarget(out, force.on(), List.of());
-        CellLattice lattice = CellLattice.of(rows, cols, shore);
+        CellLattice lattice;
+        try {
+            lattice = CellLattice.of(rows, cols, shore);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--rows, --cols, --shore: " + e.getMessage());
+        }
         int[][] couplers = new int[removeCouplers.length][];
         for (int i = 0; i < couplers.length; i++) {
             String[] ab = removeCouplers[i].split("-");
@@ -89,11 +94,22 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
                         + "' is not a coupler; write it as A-B, e.g. 0-4");
             }
         }
-        QubitGraph g = lattice.graphWithout(removeQubits, couplers);
+        QubitGraph g;
+        try {
+            g = lattice.graphWithout(removeQubits, couplers);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--remove-qubits, --remove-couplers: " + e.getMessage()
+                    + "; list only qubits and couplers of the lattice");
+        }
         long s = seed.orDrawn();
         boolean random = randomQubits > 0 || randomCouplers > 0;
         if (random) {
-            g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers, RandomSource.XO_RO_SHI_RO_128_PP.create(s));
+            try {
+                g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers,
+                        RandomSource.XO_RO_SHI_RO_128_PP.create(s));
+            } catch (IllegalArgumentException e) {
+                throw new BadInputException("--random-qubits, --random-couplers: " + e.getMessage());
+            }
         }
         DeviceLimits.Builder b = DeviceLimits.builder(range(field, "--field"), range(coupling, "--coupling")).graph(g);
         if (couplingSum != null) {
