@@ -5,7 +5,6 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.concurrent.Callable;
-import org.apache.commons.rng.simple.RandomSource;
 import org.obverse.io.BadInputException;
 import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
@@ -13,6 +12,7 @@ import org.obverse.device.QubitGraph;
 import org.obverse.device.ValueRange;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.codec.DeviceCodec;
+import org.obverse.random.LegacyStreams;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Mixin;
@@ -105,8 +105,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
         boolean random = randomQubits > 0 || randomCouplers > 0;
         if (random) {
             try {
-                g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers,
-                        RandomSource.XO_RO_SHI_RO_128_PP.create(s));
+                g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers, LegacyStreams.ofSeed(s));
             } catch (IllegalArgumentException e) {
                 throw new BadInputException("--random-qubits, --random-couplers: " + e.getMessage());
             }
