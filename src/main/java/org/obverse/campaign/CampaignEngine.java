@@ -3,7 +3,7 @@ package org.obverse.campaign;
 import java.io.IOException;
 import java.util.List;
 import java.util.function.IntConsumer;
-import org.obverse.io.JobTable;
+import org.obverse.io.table.JobTable;
 
 /**
  * Where the per-job work of a campaign runs: this machine's threads ({@link #local}), or a

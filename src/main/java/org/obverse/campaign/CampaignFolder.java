@@ -5,9 +5,9 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import org.obverse.io.BadInputException;
-import org.obverse.io.CampaignPlan;
-import org.obverse.io.CampaignPlanCodec;
-import org.obverse.io.JobTable;
+import org.obverse.io.codec.CampaignPlan;
+import org.obverse.io.codec.CampaignPlanCodec;
+import org.obverse.io.table.JobTable;
 
 /**
  * The layout of a prepared campaign folder (spec/campaign.md), shared by prepare, run and

@@ -15,17 +15,17 @@ import org.obverse.anneal.EnergyScales;
 import org.obverse.anneal.PathIntegralSettings;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.io.BadInputException;
-import org.obverse.io.CampaignPlan;
-import org.obverse.io.CampaignPlanCodec;
-import org.obverse.io.ControlErrorsCodec;
-import org.obverse.io.JobTable;
-import org.obverse.io.JsonFiles;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
-import org.obverse.io.SampleCoding;
-import org.obverse.io.SampleFiles;
-import org.obverse.io.SampleReader;
-import org.obverse.io.ScheduleCodec;
+import org.obverse.io.codec.CampaignPlan;
+import org.obverse.io.codec.CampaignPlanCodec;
+import org.obverse.io.codec.ControlErrorsCodec;
+import org.obverse.io.table.JobTable;
+import org.obverse.io.json.JsonFiles;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
+import org.obverse.io.samples.SampleCoding;
+import org.obverse.io.samples.SampleFiles;
+import org.obverse.io.samples.SampleReader;
+import org.obverse.io.codec.ScheduleCodec;
 import org.obverse.model.VariableIndex;
 
 /**

@@ -17,14 +17,14 @@ import org.obverse.embed.EmbeddedProblem;
 import org.obverse.embed.EmbeddingNotFoundException;
 import org.obverse.embed.FinderLimits;
 import org.obverse.embed.RerouteEmbeddingFinder;
-import org.obverse.io.AtomicOutput;
+import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.BadInputException;
-import org.obverse.io.ChainList;
-import org.obverse.io.ChainsCodec;
-import org.obverse.io.DeviceCodec;
-import org.obverse.io.JsonFiles;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
+import org.obverse.io.codec.ChainList;
+import org.obverse.io.codec.ChainsCodec;
+import org.obverse.io.codec.DeviceCodec;
+import org.obverse.io.json.JsonFiles;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
 import org.obverse.model.IsingProblem;
 
 /**

@@ -13,19 +13,19 @@ import org.obverse.anneal.ReferenceSampler;
 import org.obverse.anneal.SampledReads;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.anneal.StreamSeeds;
-import org.obverse.io.AtomicOutput;
+import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.BadInputException;
-import org.obverse.io.EnergyFrame;
-import org.obverse.io.GaugeManifest;
-import org.obverse.io.ManifestCodec;
-import org.obverse.io.NpyVectors;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
-import org.obverse.io.ResultsTable;
-import org.obverse.io.SampleCoding;
-import org.obverse.io.SampleFiles;
-import org.obverse.io.SampleFormat;
-import org.obverse.io.SampleWriter;
+import org.obverse.io.table.EnergyFrame;
+import org.obverse.io.codec.GaugeManifest;
+import org.obverse.io.codec.ManifestCodec;
+import org.obverse.io.npy.NpyVectors;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
+import org.obverse.io.table.ResultsTable;
+import org.obverse.io.samples.SampleCoding;
+import org.obverse.io.samples.SampleFiles;
+import org.obverse.io.samples.SampleFormat;
+import org.obverse.io.samples.SampleWriter;
 
 /**
  * Samples problems with the reference sampler into raw sample files: one problem file into

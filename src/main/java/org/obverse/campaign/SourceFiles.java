@@ -3,14 +3,14 @@ package org.obverse.campaign;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import org.obverse.io.BadInputException;
-import org.obverse.io.ChainList;
-import org.obverse.io.ChainsCodec;
-import org.obverse.io.DeviceCodec;
-import org.obverse.io.GaugeManifest;
-import org.obverse.io.ManifestCodec;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
-import org.obverse.io.SampleFormat;
+import org.obverse.io.codec.ChainList;
+import org.obverse.io.codec.ChainsCodec;
+import org.obverse.io.codec.DeviceCodec;
+import org.obverse.io.codec.GaugeManifest;
+import org.obverse.io.codec.ManifestCodec;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
+import org.obverse.io.samples.SampleFormat;
 import org.obverse.device.DeviceLimits;
 
 /**

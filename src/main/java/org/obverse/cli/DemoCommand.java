@@ -13,7 +13,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.obverse.io.AtomicOutput;
+import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.BadInputException;
 import org.obverse.model.BinaryProblem;
 import org.obverse.problems.DegreeBoundedSpanningTree;

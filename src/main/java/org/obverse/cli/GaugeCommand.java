@@ -8,7 +8,7 @@ import org.obverse.io.BadInputException;
 import org.obverse.campaign.GaugeStep;
 import org.obverse.gauge.GaugeDesign;
 import org.obverse.gauge.LockPolicy;
-import org.obverse.io.GaugeManifest;
+import org.obverse.io.codec.GaugeManifest;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;

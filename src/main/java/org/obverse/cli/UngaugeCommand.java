@@ -4,7 +4,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.obverse.campaign.UngaugeStep;
-import org.obverse.io.SampleCoding;
+import org.obverse.io.samples.SampleCoding;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;

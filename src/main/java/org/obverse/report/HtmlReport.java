@@ -6,7 +6,7 @@ import java.util.Base64;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.obverse.io.ScoreFiles;
+import org.obverse.io.table.ScoreFiles;
 import org.obverse.stats.BiasDiagnostics;
 import org.obverse.stats.Campaign;
 import org.obverse.stats.CampaignScoring;

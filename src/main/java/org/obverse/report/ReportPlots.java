@@ -12,7 +12,7 @@ import org.knowm.xchart.XYSeries;
 import org.knowm.xchart.style.Styler;
 import org.knowm.xchart.style.markers.SeriesMarkers;
 import org.obverse.device.CellLattice;
-import org.obverse.io.ScoreFiles;
+import org.obverse.io.table.ScoreFiles;
 import org.obverse.stats.BiasDiagnostics;
 import org.obverse.stats.Campaign;
 import org.obverse.stats.CampaignScoring;

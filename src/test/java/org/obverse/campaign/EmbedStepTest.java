@@ -5,10 +5,10 @@ import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.obverse.embed.ChainStrength;
-import org.obverse.io.ChainList;
-import org.obverse.io.ChainsCodec;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
+import org.obverse.io.codec.ChainList;
+import org.obverse.io.codec.ChainsCodec;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
 import org.obverse.model.IsingProblem;
 import org.obverse.testsupport.QuietTest;
 

@@ -10,7 +10,7 @@ import org.apache.commons.math3.stat.descriptive.rank.Percentile;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.obverse.io.BadInputException;
-import org.obverse.io.ScoreFiles;
+import org.obverse.io.table.ScoreFiles;
 import org.obverse.stats.CampaignSummary;
 import org.obverse.stats.Resampling;
 import org.obverse.testsupport.CampaignTables;

@@ -9,14 +9,14 @@ import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
 import org.obverse.embed.Chains;
 import org.obverse.embed.EmbeddingCheck;
-import org.obverse.io.ChainList;
-import org.obverse.io.ChainsCodec;
-import org.obverse.io.DeviceCodec;
-import org.obverse.io.JsonFiles;
-import org.obverse.io.NpyVectors;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
-import org.obverse.io.SampleFiles;
+import org.obverse.io.codec.ChainList;
+import org.obverse.io.codec.ChainsCodec;
+import org.obverse.io.codec.DeviceCodec;
+import org.obverse.io.json.JsonFiles;
+import org.obverse.io.npy.NpyVectors;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
+import org.obverse.io.samples.SampleFiles;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
 import org.obverse.samples.SampleBlock;
@@ -222,15 +222,15 @@ class ChainCommandsTest extends CommandTestSupport {
 
         // The same reads as 0/1 in CSV give the same logical reads, written as 0/1 CSV.
         Path csv = tmp.resolve("samples.csv");
-        try (org.obverse.io.SampleWriter sw = SampleFiles.create(csv, qubits, false, org.obverse.io.SampleCoding.BINARY)) {
+        try (org.obverse.io.samples.SampleWriter sw = SampleFiles.create(csv, qubits, false, org.obverse.io.samples.SampleCoding.BINARY)) {
             sw.writeBlock(SampleBlock.fromSpins(flat, 3, n));
             sw.commit();
         }
         Path bin = tmp.resolve("bin");
         assertThat(obverse("decode", "--problem", p.toString(), "--logical", q.toString(), "--chains", cf.toString(),
                 "--samples", csv.toString(), "--rule", "majority", "--binary", "--out", bin.toString()).code()).isZero();
-        try (org.obverse.io.SampleReader in = SampleFiles.open(bin.resolve("logical.csv"), logical.variables(),
-                org.obverse.io.SampleCoding.BINARY)) {
+        try (org.obverse.io.samples.SampleReader in = SampleFiles.open(bin.resolve("logical.csv"), logical.variables(),
+                org.obverse.io.samples.SampleCoding.BINARY)) {
             assertThat(in.readRemaining().toSpins()).isEqualTo(x.toSpins());
         }
         assertThat(Files.readString(bin.resolve("logical.csv"))).contains("0,1").doesNotContain("-1");

@@ -9,9 +9,9 @@ import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.obverse.campaign.DecodeStep;
-import org.obverse.io.NpyVectors;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.SampleFiles;
+import org.obverse.io.npy.NpyVectors;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.samples.SampleFiles;
 import org.obverse.model.IsingProblem;
 import org.obverse.samples.SampleBlock;
 

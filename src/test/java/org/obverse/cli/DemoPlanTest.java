@@ -5,10 +5,10 @@ import static org.assertj.core.api.Assertions.assertThat;
 import java.nio.file.Path;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
-import org.obverse.io.CampaignPlan;
-import org.obverse.io.CampaignPlanCodec;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
+import org.obverse.io.codec.CampaignPlan;
+import org.obverse.io.codec.CampaignPlanCodec;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
 import org.obverse.problems.WindArray;
 import org.obverse.testsupport.QuietTest;
 

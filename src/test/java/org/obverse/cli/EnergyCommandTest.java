@@ -4,10 +4,10 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.obverse.io.NpyVectors;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
-import org.obverse.io.SampleFiles;
+import org.obverse.io.npy.NpyVectors;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
+import org.obverse.io.samples.SampleFiles;
 import org.obverse.model.IsingProblem;
 import org.obverse.samples.SampleBlock;
 

@@ -7,7 +7,7 @@ import java.util.List;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.obverse.io.ProblemCodec;
+import org.obverse.io.codec.ProblemCodec;
 import org.obverse.model.IsingProblem;
 
 import static org.assertj.core.api.Assertions.assertThat;

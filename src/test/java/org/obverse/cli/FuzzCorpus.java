@@ -8,8 +8,8 @@ import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.apache.commons.rng.UniformRandomProvider;
-import org.obverse.io.SampleFiles;
-import org.obverse.io.NpyVectors;
+import org.obverse.io.samples.SampleFiles;
+import org.obverse.io.npy.NpyVectors;
 import org.obverse.model.VariableIndex;
 import org.obverse.samples.SampleBlock;
 

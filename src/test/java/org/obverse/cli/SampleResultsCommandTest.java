@@ -5,7 +5,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.obverse.io.NpyVectors;
+import org.obverse.io.npy.NpyVectors;
 
 import static org.assertj.core.api.Assertions.assertThat;
 

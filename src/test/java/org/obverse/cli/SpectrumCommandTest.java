@@ -9,9 +9,9 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.obverse.io.JsonFiles;
-import org.obverse.io.ProblemCodec;
-import org.obverse.io.ProblemFile;
+import org.obverse.io.json.JsonFiles;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
 import org.obverse.model.IsingBuilder;
 import org.obverse.model.IsingProblem;
 

@@ -12,7 +12,7 @@ import java.util.Map;
 import java.util.TreeMap;
 import java.util.stream.Stream;
 import org.apache.commons.rng.UniformRandomProvider;
-import org.obverse.io.AtomicOutput;
+import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.Messages;
 import org.obverse.testsupport.QuietTest;
 import org.obverse.testsupport.Seeds;

@@ -1,5 +1,12 @@
 package org.obverse.io;
 
+import org.obverse.io.codec.ChainList;
+import org.obverse.io.codec.ChainsCodec;
+import org.obverse.io.codec.ControlErrorsCodec;
+import org.obverse.io.codec.DeviceCodec;
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.codec.ProblemFile;
+import org.obverse.io.codec.ScheduleCodec;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.obverse.device.LimitCheck;

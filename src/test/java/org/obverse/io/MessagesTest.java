@@ -1,5 +1,7 @@
 package org.obverse.io;
 
+import org.obverse.io.npy.NpyReader;
+import org.obverse.io.table.ResultsTable;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;

@@ -1,5 +1,10 @@
 package org.obverse.io;
 
+import org.obverse.io.codec.ControlErrorsCodec;
+import org.obverse.io.codec.ManifestCodec;
+import org.obverse.io.codec.ScheduleCodec;
+import org.obverse.io.json.JsonFiles;
+import org.obverse.io.npy.NpyReader;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.charset.StandardCharsets;

@@ -1,5 +1,12 @@
 package org.obverse.io;
 
+import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.json.JsonFiles;
+import org.obverse.io.npy.NpyReader;
+import org.obverse.io.samples.SampleFiles;
+import org.obverse.io.table.CsvReader;
+import org.obverse.io.table.MagnetisationTable;
+import org.obverse.io.table.ResultsTable;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;

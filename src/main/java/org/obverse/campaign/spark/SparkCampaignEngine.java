@@ -27,7 +27,7 @@ import org.obverse.campaign.CampaignEngine;
 import org.obverse.campaign.CampaignFolder;
 import org.obverse.campaign.CampaignRunStep;
 import org.obverse.io.BadInputException;
-import org.obverse.io.JobTable;
+import org.obverse.io.table.JobTable;
 
 /**
  * Runs a campaign's jobs as Spark tasks. The jobs to do become one dataset of job ids (or
