@@ -10,7 +10,6 @@ import java.util.Map;
 import java.util.TreeMap;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.function.IntConsumer;
-import org.obverse.anneal.StreamSeeds;
 import org.obverse.embed.ChainBreakRule;
 import org.obverse.embed.ChainDecoder;
 import org.obverse.embed.Chains;
@@ -20,8 +19,8 @@ import org.obverse.io.BadInputException;
 import org.obverse.io.codec.CampaignPlan;
 import org.obverse.io.codec.ChainList;
 import org.obverse.io.codec.ChainsCodec;
-import org.obverse.io.table.CsvReader;
 import org.obverse.io.codec.GaugeManifest;
+import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.JobTable;
 import org.obverse.io.codec.ManifestCodec;
 import org.obverse.io.npy.NpyVectors;
@@ -32,6 +31,8 @@ import org.obverse.io.samples.SampleFiles;
 import org.obverse.io.samples.SampleFormat;
 import org.obverse.io.samples.SampleWriter;
 import org.obverse.model.IsingProblem;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 import org.obverse.samples.EnergyKernel;
 import org.obverse.samples.SampleBlock;
 import org.obverse.samples.SpinFlip;
@@ -314,7 +315,7 @@ public final class CampaignCollectStep {
             }
         }
         ChainDecoder decoder = DecodeStep.decoder(logical.problem(), logical.chains(), physical.variables(), rule,
-                StreamSeeds.derive(plan.seed(), CampaignPrepareStep.DECODE_SEED, index),
+                RandomStreams.derive(plan.seed(), StreamPurpose.PLAN_DECODE, index),
                 folder.resolve(CampaignFolder.chainsFile(j.instance())), folder.resolve(j.problem()));
         DecodedSamples d = DecodeStep.decode(decoder, block, raw);
         writeDecoded(folder, j, logical.problem(), d);
@@ -350,19 +351,10 @@ public final class CampaignCollectStep {
     /** Rewrites ground.csv with the best energy seen filled in where no ground energy was known. */
     private static void writeGround(CampaignFolder folder, Map<String, Double> bestSeen) throws IOException {
         Path file = folder.resolve(CampaignFolder.GROUND);
-        StringBuilder out = new StringBuilder("instance,ground_energy,ground_source\n");
-        try (CsvReader csv = CsvReader.open(file)) {
-            int[] c = csv.require("a campaign's ground-energy table", "instance", "ground_energy", "ground_source");
-            String[] r;
-            while ((r = csv.record()) != null) {
-                String energy = r[c[1]];
-                if (r[c[2]].equals("best_seen")) {
-                    Double b = bestSeen.get(r[c[0]]);
-                    energy = b == null ? "" : b.toString();
-                }
-                out.append(CsvReader.quote(r[c[0]])).append(',').append(energy).append(',').append(r[c[2]]).append('\n');
-            }
+        List<GroundTable.Row> rows = new ArrayList<>();
+        for (GroundTable.Row r : GroundTable.read(file)) {
+            rows.add(r.source().equals("best_seen") ? r.withEnergy(bestSeen.getOrDefault(r.instance(), Double.NaN)) : r);
         }
-        AtomicOutput.writeText(file, true, List.of(), out.toString());
+        AtomicOutput.writeText(file, true, List.of(), GroundTable.text(rows));
     }
 }

@@ -14,7 +14,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.function.IntConsumer;
 import org.obverse.anneal.AnnealSchedule;
-import org.obverse.anneal.StreamSeeds;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.QubitGraph;
 import org.obverse.device.ValueRange;
@@ -31,6 +30,8 @@ import org.obverse.io.codec.ChainsCodec;
 import org.obverse.io.json.ContentHash;
 import org.obverse.io.codec.DeviceCodec;
 import org.obverse.io.codec.GaugeManifest;
+import org.obverse.io.codec.PreparedCodec;
+import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.JobTable;
 import org.obverse.io.json.JsonFiles;
 import org.obverse.io.codec.ProblemCodec;
@@ -38,6 +39,8 @@ import org.obverse.io.codec.ProblemFile;
 import org.obverse.io.codec.ScheduleCodec;
 import org.obverse.model.IsingProblem;
 import org.obverse.problems.GrayCodeSearch;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 
 /**
  * Prepares a campaign folder from a plan (spec/campaign.md): copies the inputs in, finds chains
@@ -51,12 +54,6 @@ import org.obverse.problems.GrayCodeSearch;
  * same plan gives the same folder, byte for byte.
  */
 public final class CampaignPrepareStep {
-    /** Purposes of the seeds derived from the plan's seed (with {@link StreamSeeds#derive}). */
-    static final long CHAINS_SEED = 101;
-    static final long GAUGES_SEED = 102;
-    static final long JOBS_SEED = 103;
-    static final long DECODE_SEED = 104;
-
     /** Largest logical problem whose ground energy is worked out exactly (every assignment). */
     public static final int EXACT_GROUND_LIMIT = GrayCodeSearch.MAX_VARIABLES;
 
@@ -150,7 +147,7 @@ public final class CampaignPrepareStep {
                     ProblemCodec.write(dir.resolve(embedded), false, physical);
                     String gaugeDir = CampaignFolder.gaugeFolder(inst.name(), couplings[v]);
                     Files.createDirectories(dir.resolve(gaugeDir).getParent());
-                    long gaugeSeed = StreamSeeds.derive(plan.seed(), GAUGES_SEED, (long) k * couplings.length + v);
+                    long gaugeSeed = RandomStreams.derive(plan.seed(), StreamPurpose.PLAN_GAUGES, (long) k * couplings.length + v);
                     GaugeStep.Result g = GaugeStep.run(new GaugeStep.Request(dir.resolve(embedded),
                             dir.resolve("inputs/device.json"),
                             dir.resolve(CampaignFolder.chainsFile(inst.name())), LockPolicy.ofLabel(plan.gauges().lock()),
@@ -183,20 +180,14 @@ public final class CampaignPrepareStep {
                     }
                 }
             }
-            StringBuilder g = new StringBuilder("instance,ground_energy,ground_source\n");
+            List<GroundTable.Row> g = new ArrayList<>();
             for (int k = 0; k < ground.length; k++) {
-                g.append(plan.instances().get(k).name()).append(',')
-                        .append(Double.isNaN(ground[k]) ? "" : Double.toString(ground[k])).append(',')
-                        .append(groundSource[k]).append('\n');
+                g.add(new GroundTable.Row(plan.instances().get(k).name(), ground[k], groundSource[k]));
             }
-            Files.writeString(dir.resolve(CampaignFolder.GROUND), g);
+            Files.writeString(dir.resolve(CampaignFolder.GROUND), GroundTable.text(g));
             Files.writeString(dir.resolve(CampaignFolder.JOBS), JobTable.text(jobs));
             Files.writeString(dir.resolve(CampaignFolder.PLAN), JsonFiles.text(own));
-            ObjectNode prepared = JsonFiles.MAPPER.createObjectNode();
-            prepared.put("format", "obverse.prepared/1");
-            prepared.put("inputs_sha256", inputsHash);
-            prepared.put("jobs", jobs.size());
-            Files.writeString(dir.resolve(CampaignFolder.PREPARED), JsonFiles.text(prepared));
+            Files.writeString(dir.resolve(CampaignFolder.PREPARED), PreparedCodec.text(inputsHash, jobs.size()));
             Files.createDirectories(dir.resolve(CampaignFolder.RAW));
         });
         notes.add(String.format("%d jobs: %d instances x %d chain couplings x %d schedules x %d gauges%s, %d reads each",
@@ -286,7 +277,7 @@ public final class CampaignPrepareStep {
             if (c == null) {
                 int index = byStructure.size();
                 c = EmbedStep.findChains(q, graph, null, plan.device(), plan.instances().get(k).problem(),
-                        new EmbedStep.Search(EmbedStep.Finder.REROUTE, StreamSeeds.derive(plan.seed(), CHAINS_SEED, index),
+                        new EmbedStep.Search(EmbedStep.Finder.REROUTE, RandomStreams.derive(plan.seed(), StreamPurpose.PLAN_CHAINS, index),
                                 FINDER_ROUNDS, FINDER_TRIES, 0)).chains();
                 byStructure.put(key, c);
                 notes.add(String.format("chains for %s%s: found on %d qubits, longest chain %d", plan.instances().get(k)
@@ -391,7 +382,7 @@ public final class CampaignPrepareStep {
                                     String scheduleHash) {
         String id = String.format("j%05d", index);
         return new JobTable.Job(id, instance, coupling, s.name(), s.annealUs(), s.pauseS(), s.pauseUs(), runUs, gauged,
-                gauge, reads, StreamSeeds.derive(plan.seed(), JOBS_SEED, index), problem, problemHash, manifest,
+                gauge, reads, RandomStreams.derive(plan.seed(), StreamPurpose.PLAN_JOBS, index), problem, problemHash, manifest,
                 scheduleFile, scheduleHash, CampaignFolder.RAW + "/" + id + ".npy");
     }
 

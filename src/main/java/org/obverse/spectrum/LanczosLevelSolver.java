@@ -4,10 +4,10 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.apache.commons.rng.UniformRandomProvider;
-import org.apache.commons.rng.simple.RandomSource;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.obverse.random.LegacyStreams;
 
 /**
  * Lowest levels by a matrix-free thick-restart Lanczos method with full reorthogonalisation,
@@ -187,7 +187,7 @@ public final class LanczosLevelSolver implements LevelSolver {
         double scale = Math.max(1.0, op.normBound());
         double tol = tolerance * scale;
         double tiny = 1e-14 * scale;
-        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED + p);
+        UniformRandomProvider rng = LegacyStreams.ofSeed(SEED + p);
         int basisMax = basisVectors(dim, p, k);
         int sinceLock = 0;
         double[][] q = new double[basisMax][];
@@ -334,9 +334,9 @@ public final class LanczosLevelSolver implements LevelSolver {
                 return null;
             }
             if (restart == MAX_RESTARTS) {
-                throw new IllegalStateException("the Lanczos solver did not reach residual " + tol + " in "
+                throw new SolverNotConvergedException("the Lanczos solver did not reach residual " + tol + " in "
                         + MAX_RESTARTS + " restarts (dimension " + dim + ", " + locked.size() + " of " + k
-                        + " levels locked); use --solver dense for a small problem or a looser --tolerance");
+                        + " levels locked)");
             }
             if (locked.size() >= k && !fresh) {
                 // Confirm from scratch: a new basis from a block of random vectors orthogonal to
