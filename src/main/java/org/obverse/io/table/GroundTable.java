@@ -1,5 +1,6 @@
 package org.obverse.io.table;
 
+import org.obverse.io.BadInputException;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
