@@ -20,6 +20,7 @@ import org.obverse.io.BadInputException;
 import org.obverse.io.codec.ChainList;
 import org.obverse.io.codec.ChainsCodec;
 import org.obverse.io.codec.DeviceCodec;
+import org.obverse.io.codec.EmbeddingMeta;
 import org.obverse.io.json.JsonFiles;
 import org.obverse.io.codec.ProblemCodec;
 import org.obverse.io.codec.ProblemFile;
@@ -28,9 +29,7 @@ import org.obverse.random.LegacyStreams;
 
 /**
  * Places a logical problem on a device through chains and writes the physical problem, whose
- * {@code meta} records the embedding ({@code scale}, {@code chain_coupling},
- * {@code chain_coupling_mode}, {@code chain_couplers}, {@code chain_energy},
- * {@code logical_offset}, {@code logical_variables}, {@code longest_chain}). Without chains it
+ * {@code meta} records the embedding ({@link EmbeddingMeta}, written by {@link ProblemCodec}). Without chains it
  * finds them first (seeded) and writes them too.
  *
  * <p>{@link #findChains}, {@link #embed} and {@link #physicalFile} are the in-memory parts a
@@ -38,9 +37,6 @@ import org.obverse.random.LegacyStreams;
  * chain coupling.
  */
 public final class EmbedStep {
-    /** Meta keys that mark a problem as the physical problem of an embedding. */
-    public static final List<String> EMBEDDING_META = List.of("chain_coupling", "chain_couplers", "chain_energy");
-
     private EmbedStep() {
     }
 
@@ -184,16 +180,9 @@ public final class EmbedStep {
 
     /** The physical problem file of an embedding: the physical problem with the embedding's meta. */
     public static ProblemFile physicalFile(IsingProblem logical, EmbeddedProblem ep) {
-        ObjectNode meta = JsonFiles.MAPPER.createObjectNode();
-        meta.put("scale", ep.scale());
-        meta.put("chain_coupling", ep.strength().value());
-        meta.put("chain_coupling_mode", ep.strength().mode().label());
-        meta.put("chain_couplers", ep.chainCouplerCount());
-        meta.put("chain_energy", ep.chainEnergy());
-        meta.put("logical_offset", logical.offset());
-        meta.put("logical_variables", logical.size());
-        meta.put("longest_chain", ep.chains().maxLength());
-        return ProblemFile.of(ep.physical(), meta);
+        return ProblemCodec.embedded(ep.physical(), new EmbeddingMeta(ep.scale(), ep.strength().value(),
+                ep.strength().mode().label(), ep.chainCouplerCount(), ep.chainEnergy(), logical.offset(), logical.size(),
+                ep.chains().maxLength()));
     }
 
     /** The chains file's content of chains. */

@@ -1,6 +1,5 @@
 package org.obverse.campaign;
 
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -20,7 +19,7 @@ import org.obverse.io.codec.ChainList;
 import org.obverse.io.codec.ChainsCodec;
 import org.obverse.io.codec.DeviceCodec;
 import org.obverse.io.codec.GaugeManifest;
-import org.obverse.io.json.JsonFiles;
+import org.obverse.io.codec.GaugeMeta;
 import org.obverse.io.codec.ManifestCodec;
 import org.obverse.io.codec.ProblemCodec;
 import org.obverse.io.codec.ProblemFile;
@@ -113,12 +112,7 @@ public final class GaugeStep {
      * meta and a {@code gauge} entry (index and source hash) added.
      */
     static ProblemFile gaugedFile(ProblemFile source, IsingProblem spin, Gauge g, int index, String sourceHash) {
-        ObjectNode meta = source.meta() == null ? JsonFiles.MAPPER.createObjectNode() : source.meta().deepCopy();
-        ObjectNode gm = meta.putObject("gauge");
-        gm.put("index", index);
-        gm.put("source_sha256", sourceHash);
-        gm.put("flipped_count", g.flippedCount());
-        return ProblemFile.of(GaugeTransform.apply(spin, g), meta);
+        return ProblemCodec.gauged(source, GaugeTransform.apply(spin, g), new GaugeMeta(index, sourceHash, g.flippedCount()));
     }
 
     static GaugeManifest.ClusterCounts counts(LockedClusters c) {

@@ -11,9 +11,9 @@ import java.util.TreeMap;
 import org.obverse.anneal.EnergyScales;
 import org.obverse.io.codec.CampaignPlan;
 import org.obverse.io.table.EnergyScalesTable;
-import org.obverse.io.table.CsvReader;
 import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.PauseGapTable;
+import org.obverse.io.table.ResultsTable;
 import org.obverse.io.codec.ProblemCodec;
 import org.obverse.model.IsingProblem;
 import org.obverse.report.Figure;
@@ -160,32 +160,31 @@ public final class PauseGapStep {
 
     private static Map<String, Cell> cells(CampaignFolder folder, Map<String, Double> ground) throws IOException {
         Map<String, Cell> out = new LinkedHashMap<>();
-        try (CsvReader csv = CsvReader.open(folder.resolve(CampaignFolder.RESULTS))) {
-            int[] c = csv.require("a campaign's results table", "instance", "energy", "count", "chain_coupling",
-                    "anneal_us", "pause_s", "pause_us", "gauged");
-            String[] r;
-            while ((r = csv.record()) != null) {
-                if (!r[c[7]].equals("yes") || r[c[4]].isEmpty()) {
-                    continue;
-                }
-                String key = r[c[0]] + "|" + r[c[3]] + "|" + r[c[4]] + "|" + r[c[5]] + "|" + r[c[6]];
-                Cell cell = out.get(key);
-                if (cell == null) {
-                    cell = new Cell(r[c[0]], Double.parseDouble(r[c[3]]), Double.parseDouble(r[c[4]]),
-                            r[c[5]].isEmpty() ? Double.NaN : Double.parseDouble(r[c[5]]),
-                            r[c[6]].isEmpty() ? Double.NaN : Double.parseDouble(r[c[6]]));
-                    out.put(key, cell);
-                }
-                long n = Long.parseLong(r[c[2]]);
-                cell.reads += n;
-                Double g = ground.get(r[c[0]]);
-                if (g != null && !r[c[1]].isEmpty() && SuccessRule.DEFAULT.isSuccess(Double.parseDouble(r[c[1]]), g)) {
-                    cell.successes += n;
-                }
+        ResultsTable.forEachRow(folder.resolve(CampaignFolder.RESULTS), CELL_COLUMNS, row -> {
+            List<String> x = row.extra();
+            if (!x.get(4).equals("yes") || x.get(1).isEmpty()) {
+                return;
             }
-        }
+            String key = row.instance() + "|" + x.get(0) + "|" + x.get(1) + "|" + x.get(2) + "|" + x.get(3);
+            Cell cell = out.get(key);
+            if (cell == null) {
+                cell = new Cell(row.instance(), Double.parseDouble(x.get(0)), Double.parseDouble(x.get(1)),
+                        x.get(2).isEmpty() ? Double.NaN : Double.parseDouble(x.get(2)),
+                        x.get(3).isEmpty() ? Double.NaN : Double.parseDouble(x.get(3)));
+                out.put(key, cell);
+            }
+            cell.reads += row.count();
+            Double g = ground.get(row.instance());
+            if (g != null && !Double.isNaN(row.energy()) && SuccessRule.DEFAULT.isSuccess(row.energy(), g)) {
+                cell.successes += row.count();
+            }
+        });
         return out;
     }
+
+    /** The campaign's extra columns that place a row in a cell, then whether its reads were gauged. */
+    private static final List<String> CELL_COLUMNS = List.of("chain_coupling", "anneal_us", "pause_s", "pause_us",
+            "gauged");
 
     private static String row(Cell c, double[] s, double[] gap, List<GapDip> dips) {
         double gapAt = Double.NaN;

@@ -117,14 +117,7 @@ public final class SampleStep {
      * sampled directly is its own logical problem).
      */
     public static EnergyFrame frameOf(ProblemFile problem) {
-        if (problem.meta() != null) {
-            for (String key : EmbedStep.EMBEDDING_META) {
-                if (problem.meta().has(key)) {
-                    return EnergyFrame.PHYSICAL;
-                }
-            }
-        }
-        return EnergyFrame.LOGICAL;
+        return ProblemCodec.recordsEmbedding(problem) ? EnergyFrame.PHYSICAL : EnergyFrame.LOGICAL;
     }
 
     /** The seed gauge {@code index} of a manifest is sampled with, derived from the run's seed. */

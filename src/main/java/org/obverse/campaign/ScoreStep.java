@@ -10,6 +10,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Objects;
 import java.util.Set;
+import java.util.function.UnaryOperator;
 import org.obverse.io.BadInputException;
 import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.ResultsTable;
@@ -45,13 +46,26 @@ public final class ScoreStep {
      * What to score and how. results holds results tables or campaign folders (a folder gives
      * its results.csv, and its ground.csv when ground is null). ground, baseline may be null;
      * baseline is "COLUMN=VALUE" (an empty value: rows where the column is empty); sweep lists
-     * the swept columns (empty: no sweep). band and outerBand are {low, high} fractions.
+     * the swept columns (empty: no sweep). band and outerBand are {low, high} fractions. names
+     * gives the name under which the outputs record an input file (null: as read); a caller
+     * that reads from a folder about to be renamed passes the file's final name.
      */
     public record Request(List<Path> results, Path ground, double target, double confidence, double quantile,
                           double[] band, double[] outerBand, int replicates, long seed, int threads,
                           List<Comparison> compare, String baseline, List<String> sweep, double absoluteTolerance,
-                          double relativeTolerance, Resampling resample, StepProgress progress) {
+                          double relativeTolerance, Resampling resample, StepProgress progress,
+                          UnaryOperator<Path> names) {
+        /** A request whose outputs name the input files as read. */
+        public Request(List<Path> results, Path ground, double target, double confidence, double quantile,
+                       double[] band, double[] outerBand, int replicates, long seed, int threads,
+                       List<Comparison> compare, String baseline, List<String> sweep, double absoluteTolerance,
+                       double relativeTolerance, Resampling resample, StepProgress progress) {
+            this(results, ground, target, confidence, quantile, band, outerBand, replicates, seed, threads, compare,
+                    baseline, sweep, absoluteTolerance, relativeTolerance, resample, progress, null);
+        }
+
         public Request {
+            names = names == null ? UnaryOperator.identity() : names;
             results = List.copyOf(results);
             if (results.isEmpty()) {
                 throw new IllegalArgumentException("no results table");
@@ -68,7 +82,7 @@ public final class ScoreStep {
     }
 
     /**
-     * A scored campaign: the tables as read (resolved file names), their summary, the rule that
+     * A scored campaign: the tables read (resolved file names, as the request's names give them), their summary, the rule that
      * decided success, the setting columns (per setting, column → value), the swept columns with
      * the first one's numeric value per setting (NaN where empty; null without a sweep), the
      * sweep groups, how many of the summary's comparisons came from --compare (the rest are
@@ -169,7 +183,8 @@ public final class ScoreStep {
         long work = (long) r.replicates() * c.gaugeSlots();
         CampaignSummary summary = CampaignSummary.of(c, options,
                 r.progress().start(BOOTSTRAP, r.replicates(), work));
-        return new Result(loaded, summary, rule, List.copyOf(files), groundFile, columns, r.sweep(), bySetting,
+        return new Result(loaded, summary, rule, files.stream().map(r.names()).toList(),
+                groundFile == null ? null : r.names().apply(groundFile), columns, r.sweep(), bySetting,
                 groups, compareCount, r.baseline(), without);
     }
 

@@ -13,11 +13,13 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
+import java.util.function.UnaryOperator;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.BadInputException;
 import org.obverse.model.BinaryProblem;
 import org.obverse.problems.DegreeBoundedSpanningTree;
 import org.obverse.problems.WindArray;
+import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
@@ -129,14 +131,6 @@ public final class DemoCommand implements Callable<Integer> {
         r1.add(0, "report");
         r1.addAll(List.of("--out", "report"));
         verb(r1.toArray(new String[0]));
-        // The steps ran in a temporary folder that is renamed at the end: name the final one instead.
-        String finalDir = out.toAbsolutePath().normalize().toString();
-        for (String f : new String[] {"report/report.html", "report/scores.json", "scores/scores.json"}) {
-            Path file = dir.resolve(f);
-            if (Files.exists(file)) {
-                Files.writeString(file, Files.readString(file).replace(dir.toString(), finalDir));
-            }
-        }
         say.println("  wrote report/report.html");
     }
 
@@ -159,7 +153,7 @@ public final class DemoCommand implements Callable<Integer> {
         }
         StringWriter o = new StringWriter();
         StringWriter e = new StringWriter();
-        int code = Main.run(absolute, new PrintWriter(o, true), new PrintWriter(e, true));
+        int code = runInWorkFolder(absolute, dir, out, new PrintWriter(o, true), new PrintWriter(e, true));
         StringBuilder shown = new StringBuilder("obverse");
         for (String a : args) {
             shown.append(' ').append(a.matches("[A-Za-z0-9_./=,:+-]+") ? a : "'" + a + "'");
@@ -170,6 +164,26 @@ public final class DemoCommand implements Callable<Integer> {
             throw new BadInputException("demo step failed (exit " + code + "): " + shown + ": " + e.toString().strip());
         }
         return relative(o.toString());
+    }
+
+    /**
+     * Runs one verb on files in a working folder that is renamed to finalFolder afterwards: what
+     * {@code score} and {@code report} record of their inputs names the files where they will be,
+     * so no output is rewritten after the fact.
+     */
+    static int runInWorkFolder(String[] args, Path work, Path finalFolder, PrintWriter o, PrintWriter e) {
+        CommandLine cl = Main.commandLine();
+        UnaryOperator<Path> names = file -> finalName(file, work, finalFolder);
+        ((ScoreCommand) cl.getSubcommands().get("score").getCommand()).scoring.names = names;
+        ((ReportCommand) cl.getSubcommands().get("report").getCommand()).scoring.names = names;
+        return Main.run(cl, args, o, e);
+    }
+
+    /** A file's absolute path once the working folder is renamed to the final one (unchanged outside it). */
+    static Path finalName(Path file, Path work, Path finalFolder) {
+        Path absolute = file.toAbsolutePath().normalize();
+        Path w = work.toAbsolutePath().normalize();
+        return absolute.startsWith(w) ? finalFolder.toAbsolutePath().normalize().resolve(w.relativize(absolute)) : file;
     }
 
     /** Text with the working folder's paths shown relative to it. */

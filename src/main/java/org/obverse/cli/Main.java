@@ -62,7 +62,11 @@ public final class Main implements Runnable {
 
     /** Runs the command line with the given writers and returns the exit code (used by tests). */
     public static int run(String[] args, PrintWriter out, PrintWriter err) {
-        CommandLine cl = commandLine();
+        return run(commandLine(), args, out, err);
+    }
+
+    /** Runs a command tree made by {@link #commandLine()} (set up further by the caller). */
+    static int run(CommandLine cl, String[] args, PrintWriter out, PrintWriter err) {
         cl.setOut(out);
         cl.setErr(err);
         try {

@@ -5,6 +5,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.UnaryOperator;
 import org.obverse.campaign.ScoreStep;
 import org.obverse.campaign.StepProgress;
 import org.obverse.io.BadInputException;
@@ -90,6 +91,12 @@ final class ScoringOptions {
     @Option(names = "--quiet", description = "no progress lines")
     boolean quiet;
 
+    /**
+     * The name under which outputs record an input file; not an option: set by a command that
+     * runs this one on files in a folder about to be renamed (the demo).
+     */
+    UnaryOperator<Path> names = UnaryOperator.identity();
+
     /** The scoring request these options describe; progress goes to err unless --quiet. */
     ScoreStep.Request request(PrintWriter err) {
         List<ScoreStep.Comparison> pairs = new ArrayList<>();
@@ -109,7 +116,7 @@ final class ScoringOptions {
             throw new BadInputException("--resample: " + e.getMessage());
         }
         return new ScoreStep.Request(inputs, ground, target, confidence, quantile, band, outerBand, replicates, seed,
-                threads.count(), pairs, baseline, sweep, absoluteTolerance, relativeTolerance, scheme, progress);
+                threads.count(), pairs, baseline, sweep, absoluteTolerance, relativeTolerance, scheme, progress, names);
     }
 
     /** Every file or folder read (results tables, campaign folders, ground energies): an output must not overlap them. */

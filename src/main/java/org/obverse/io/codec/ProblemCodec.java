@@ -197,6 +197,113 @@ public final class ProblemCodec {
         AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(pf)));
     }
 
+    /** Keys of the embedding block; any one of the first three marks a problem as physical. */
+    private static final java.util.List<String> EMBEDDING_MARKS = java.util.List.of("chain_coupling", "chain_couplers",
+            "chain_energy");
+    private static final String GAUGE = "gauge";
+
+    /** The physical problem file of an embedding: the problem with the embedding block as its meta. */
+    public static ProblemFile embedded(IsingProblem physical, EmbeddingMeta m) {
+        ObjectNode meta = JsonFiles.MAPPER.createObjectNode();
+        meta.put("scale", m.scale());
+        meta.put("chain_coupling", m.chainCoupling());
+        meta.put("chain_coupling_mode", m.chainCouplingMode());
+        meta.put("chain_couplers", m.chainCouplers());
+        meta.put("chain_energy", m.chainEnergy());
+        meta.put("logical_offset", m.logicalOffset());
+        meta.put("logical_variables", m.logicalVariables());
+        meta.put("longest_chain", m.longestChain());
+        return ProblemFile.of(physical, meta);
+    }
+
+    /**
+     * A gauged problem file: the gauged problem with the source's meta kept and the gauge block
+     * added as {@code meta.gauge} (replacing one the source had, in its place).
+     */
+    public static ProblemFile gauged(ProblemFile source, IsingProblem gauged, GaugeMeta g) {
+        ObjectNode meta = source.meta() == null ? JsonFiles.MAPPER.createObjectNode() : source.meta().deepCopy();
+        ObjectNode gm = meta.putObject(GAUGE);
+        gm.put("index", g.index());
+        gm.put("source_sha256", g.sourceSha256());
+        gm.put("flipped_count", g.flippedCount());
+        return ProblemFile.of(gauged, meta);
+    }
+
+    /**
+     * Whether a problem's meta records an embedding (any of {@code chain_coupling},
+     * {@code chain_couplers}, {@code chain_energy}): its energies are then physical ones. A
+     * gauged problem keeps its source's embedding block.
+     */
+    public static boolean recordsEmbedding(ProblemFile pf) {
+        if (pf.meta() != null) {
+            for (String key : EMBEDDING_MARKS) {
+                if (pf.meta().has(key)) {
+                    return true;
+                }
+            }
+        }
+        return false;
+    }
+
+    /**
+     * The embedding block of a problem read from file, or empty where its meta records none.
+     *
+     * @throws org.obverse.io.BadInputException where the block is there but a field is missing or of the wrong type
+     */
+    public static java.util.Optional<EmbeddingMeta> embedding(Path file, ProblemFile pf) {
+        if (!recordsEmbedding(pf)) {
+            return java.util.Optional.empty();
+        }
+        JsonFields f = new JsonFields(file);
+        ObjectNode m = pf.meta();
+        String fix = "write the problem again with 'obverse embed', or remove the embedding keys from meta";
+        return java.util.Optional.of(new EmbeddingMeta(
+                f.number(m.get("scale"), "\"meta\".\"scale\""),
+                f.number(m.get("chain_coupling"), "\"meta\".\"chain_coupling\""),
+                text(f, m, "chain_coupling_mode", "\"meta\"", fix),
+                count(f, m, "chain_couplers", "\"meta\"", fix),
+                f.number(m.get("chain_energy"), "\"meta\".\"chain_energy\""),
+                f.number(m.get("logical_offset"), "\"meta\".\"logical_offset\""),
+                count(f, m, "logical_variables", "\"meta\"", fix),
+                count(f, m, "longest_chain", "\"meta\"", fix)));
+    }
+
+    /**
+     * The gauge block of a problem read from file, or empty where its meta has none.
+     *
+     * @throws org.obverse.io.BadInputException where the block is there but a field is missing or of the wrong type
+     */
+    public static java.util.Optional<GaugeMeta> gauge(Path file, ProblemFile pf) {
+        if (pf.meta() == null || !pf.meta().has(GAUGE)) {
+            return java.util.Optional.empty();
+        }
+        JsonFields f = new JsonFields(file);
+        JsonNode g = pf.meta().get(GAUGE);
+        String at = "\"meta\".\"gauge\"";
+        String fix = "gauge the source problem again with 'obverse gauge', or remove meta.gauge";
+        if (!g.isObject()) {
+            throw f.bad(at, "is " + JsonFields.describe(g) + ", not an object", fix);
+        }
+        return java.util.Optional.of(new GaugeMeta(count(f, g, "index", at, fix), text(f, g, "source_sha256", at, fix),
+                count(f, g, "flipped_count", at, fix)));
+    }
+
+    private static String text(JsonFields f, JsonNode obj, String key, String at, String fix) {
+        JsonNode n = obj.get(key);
+        if (n == null || !n.isTextual()) {
+            throw f.bad(at + ".\"" + key + "\"", "is " + JsonFields.describe(n) + ", not a string", fix);
+        }
+        return n.asText();
+    }
+
+    private static int count(JsonFields f, JsonNode obj, String key, String at, String fix) {
+        JsonNode n = obj.get(key);
+        if (n == null || !n.isIntegralNumber() || !n.canConvertToInt() || n.intValue() < 0) {
+            throw f.bad(at + ".\"" + key + "\"", "is " + JsonFields.describe(n) + ", not a count >= 0", fix);
+        }
+        return n.intValue();
+    }
+
     /**
      * SHA-256 of the problem's canonical form: what the manifest binds (layout and meta order
      * don't matter). An {@code .npy} or {@code .npz} problem hashes as the problem it decodes to,

@@ -209,6 +209,50 @@ public final class ResultsTable {
     }
 
     /**
+     * One row of a results table as read: the fixed columns checked and parsed, and the text of
+     * the extra columns asked for.
+     *
+     * @param gauge  the gauge index, or {@link Campaign#NO_GAUGE} where the field is empty
+     * @param energy the energy, NaN for a read that gave no answer (an empty field)
+     * @param extra  the extra columns' fields, in the order asked for
+     */
+    public record Entry(String instance, String setting, int gauge, double energy, long count, long broken,
+            double runUs, List<String> extra) {
+    }
+
+    /** What {@link #forEachRow} hands each row to. */
+    @FunctionalInterface
+    public interface EntryConsumer {
+        void accept(Entry row);
+    }
+
+    /**
+     * Streams the rows of one results table in file order, for a caller that sums them its own
+     * way (a campaign's pause cells); the table must have the fixed columns and the extra
+     * columns named.
+     *
+     * @throws BadInputException at a missing column or the first bad row
+     */
+    public static void forEachRow(Path file, List<String> extraColumns, EntryConsumer action) throws IOException {
+        try (CsvReader csv = CsvReader.open(file)) {
+            List<String> names = new ArrayList<>(COLUMNS);
+            names.addAll(extraColumns);
+            int[] all = csv.require("a results table", names.toArray(new String[0]));
+            int[] col = java.util.Arrays.copyOf(all, COLUMNS.size());
+            String[] r;
+            while ((r = csv.record()) != null) {
+                Row row = parse(csv, col, r);
+                String[] extra = new String[extraColumns.size()];
+                for (int k = 0; k < extra.length; k++) {
+                    extra[k] = r[all[COLUMNS.size() + k]];
+                }
+                action.accept(new Entry(row.instance, row.setting, row.gauge, row.energy, row.count, row.broken,
+                        row.runUs, List.of(extra)));
+            }
+        }
+    }
+
+    /**
      * Refuses a row whose frame differs from its instance's ground energy's (ground given)
      * or, without ground energies, from the frame of the instance's earlier rows.
      */
