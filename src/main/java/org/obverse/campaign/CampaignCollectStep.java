@@ -20,8 +20,8 @@ import org.obverse.io.BadInputException;
 import org.obverse.io.codec.CampaignPlan;
 import org.obverse.io.codec.ChainList;
 import org.obverse.io.codec.ChainsCodec;
-import org.obverse.io.table.CsvReader;
 import org.obverse.io.codec.GaugeManifest;
+import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.JobTable;
 import org.obverse.io.codec.ManifestCodec;
 import org.obverse.io.npy.NpyVectors;
@@ -350,19 +350,10 @@ public final class CampaignCollectStep {
     /** Rewrites ground.csv with the best energy seen filled in where no ground energy was known. */
     private static void writeGround(CampaignFolder folder, Map<String, Double> bestSeen) throws IOException {
         Path file = folder.resolve(CampaignFolder.GROUND);
-        StringBuilder out = new StringBuilder("instance,ground_energy,ground_source\n");
-        try (CsvReader csv = CsvReader.open(file)) {
-            int[] c = csv.require("a campaign's ground-energy table", "instance", "ground_energy", "ground_source");
-            String[] r;
-            while ((r = csv.record()) != null) {
-                String energy = r[c[1]];
-                if (r[c[2]].equals("best_seen")) {
-                    Double b = bestSeen.get(r[c[0]]);
-                    energy = b == null ? "" : b.toString();
-                }
-                out.append(CsvReader.quote(r[c[0]])).append(',').append(energy).append(',').append(r[c[2]]).append('\n');
-            }
+        List<GroundTable.Row> rows = new ArrayList<>();
+        for (GroundTable.Row r : GroundTable.read(file)) {
+            rows.add(r.source().equals("best_seen") ? r.withEnergy(bestSeen.getOrDefault(r.instance(), Double.NaN)) : r);
         }
-        AtomicOutput.writeText(file, true, List.of(), out.toString());
+        AtomicOutput.writeText(file, true, List.of(), GroundTable.text(rows));
     }
 }

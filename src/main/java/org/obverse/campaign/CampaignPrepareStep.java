@@ -31,6 +31,8 @@ import org.obverse.io.codec.ChainsCodec;
 import org.obverse.io.json.ContentHash;
 import org.obverse.io.codec.DeviceCodec;
 import org.obverse.io.codec.GaugeManifest;
+import org.obverse.io.codec.PreparedCodec;
+import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.JobTable;
 import org.obverse.io.json.JsonFiles;
 import org.obverse.io.codec.ProblemCodec;
@@ -183,20 +185,14 @@ public final class CampaignPrepareStep {
                     }
                 }
             }
-            StringBuilder g = new StringBuilder("instance,ground_energy,ground_source\n");
+            List<GroundTable.Row> g = new ArrayList<>();
             for (int k = 0; k < ground.length; k++) {
-                g.append(plan.instances().get(k).name()).append(',')
-                        .append(Double.isNaN(ground[k]) ? "" : Double.toString(ground[k])).append(',')
-                        .append(groundSource[k]).append('\n');
+                g.add(new GroundTable.Row(plan.instances().get(k).name(), ground[k], groundSource[k]));
             }
-            Files.writeString(dir.resolve(CampaignFolder.GROUND), g);
+            Files.writeString(dir.resolve(CampaignFolder.GROUND), GroundTable.text(g));
             Files.writeString(dir.resolve(CampaignFolder.JOBS), JobTable.text(jobs));
             Files.writeString(dir.resolve(CampaignFolder.PLAN), JsonFiles.text(own));
-            ObjectNode prepared = JsonFiles.MAPPER.createObjectNode();
-            prepared.put("format", "obverse.prepared/1");
-            prepared.put("inputs_sha256", inputsHash);
-            prepared.put("jobs", jobs.size());
-            Files.writeString(dir.resolve(CampaignFolder.PREPARED), JsonFiles.text(prepared));
+            Files.writeString(dir.resolve(CampaignFolder.PREPARED), PreparedCodec.text(inputsHash, jobs.size()));
             Files.createDirectories(dir.resolve(CampaignFolder.RAW));
         });
         notes.add(String.format("%d jobs: %d instances x %d chain couplings x %d schedules x %d gauges%s, %d reads each",

@@ -15,11 +15,12 @@ import org.obverse.anneal.EnergyScales;
 import org.obverse.anneal.PathIntegralSettings;
 import org.obverse.anneal.SamplerSettings;
 import org.obverse.io.BadInputException;
+import org.obverse.io.codec.PreparedCodec;
+import org.obverse.io.table.EnergyScalesTable;
 import org.obverse.io.codec.CampaignPlan;
 import org.obverse.io.codec.CampaignPlanCodec;
 import org.obverse.io.codec.ControlErrorsCodec;
 import org.obverse.io.table.JobTable;
-import org.obverse.io.json.JsonFiles;
 import org.obverse.io.codec.ProblemCodec;
 import org.obverse.io.codec.ProblemFile;
 import org.obverse.io.samples.SampleCoding;
@@ -82,8 +83,7 @@ public final class CampaignRunStep {
             dir = r.out();
             if (Files.exists(dir) && CampaignFolder.isPrepared(dir) && !r.force()) {
                 String now = CampaignPrepareStep.inputsHash(CampaignPlanCodec.read(r.source()));
-                String then = JsonFiles.read(dir.resolve(CampaignFolder.PREPARED), "prepared").path("inputs_sha256")
-                        .asText();
+                String then = PreparedCodec.inputsSha256(dir.resolve(CampaignFolder.PREPARED));
                 if (!now.equals(then)) {
                     throw BadInputException.at(dir, "", "was prepared from another plan or other input files",
                             "give a new --out folder, or --force to prepare this one anew (its samples are lost)");
@@ -154,7 +154,7 @@ public final class CampaignRunStep {
         }
         if (s.kind().equals("sqa")) {
             EnergyScales scales = s.energyScales() == null ? EnergyScales.illustrative()
-                    : SpectrumStep.readEnergyScales(s.energyScales(), s.energyUnits());
+                    : EnergyScalesTable.read(s.energyScales(), s.energyUnits());
             return settings.withPathIntegral(new PathIntegralSettings(scales, s.temperature(), s.slices()));
         }
         if ("multi-spin".equals(s.kernel())) {

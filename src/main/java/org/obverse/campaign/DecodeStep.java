@@ -17,6 +17,7 @@ import org.obverse.embed.Chains;
 import org.obverse.embed.DecodedSamples;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.BadInputException;
+import org.obverse.io.table.ChainBreakTable;
 import org.obverse.io.table.EnergyFrame;
 import org.obverse.io.codec.ChainList;
 import org.obverse.io.codec.ChainsCodec;
@@ -305,7 +306,7 @@ public final class DecodeStep {
         NpyVectors.writeBool(dir.resolve(KEPT), false, d.kept());
         NpyVectors.writeInt32(dir.resolve(BROKEN), false, d.brokenChains());
         NpyVectors.writeFloat64(dir.resolve(ENERGIES), false, d.energies());
-        Files.writeString(dir.resolve(CHAINS), chainsTable(d, used));
+        Files.writeString(dir.resolve(CHAINS), ChainBreakTable.text(d, used));
     }
 
     /**
@@ -364,16 +365,5 @@ public final class DecodeStep {
             rows.row(labels.instance(), labels.setting(), labels.gauge(), Double.NaN, x.getValue()[0], x.getKey(),
                     labels.runUs(), extra);
         }
-    }
-
-    /** {@code logical_id,length,broken_reads,broken_fraction}, one line per chain in logical order. */
-    static String chainsTable(DecodedSamples d, Chains used) {
-        StringBuilder csv = new StringBuilder("logical_id,length,broken_reads,broken_fraction\n");
-        long[] breaks = d.breaksPerChain();
-        for (int k = 0; k < breaks.length; k++) {
-            csv.append(used.logicalId(k)).append(',').append(used.length(k)).append(',').append(breaks[k]).append(',')
-                    .append(d.reads() == 0 ? 0.0 : (double) breaks[k] / d.reads()).append('\n');
-        }
-        return csv.toString();
     }
 }

@@ -10,7 +10,10 @@ import java.util.Map;
 import java.util.TreeMap;
 import org.obverse.anneal.EnergyScales;
 import org.obverse.io.codec.CampaignPlan;
+import org.obverse.io.table.EnergyScalesTable;
 import org.obverse.io.table.CsvReader;
+import org.obverse.io.table.GroundTable;
+import org.obverse.io.table.PauseGapTable;
 import org.obverse.io.codec.ProblemCodec;
 import org.obverse.model.IsingProblem;
 import org.obverse.report.Figure;
@@ -53,8 +56,7 @@ public final class PauseGapStep {
     public record Result(String table, List<Figure> figures, String skipped) {
     }
 
-    static final String HEADER = "instance,chain_coupling,anneal_us,pause_s,pause_us,reads,successes,p_success,"
-            + "gap_at_pause,dip_before_s,dip_before_gap\n";
+    static final String HEADER = PauseGapTable.HEADER;
 
     public static Result run(Request r) throws IOException {
         CampaignFolder folder = CampaignFolder.open(r.folder());
@@ -64,7 +66,7 @@ public final class PauseGapStep {
                     + ", not the path-integral sampler (sqa): its pauses have no gap to compare with");
         }
         EnergyScales scales = plan.sampler().energyScales() == null ? EnergyScales.illustrative()
-                : SpectrumStep.readEnergyScales(plan.sampler().energyScales(), plan.sampler().energyUnits());
+                : EnergyScalesTable.read(plan.sampler().energyScales(), plan.sampler().energyUnits());
         Map<String, Double> ground = ground(folder);
         Map<String, Cell> cells = cells(folder, ground);
         double anneal = Double.POSITIVE_INFINITY;
@@ -148,13 +150,9 @@ public final class PauseGapStep {
 
     private static Map<String, Double> ground(CampaignFolder folder) throws IOException {
         Map<String, Double> out = new LinkedHashMap<>();
-        try (CsvReader csv = CsvReader.open(folder.resolve(CampaignFolder.GROUND))) {
-            int[] c = csv.require("a campaign's ground-energy table", "instance", "ground_energy");
-            String[] r;
-            while ((r = csv.record()) != null) {
-                if (!r[c[1]].isEmpty()) {
-                    out.put(r[c[0]], Double.parseDouble(r[c[1]]));
-                }
+        for (GroundTable.Row r : GroundTable.read(folder.resolve(CampaignFolder.GROUND))) {
+            if (!Double.isNaN(r.energy())) {
+                out.put(r.instance(), r.energy());
             }
         }
         return out;
@@ -190,11 +188,11 @@ public final class PauseGapStep {
     }
 
     private static String row(Cell c, double[] s, double[] gap, List<GapDip> dips) {
-        String gapAt = "";
-        String dipS = "";
-        String dipGap = "";
+        double gapAt = Double.NaN;
+        double dipS = Double.NaN;
+        double dipGap = Double.NaN;
         if (!Double.isNaN(c.pauseS)) {
-            gapAt = Double.toString(at(s, gap, c.pauseS));
+            gapAt = at(s, gap, c.pauseS);
             GapDip before = null;
             for (GapDip d : dips) {
                 if (d.s() <= c.pauseS && (before == null || d.s() > before.s())) {
@@ -202,13 +200,12 @@ public final class PauseGapStep {
                 }
             }
             if (before != null) {
-                dipS = Double.toString(before.s());
-                dipGap = Double.toString(before.gap());
+                dipS = before.s();
+                dipGap = before.gap();
             }
         }
-        return CsvReader.quote(c.instance) + "," + c.chainCoupling + "," + c.annealUs + ","
-                + (Double.isNaN(c.pauseS) ? "" : c.pauseS) + "," + (Double.isNaN(c.pauseUs) ? "" : c.pauseUs) + ","
-                + c.reads + "," + c.successes + "," + c.p() + "," + gapAt + "," + dipS + "," + dipGap + "\n";
+        return PauseGapTable.line(new PauseGapTable.Row(c.instance, c.chainCoupling, c.annealUs, c.pauseS, c.pauseUs,
+                c.reads, c.successes, c.p(), gapAt, dipS, dipGap));
     }
 
     /** The gap at s by linear interpolation between scan points. */

@@ -16,6 +16,7 @@ import org.obverse.io.samples.SampleCoding;
 import org.obverse.io.samples.SampleFiles;
 import org.obverse.io.samples.SampleReader;
 import org.obverse.io.samples.SampleWriter;
+import org.obverse.io.table.MagnetisationTable;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
 import org.obverse.samples.SampleBlock;
@@ -98,8 +99,8 @@ public final class UngaugeStep {
             read.add(src.folder.resolve(e.problem()));
         }
         AtomicOutput.writeDirectory(r.out(), r.force(), read, dir -> {
-            StringBuilder mag = new StringBuilder("qubit,gauge,reads,sum_spin,sign\n");
-            StringBuilder cor = new StringBuilder("qubit_a,qubit_b,gauge,reads,sum_product,sign\n");
+            MagnetisationTable.QubitRows mag = new MagnetisationTable.QubitRows();
+            MagnetisationTable.CouplerRows cor = new MagnetisationTable.CouplerRows();
             for (int i = 0; i < inputs.size(); i++) {
                 Path in = inputs.get(i);
                 if (in == null) {
@@ -117,8 +118,8 @@ public final class UngaugeStep {
                 }
                 done.add(new Done(e.index(), in, r.out().resolve(out.getFileName()), reads));
             }
-            Files.writeString(dir.resolve("magnetisation.csv"), mag);
-            Files.writeString(dir.resolve("correlations.csv"), cor);
+            mag.write(dir.resolve("magnetisation.csv"));
+            cor.write(dir.resolve("correlations.csv"));
         });
         return new Result(done, missing);
     }
@@ -171,18 +172,16 @@ public final class UngaugeStep {
             reads += b.reads();
         }
 
-        void append(StringBuilder mag, StringBuilder cor, int gauge, Gauge g, VariableIndex ids, IsingProblem p) {
+        void append(MagnetisationTable.QubitRows mag, MagnetisationTable.CouplerRows cor, int gauge, Gauge g,
+                    VariableIndex ids, IsingProblem p) {
             if (reads == 0) {
                 return; // an empty file has no moments; the tables require reads >= 1
             }
             for (int k = 0; k < up.length; k++) {
-                mag.append(ids.id(k)).append(',').append(gauge).append(',').append(reads).append(',')
-                        .append(2 * up[k] - reads).append(',').append(g.sign(k)).append('\n');
+                mag.add(ids.id(k), gauge, reads, 2 * up[k] - reads, g.sign(k));
             }
             for (int e = 0; e < u.length; e++) {
-                cor.append(ids.id(u[e])).append(',').append(ids.id(v[e])).append(',').append(gauge).append(',')
-                        .append(reads).append(',').append(reads - 2 * differ[e]).append(',')
-                        .append(g.sign(u[e]) * g.sign(v[e])).append('\n');
+                cor.add(ids.id(u[e]), ids.id(v[e]), gauge, reads, reads - 2 * differ[e], g.sign(u[e]) * g.sign(v[e]));
             }
         }
     }

@@ -37,10 +37,6 @@ public final class CampaignCommand implements Runnable {
         spec.commandLine().usage(spec.commandLine().getOut());
     }
 
-    static int defaultThreads() {
-        return Math.max(1, Math.min(2, Runtime.getRuntime().availableProcessors()));
-    }
-
     static StepProgress progress(CommandSpec spec, boolean quiet) {
         PrintWriter err = spec.commandLine().getErr();
         return (phase, total, work) -> Progress.of(err, phase, total, work, quiet);
@@ -169,14 +165,14 @@ public final class CampaignCommand implements Runnable {
 
     /** {@code --threads T} and {@code --quiet} of every campaign verb. */
     static final class WorkOptions {
-        @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
-        Integer threads;
+        @Mixin
+        ThreadsOption threads;
 
         @Option(names = "--quiet", description = "no progress lines")
         boolean quiet;
 
         int threads() {
-            return CampaignCommand.threads(threads);
+            return threads.count();
         }
     }
 
@@ -242,15 +238,5 @@ public final class CampaignCommand implements Runnable {
         static CampaignEngine start(String master, int jobsPerTask) {
             return org.obverse.campaign.spark.SparkCampaignEngine.start(master, jobsPerTask);
         }
-    }
-
-    static int threads(Integer threads) {
-        if (threads == null) {
-            return defaultThreads();
-        }
-        if (threads < 1) {
-            throw new org.obverse.io.BadInputException("--threads " + threads + ": need at least 1");
-        }
-        return threads;
     }
 }

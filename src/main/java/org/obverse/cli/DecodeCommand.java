@@ -14,6 +14,7 @@ import org.obverse.io.samples.SampleCoding;
 import org.obverse.io.codec.ScheduleCodec;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
@@ -60,11 +61,11 @@ public final class DecodeCommand implements Callable<Integer> {
                     + "from S and i")
     long seed;
 
-    @Option(names = "--out", required = true, paramLabel = "DIR", description = "output folder")
-    Path out;
+    @Mixin
+    OutputFolderOption output;
 
-    @Option(names = "--force", description = "replace an existing output folder")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Option(names = "--allow-missing", description = "with --manifest: skip a gauge without un-gauged reads")
     boolean allowMissing;
@@ -120,7 +121,7 @@ public final class DecodeCommand implements Callable<Integer> {
         if (manifest != null) {
             PrintWriter err = spec.commandLine().getErr();
             DecodeStep.ManifestResult res = DecodeStep.runManifest(new DecodeStep.ManifestRequest(manifest, samples,
-                    logical, chains, r, seed, coding, out, labels, allowMissing, force,
+                    logical, chains, r, seed, coding, output.path(), labels, allowMissing, force.on(),
                     (phase, total, work) -> Progress.of(err, phase, total, work, false)));
             long reads = 0;
             long kept = 0;
@@ -132,11 +133,11 @@ public final class DecodeCommand implements Callable<Integer> {
             }
             w.printf("decoded %d gauges (%s): %d reads, %d kept%s%n", res.done().size(), r.label(), reads, kept,
                     res.missing().isEmpty() ? "" : "; skipped gauges without reads: " + res.missing());
-            w.printf("wrote %s%n", out);
+            w.printf("wrote %s%n", output.path());
             return Main.DONE;
         }
         DecodeStep.Result res = DecodeStep.run(new DecodeStep.Request(problem, logical, chains, samples, r, seed, coding,
-                out, labels == null ? null : labels.withGauge(gauge == null ? -1 : gauge), force));
+                output.path(), labels == null ? null : labels.withGauge(gauge == null ? -1 : gauge), force.on()));
         DecodedSamples d = res.decoded();
         w.printf("%d reads, %d kept (%s); broken chains: %.6f of all chain readings, %.6f of reads have one%n", d.reads(),
                 d.keptReads(), r.label(), d.brokenFraction(), d.brokenReadFraction());
@@ -146,7 +147,7 @@ public final class DecodeCommand implements Callable<Integer> {
             w.printf("most broken: chain of logical %d (length %d), broken in %d reads%n",
                     id, res.chains().chainOf(id).length, d.breaksPerChain()[worst]);
         }
-        w.printf("wrote %s%n", out);
+        w.printf("wrote %s%n", output.path());
         return Main.DONE;
     }
 

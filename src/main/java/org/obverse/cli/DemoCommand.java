@@ -19,6 +19,7 @@ import org.obverse.model.BinaryProblem;
 import org.obverse.problems.DegreeBoundedSpanningTree;
 import org.obverse.problems.WindArray;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
@@ -50,8 +51,8 @@ public final class DemoCommand implements Callable<Integer> {
             description = "output folder (default: ${DEFAULT-VALUE}; must not exist)")
     Path out;
 
-    @Option(names = "--force", description = "replace an existing output folder")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     private PrintWriter say;
     private Writer log;
@@ -62,9 +63,9 @@ public final class DemoCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         say = spec.commandLine().getOut();
-        AtomicOutput.checkTarget(out, force, List.of());
+        AtomicOutput.checkTarget(out, force.on(), List.of());
         long start = System.nanoTime();
-        AtomicOutput.writeDirectory(out, force, List.of(), d -> {
+        AtomicOutput.writeDirectory(out, force.on(), List.of(), d -> {
             dir = d;
             try (Writer l = Files.newBufferedWriter(d.resolve("log.txt"), StandardCharsets.UTF_8)) {
                 log = l;

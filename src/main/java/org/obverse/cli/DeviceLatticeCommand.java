@@ -5,7 +5,6 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.security.SecureRandom;
 import java.util.Arrays;
 import java.util.concurrent.Callable;
 import org.apache.commons.rng.simple.RandomSource;
@@ -19,6 +18,7 @@ import org.obverse.io.codec.DeviceCodec;
 import org.obverse.io.json.JsonFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
@@ -55,8 +55,8 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
             description = "then remove K more of the remaining couplers at random")
     int randomCouplers;
 
-    @Option(names = "--seed", paramLabel = "S", description = "seed of the random defects (default: drawn and printed)")
-    Long seed;
+    @Mixin
+    DrawnSeedOption seed;
 
     @Option(names = "--field", split = ",", defaultValue = "-2,2", paramLabel = "LO,HI",
             description = "field range (default ${DEFAULT-VALUE})")
@@ -72,12 +72,12 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
     @Option(names = "--out", required = true, paramLabel = "D", description = "the device file to write")
     Path out;
 
-    @Option(names = "--force", description = "replace an existing output file")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Override
     public Integer call() throws Exception {
-        AtomicOutput.checkTarget(out, force, List.of());
+        AtomicOutput.checkTarget(out, force.on(), List.of());
         CellLattice lattice = CellLattice.of(rows, cols, shore);
         int[][] couplers = new int[removeCouplers.length][];
         for (int i = 0; i < couplers.length; i++) {
@@ -93,7 +93,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
             }
         }
         QubitGraph g = lattice.graphWithout(removeQubits, couplers);
-        long s = seed != null ? seed : new SecureRandom().nextLong();
+        long s = seed.orDrawn();
         boolean random = randomQubits > 0 || randomCouplers > 0;
         if (random) {
             g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers, RandomSource.XO_RO_SHI_RO_128_PP.create(s));
@@ -118,7 +118,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
         if (random) {
             meta.put("seed", s);
         }
-        AtomicOutput.writeText(out, force, List.of(), JsonFiles.text(root));
+        AtomicOutput.writeText(out, force.on(), List.of(), JsonFiles.text(root));
         PrintWriter w = spec.commandLine().getOut();
         w.printf("%s: %d of %d qubits, %d of %d couplers%s%n", lattice, g.qubits().size(), full.qubits().size(),
                 g.couplerCount(), full.couplerCount(), random ? " (random defects, seed " + s + ")" : "");

@@ -4,12 +4,12 @@ import org.obverse.io.BadInputException;
 import org.obverse.campaign.EmbedStep;
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.security.SecureRandom;
 import java.util.concurrent.Callable;
 import org.obverse.embed.ChainStrength;
 import org.obverse.embed.EmbeddedProblem;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
@@ -58,8 +58,8 @@ public final class EmbedCommand implements Callable<Integer> {
                     + "device's lattice (from device lattice) (default ${DEFAULT-VALUE})")
     String finder;
 
-    @Option(names = "--seed", paramLabel = "S", description = "seed of the search (default: drawn and printed)")
-    Long seed;
+    @Mixin
+    DrawnSeedOption seed;
 
     @Option(names = "--rounds", defaultValue = "2000", paramLabel = "R", description = "most search rounds (default ${DEFAULT-VALUE})")
     int rounds;
@@ -73,8 +73,8 @@ public final class EmbedCommand implements Callable<Integer> {
             description = "time limit of the whole search, 0 for none; no new try starts after it (default ${DEFAULT-VALUE})")
     double timeLimit;
 
-    @Option(names = "--force", description = "replace existing output files")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Override
     public Integer call() throws Exception {
@@ -95,11 +95,11 @@ public final class EmbedCommand implements Callable<Integer> {
             if (f == EmbedStep.Finder.REROUTE && (rounds < 1 || !(timeLimit >= 0))) {
                 throw new BadInputException("--rounds must be >= 1 and --time-limit >= 0");
             }
-            long s = seed != null || f == EmbedStep.Finder.CLIQUE ? (seed == null ? 0 : seed) : new SecureRandom().nextLong();
+            long s = f == EmbedStep.Finder.CLIQUE && !seed.given() ? 0 : seed.orDrawn();
             search = new EmbedStep.Search(f, s, Math.max(rounds, 1), tries, Math.max(timeLimit, 0));
         }
         EmbedStep.Result r = EmbedStep.run(new EmbedStep.Request(logical, chains, device, strength,
-                scale == null ? Double.NaN : scale, out, chainsOut, search, force));
+                scale == null ? Double.NaN : scale, out, chainsOut, search, force.on()));
         PrintWriter w = spec.commandLine().getOut();
         EmbedStep.Found found = r.found();
         if (found != null && found.lattice() != null) {

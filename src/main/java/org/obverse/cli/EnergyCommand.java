@@ -16,6 +16,7 @@ import org.obverse.model.IsingProblem;
 import org.obverse.samples.SampleBlock;
 import org.obverse.samples.EnergyKernel;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
@@ -38,8 +39,8 @@ public final class EnergyCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "E.npy", description = "write the energies here (NPY float64)")
     Path out;
 
-    @Option(names = "--force", description = "replace an existing output file")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Option(names = "--binary", description = "samples are stored as 0/1 (x = (1 + s) / 2) instead of -1/+1")
     boolean binary;
@@ -78,7 +79,7 @@ public final class EnergyCommand implements Callable<Integer> {
         }
         if (out != null) {
             double[] all = energies;
-            AtomicOutput.writeFiles(List.of(out), force, AtomicOutput.inputs(problem, samples),
+            AtomicOutput.writeFiles(List.of(out), force.on(), AtomicOutput.inputs(problem, samples),
                     files -> NpyVectors.writeFloat64(files.get(0), false, all));
             w.printf("wrote %d energies to %s%n", reads, out);
             return Main.DONE;

@@ -2,7 +2,6 @@ package org.obverse.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.security.SecureRandom;
 import java.util.concurrent.Callable;
 import org.obverse.io.BadInputException;
 import org.obverse.campaign.GaugeStep;
@@ -10,6 +9,7 @@ import org.obverse.gauge.GaugeDesign;
 import org.obverse.gauge.LockPolicy;
 import org.obverse.io.codec.GaugeManifest;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
@@ -46,14 +46,14 @@ public final class GaugeCommand implements Callable<Integer> {
                     + "half the gauges (pairwise balanced where N is a power of two). Default: ${DEFAULT-VALUE}.")
     String design;
 
-    @Option(names = "--seed", paramLabel = "S", description = "seed (default: drawn and recorded in the manifest)")
-    Long seed;
+    @Mixin
+    DrawnSeedOption seed;
 
-    @Option(names = "--out", required = true, paramLabel = "DIR", description = "output folder (must not exist)")
-    Path out;
+    @Mixin
+    OutputFolderOption output;
 
-    @Option(names = "--force", description = "replace an existing output folder")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Override
     public Integer call() throws Exception {
@@ -61,9 +61,9 @@ public final class GaugeCommand implements Callable<Integer> {
             throw new BadInputException("--count " + count + " must be at least 1");
         }
         LockPolicy policy = lock == null ? (chains != null ? LockPolicy.CHAINS : LockPolicy.RANGE) : LockPolicy.ofLabel(lock);
-        long s = seed != null ? seed : new SecureRandom().nextLong();
+        long s = seed.orDrawn();
         GaugeStep.Result r = GaugeStep.run(new GaugeStep.Request(problem, device, chains, policy,
-                GaugeDesign.ofLabel(design), count, s, out, force));
+                GaugeDesign.ofLabel(design), count, s, output.path(), force.on()));
         GaugeManifest m = r.manifest();
         PrintWriter w = spec.commandLine().getOut();
         GaugeManifest.ClusterCounts c = m.clusters();

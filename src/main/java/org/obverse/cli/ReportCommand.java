@@ -21,8 +21,8 @@ public final class ReportCommand implements Callable<Integer> {
     @Mixin
     ScoringOptions scoring;
 
-    @Option(names = "--out", required = true, paramLabel = "DIR", description = "output directory")
-    Path out;
+    @Mixin
+    OutputFolderOption output;
 
     @Option(names = "--magnetisation", paramLabel = "M",
             description = "device-frame magnetisation per qubit and gauge (CSV qubit,gauge,reads,sum_spin[,sign])")
@@ -51,14 +51,14 @@ public final class ReportCommand implements Callable<Integer> {
                     + "at its cell-grid position")
     Path device;
 
-    @Option(names = "--force", description = "replace an existing output directory")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Override
     public Integer call() throws Exception {
         System.setProperty("java.awt.headless", "true");
         ReportStep.Result r = ReportStep.run(new ReportStep.Request(scoring.request(spec.commandLine().getErr()),
-                magnetisation, correlations, alpha, balanced, series.isEmpty() ? null : String.join(",", series), out, force, device));
+                magnetisation, correlations, alpha, balanced, series.isEmpty() ? null : String.join(",", series), output.path(), force.on(), device));
         spec.commandLine().getOut().println("wrote " + r.page() + " (" + r.figureCount() + " plots"
                 + (r.bias() == null ? "" : ", " + r.bias().flagged().size() + " qubit(s) flagged")
                 + (r.couplerBias() == null ? "" : ", " + r.couplerBias().flagged().size() + " coupler(s) flagged") + ")");

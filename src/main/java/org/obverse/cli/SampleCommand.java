@@ -18,6 +18,7 @@ import org.obverse.io.codec.ScheduleCodec;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
@@ -71,14 +72,14 @@ public final class SampleCommand implements Callable<Integer> {
     @Option(names = "--sweeps-per-us", paramLabel = "X", description = "Metropolis sweeps per microsecond of schedule (default 1000)")
     double sweepsPerMicrosecond = SamplerSettings.DEFAULT_SWEEPS_PER_MICROSECOND;
 
-    @Option(names = "--threads", paramLabel = "T", description = "worker threads (default 2); never changes the output")
-    Integer threads;
+    @Mixin
+    ThreadsOption threads;
 
     @Option(names = "--binary", description = "store samples as 0/1 (x = (1 + s) / 2) instead of -1/+1")
     boolean binary;
 
-    @Option(names = "--force", description = "replace existing outputs")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Option(names = "--sampler", paramLabel = "sa|sqa",
             description = "sa: simulated annealing (default); sqa: simulated quantum annealing of H(s) = -(A/2) sum X + "
@@ -130,7 +131,7 @@ public final class SampleCommand implements Callable<Integer> {
         SampleStep.Labels labels = instance == null ? null : new SampleStep.Labels(instance, setting);
         PrintWriter err = spec.commandLine().getErr();
         SampleStep.Result r = SampleStep.run(new SampleStep.Request(input.problem, input.manifest, settings, reads, seed,
-                out, coding, labels, force, (phase, total, work) -> Progress.of(err, phase, total, work, false)));
+                out, coding, labels, force.on(), (phase, total, work) -> Progress.of(err, phase, total, work, false)));
         if (r.results() != null && r.frame() == EnergyFrame.PHYSICAL) {
             w.printf("the results rows hold physical energies (the problem records an embedding): energy_frame physical;"
                     + " decode --instance gives logical ones%n");
@@ -175,12 +176,7 @@ public final class SampleCommand implements Callable<Integer> {
             throw new BadInputException("--sweeps-per-us " + sweepsPerMicrosecond + ": need a finite number > 0");
         }
         s = s.withSweepsPerMicrosecond(sweepsPerMicrosecond);
-        if (threads != null) {
-            if (threads < 1) {
-                throw new BadInputException("--threads " + threads + ": need at least 1");
-            }
-            s = s.withThreads(threads);
-        }
+        s = s.withThreads(threads.count());
         if (s.sweepCount() > SamplerSettings.MAX_SWEEPS) {
             throw BadInputException.at(schedule, "", "a read of " + s.schedule().runTimeMicros() + " us at "
                     + sweepsPerMicrosecond + " sweeps per us needs " + (s.sweepCount() == Long.MAX_VALUE ? "more than 2^63"

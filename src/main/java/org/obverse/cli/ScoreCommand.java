@@ -35,21 +35,21 @@ public final class ScoreCommand implements Callable<Integer> {
     @Option(names = "--json", description = "print the scores as JSON instead of a table")
     boolean json;
 
-    @Option(names = "--force", description = "replace an existing output directory")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Override
     public Integer call() throws Exception {
         PrintWriter o = spec.commandLine().getOut();
         PrintWriter e = spec.commandLine().getErr();
         if (out != null) {
-            AtomicOutput.checkTarget(out, force, scoring.inputs());
+            AtomicOutput.checkTarget(out, force.on(), scoring.inputs());
         }
         ScoreStep.Result scored = scoring.score(e);
         ScoreFiles.Tables tables = ScoreFiles.tables(scored.scores());
         String jsonText = ScoreFiles.json(scored.scores(), tables);
         if (out != null) {
-            AtomicOutput.writeDirectory(out, force, scoring.inputs(), dir -> {
+            AtomicOutput.writeDirectory(out, force.on(), scoring.inputs(), dir -> {
                 ScoreFiles.writeCsv(dir, tables);
                 java.nio.file.Files.writeString(dir.resolve("scores.json"), jsonText);
             });

@@ -9,6 +9,7 @@ import org.obverse.campaign.ScoreStep;
 import org.obverse.campaign.StepProgress;
 import org.obverse.io.BadInputException;
 import org.obverse.stats.Resampling;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 
@@ -55,8 +56,8 @@ final class ScoringOptions {
     @Option(names = "--seed", defaultValue = "1", description = "bootstrap seed (default ${DEFAULT-VALUE})")
     long seed;
 
-    @Option(names = "--threads", defaultValue = "2", description = "worker threads; results do not depend on it (default ${DEFAULT-VALUE})")
-    int threads;
+    @Mixin
+    ThreadsOption threads;
 
     @Option(names = "--compare", arity = "2", paramLabel = "SETTING",
             description = "compare setting A against reference setting B instance by instance: TTS_B / TTS_A, "
@@ -108,7 +109,7 @@ final class ScoringOptions {
             throw new BadInputException("--resample: " + e.getMessage());
         }
         return new ScoreStep.Request(inputs, ground, target, confidence, quantile, band, outerBand, replicates, seed,
-                threads, pairs, baseline, sweep, absoluteTolerance, relativeTolerance, scheme, progress);
+                threads.count(), pairs, baseline, sweep, absoluteTolerance, relativeTolerance, scheme, progress);
     }
 
     /** Every file or folder read (results tables, campaign folders, ground energies): an output must not overlap them. */

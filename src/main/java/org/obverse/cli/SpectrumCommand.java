@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.obverse.io.BadInputException;
+import org.obverse.io.table.EnergyScalesTable;
 import org.obverse.anneal.EnergyScales;
 import org.obverse.campaign.SpectrumStep;
 import org.obverse.campaign.StepProgress;
@@ -17,11 +18,14 @@ import org.obverse.spectrum.PauseWindow;
 import org.obverse.spectrum.ScanSettings;
 import org.obverse.spectrum.SectorBasis;
 import org.obverse.spectrum.SolverChoice;
+import org.obverse.spectrum.SolverNotConvergedException;
+import org.obverse.spectrum.SpectrumLimitException;
 import org.obverse.spectrum.SpectrumAnalysis;
 import org.obverse.spectrum.SpectrumSettings;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
@@ -79,8 +83,8 @@ public final class SpectrumCommand implements Callable<Integer> {
             description = "the energy units of A and B in the table, as you state them")
     String scheduleUnits;
 
-    @Option(names = "--out", required = true, paramLabel = "DIR", description = "the output directory")
-    Path out;
+    @Mixin
+    OutputFolderOption output;
 
     @Option(names = "--levels", defaultValue = "4", paramLabel = "K",
             description = "levels per s (2..64; raised to include the relevant level) (default ${DEFAULT-VALUE})")
@@ -111,8 +115,8 @@ public final class SpectrumCommand implements Callable<Integer> {
             description = "the pause ends where the gap first reaches R * gap_min (default ${DEFAULT-VALUE})")
     double toRatio;
 
-    @Option(names = "--force", description = "replace an existing output directory")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Override
     public Integer call() throws Exception {
@@ -123,8 +127,17 @@ public final class SpectrumCommand implements Callable<Integer> {
                 input.sweep.chains, input.sweep.device, input.sweep.couplings, input.sweep.scale);
         PrintWriter err = spec.commandLine().getErr();
         StepProgress progress = (phase, total, work) -> Progress.of(err, phase, total, work, false);
-        SpectrumStep.Result r = SpectrumStep.run(new SpectrumStep.Request(input.problem, sweep, schedule,
-                scheduleUnits, settings, scan, out, force, progress));
+        SpectrumStep.Result r;
+        try {
+            r = SpectrumStep.run(new SpectrumStep.Request(input.problem, sweep, schedule, scheduleUnits, settings, scan,
+                    output.path(), force.on(), progress));
+        } catch (SpectrumLimitException e) {
+            // The core says the problem is too large for the solver; the flag that picks another is ours to name.
+            throw new BadInputException(e.getMessage() + (e.solver().equals("dense") ? " or --solver lanczos" : ""), e);
+        } catch (SolverNotConvergedException e) {
+            throw BadInputException.at(input.problem != null ? input.problem : input.sweep.logical, "", e.getMessage(),
+                    "use --solver dense for a small problem or a looser --tolerance");
+        }
         PrintWriter w = spec.commandLine().getOut();
         EnergyScales sched = r.scales();
         w.printf("schedule: %s%s%n", sched.name(), sched.isIllustrative() ? "" : " (" + sched.units() + ")");
@@ -161,7 +174,7 @@ public final class SpectrumCommand implements Callable<Integer> {
         w.printf(Locale.ROOT, "pause window (heuristic%s): s from %.4f to %.4f%s%n", after, pw.from(), pw.to(),
                 pw.toCapped() ? " (cut" + (pw.to() < 1 ? " before the next dip" : " at the end") + ": the gap never"
                         + " reached " + toRatio + (ownGap ? " times the dip's gap)" : " * gap_min)") : "");
-        w.printf(Locale.ROOT, "%d grid points in %.1f s; wrote %s%n", a.scan().points(), seconds, out);
+        w.printf(Locale.ROOT, "%d grid points in %.1f s; wrote %s%n", a.scan().points(), seconds, output.path());
     }
 
     private void printSweep(PrintWriter w, List<ChainCouplingScan.Row> rows, double seconds) {
@@ -170,7 +183,7 @@ public final class SpectrumCommand implements Callable<Integer> {
                             + " to %.4f", r.chainCoupling(), r.spins(), r.minimum().sStar(), r.minimum().gapMin(),
                     r.pause().from(), r.pause().to()));
         }
-        w.printf(Locale.ROOT, "%d chain couplings in %.1f s; wrote %s%n", rows.size(), seconds, out);
+        w.printf(Locale.ROOT, "%d chain couplings in %.1f s; wrote %s%n", rows.size(), seconds, output.path());
     }
 
     private static SolverChoice solverChoice(String name) {
@@ -188,6 +201,6 @@ public final class SpectrumCommand implements Callable<Integer> {
 
     /** Reads an energy-scales table (kept here for the verbs that read the same table). */
     static EnergyScales readSchedule(Path file, String units) throws IOException {
-        return SpectrumStep.readEnergyScales(file, units);
+        return EnergyScalesTable.read(file, units);
     }
 }

@@ -6,6 +6,7 @@ import java.util.concurrent.Callable;
 import org.obverse.campaign.UngaugeStep;
 import org.obverse.io.samples.SampleCoding;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
@@ -24,25 +25,25 @@ public final class UngaugeCommand implements Callable<Integer> {
     @Option(names = "--samples", required = true, paramLabel = "DIR", description = "folder of raw samples, one file per gauge")
     Path samples;
 
-    @Option(names = "--out", required = true, paramLabel = "DIR", description = "output folder (must not exist)")
-    Path out;
+    @Mixin
+    OutputFolderOption output;
 
     @Option(names = "--allow-missing", description = "skip gauges that have no samples file instead of failing")
     boolean allowMissing;
 
-    @Option(names = "--force", description = "replace an existing output folder")
-    boolean force;
+    @Mixin
+    ForceOption force;
 
     @Option(names = "--binary", description = "samples are stored as 0/1 (x = (1 + s) / 2) instead of -1/+1, in and out")
     boolean binary;
 
     @Override
     public Integer call() throws Exception {
-        UngaugeStep.Result r = UngaugeStep.run(new UngaugeStep.Request(manifest, samples, out, allowMissing, force,
+        UngaugeStep.Result r = UngaugeStep.run(new UngaugeStep.Request(manifest, samples, output.path(), allowMissing, force.on(),
                 binary ? SampleCoding.BINARY : SampleCoding.SPIN));
         PrintWriter w = spec.commandLine().getOut();
         long reads = r.done().stream().mapToLong(UngaugeStep.Done::reads).sum();
-        w.printf("ungauged %d gauges, %d reads, into %s%n", r.done().size(), reads, out);
+        w.printf("ungauged %d gauges, %d reads, into %s%n", r.done().size(), reads, output.path());
         if (!r.missing().isEmpty()) {
             w.printf("skipped %d gauges without samples (--allow-missing): %s%n", r.missing().size(), r.missing());
         }

@@ -479,16 +479,22 @@ public final class RerouteEmbeddingFinder {
                 }
                 return;
             }
-            for (int p = qubitStart[q]; p < qubitStart[q + 1]; p++) {
-                int nb = qubitAdj[p];
-                double nd = d + weight(nb);
-                if (nd < dist[nb]) {
-                    dist[nb] = nd;
-                    par[nb] = q;
-                    size = push(size, nd, nb);
-                }
+            size = relaxFrom(q, d, par, size);
+        }
+    }
+
+    /** Dijkstra's relaxation of q's neighbours at distance d; returns the new heap size. */
+    private int relaxFrom(int q, double d, int[] par, int size) {
+        for (int p = qubitStart[q]; p < qubitStart[q + 1]; p++) {
+            int nb = qubitAdj[p];
+            double nd = d + weight(nb);
+            if (nd < dist[nb]) {
+                dist[nb] = nd;
+                par[nb] = q;
+                size = push(size, nd, nb);
             }
         }
+        return size;
     }
 
     private void add(int v, int q) {
@@ -526,15 +532,7 @@ public final class RerouteEmbeddingFinder {
             if (d > dist[q]) {
                 continue;
             }
-            for (int p = qubitStart[q]; p < qubitStart[q + 1]; p++) {
-                int nb = qubitAdj[p];
-                double nd = d + weight(nb);
-                if (nd < dist[nb]) {
-                    dist[nb] = nd;
-                    par[nb] = q;
-                    size = push(size, nd, nb);
-                }
-            }
+            size = relaxFrom(q, d, par, size);
         }
     }
 

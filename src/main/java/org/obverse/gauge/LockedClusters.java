@@ -73,7 +73,7 @@ public final class LockedClusters {
         VariableIndex ids = p.variables();
         UnionFind uf = new UnionFind(n);
         if (policy == LockPolicy.CHAINS && chains == null) {
-            throw new IllegalArgumentException("lock policy chains needs the embedding's chains; give --chains");
+            throw new IllegalArgumentException("lock policy chains needs the embedding's chains");
         }
         // Chains are checked against the problem whenever given; only the chains policy joins them.
         if (chains != null) {

@@ -6,6 +6,7 @@ import java.awt.Font;
 import java.io.IOException;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.IntFunction;
 import java.util.Locale;
 import java.util.Map;
 import java.util.TreeSet;
@@ -365,31 +366,10 @@ public final class CampaignPlots {
     private static Figure coupling(Layout l, String name, boolean tts) throws IOException {
         XYChart c = chart((tts ? "TTS" : "Success probability") + " against chain coupling", "chain coupling",
                 tts ? "TTS (µs)" : "success probability per read");
-        List<double[]> all = new ArrayList<>();
-        for (int gi = 0; gi < l.gauged.size(); gi++) {
-            String g = l.gauged.get(gi);
-            List<Double> xs = new ArrayList<>();
-            List<double[]> ys = new ArrayList<>();
-            for (int s : couplingSettings(l, g)) {
-                CampaignSummary.Banded b = banded(l, s, tts);
-                if (drawable(b.headline(), tts)) {
-                    xs.add(Double.parseDouble(l.get(s, COUPLING)));
-                    ys.add(new double[] {b.headline(), b.band()[0], b.band()[1]});
-                    all.add(ys.get(ys.size() - 1));
-                }
-            }
-            if (xs.isEmpty()) {
-                continue;
-            }
-            Color color = LINE[gi % LINE.length];
-            String label = l.gaugeName(g).isEmpty() ? "headline" : l.gaugeName(g);
-            Charts.band(c, label + " band", xs, ys, tts, Charts.translucent(color, 60));
-            XYSeries line = c.addSeries(label, xs, ys.stream().map(v -> v[0]).toList());
-            line.setLineColor(color);
-            line.setMarkerColor(color);
-            line.setLineStyle(gi == 0 ? SOLID : DASHED);
-            line.setMarker(gi == 0 ? SeriesMarkers.CIRCLE : SeriesMarkers.SQUARE);
-        }
+        List<double[]> all = gaugeLines(c, l, s -> {
+            CampaignSummary.Banded b = banded(l, s, tts);
+            return drawable(b.headline(), tts) ? new double[] {b.headline(), b.band()[0], b.band()[1]} : null;
+        }, "headline", " band", tts, 60);
         Charts.yRange(c, all, tts);
         if (!tts) {
             c.getStyler().setYAxisDecimalPattern("0.###");
@@ -406,43 +386,22 @@ public final class CampaignPlots {
         XYChart c = chart((broken ? "Broken chains per read" : "Residual energy") + " against chain coupling",
                 "chain coupling", broken ? "broken chains per read" : "residual energy (logical units)");
         Campaign camp = l.summary.campaign();
-        List<double[]> all = new ArrayList<>();
-        for (int gi = 0; gi < l.gauged.size(); gi++) {
-            String g = l.gauged.get(gi);
-            List<Double> xs = new ArrayList<>();
-            List<double[]> ys = new ArrayList<>();
-            for (int s : couplingSettings(l, g)) {
-                double sum = 0;
-                double lo = Double.POSITIVE_INFINITY;
-                double hi = Double.NEGATIVE_INFINITY;
-                int n = 0;
-                for (CellScore cs : l.summary.cells()) {
-                    double v = broken ? cs.brokenMean() : cs.residualMean();
-                    if (cs.setting() == s && Double.isFinite(v)) {
-                        sum += v;
-                        lo = Math.min(lo, v);
-                        hi = Math.max(hi, v);
-                        n++;
-                    }
-                }
-                if (n > 0) {
-                    xs.add(Double.parseDouble(l.get(s, COUPLING)));
-                    ys.add(new double[] {sum / n, lo, hi});
-                    all.add(ys.get(ys.size() - 1));
+        List<double[]> all = gaugeLines(c, l, s -> {
+            double sum = 0;
+            double lo = Double.POSITIVE_INFINITY;
+            double hi = Double.NEGATIVE_INFINITY;
+            int n = 0;
+            for (CellScore cs : l.summary.cells()) {
+                double v = broken ? cs.brokenMean() : cs.residualMean();
+                if (cs.setting() == s && Double.isFinite(v)) {
+                    sum += v;
+                    lo = Math.min(lo, v);
+                    hi = Math.max(hi, v);
+                    n++;
                 }
             }
-            if (xs.isEmpty()) {
-                continue;
-            }
-            Color color = LINE[gi % LINE.length];
-            String label = l.gaugeName(g).isEmpty() ? "mean over instances" : l.gaugeName(g);
-            Charts.band(c, label + " range", xs, ys, false, Charts.translucent(color, 45));
-            XYSeries line = c.addSeries(label, xs, ys.stream().map(v -> v[0]).toList());
-            line.setLineColor(color);
-            line.setMarkerColor(color);
-            line.setLineStyle(gi == 0 ? SOLID : DASHED);
-            line.setMarker(gi == 0 ? SeriesMarkers.CIRCLE : SeriesMarkers.SQUARE);
-        }
+            return n > 0 ? new double[] {sum / n, lo, hi} : null;
+        }, "mean over instances", " range", false, 45);
         Charts.yRange(c, all, false);
         Charts.xPad(c, l.couplings);
         boolean paused = l.pauses.size() >= 2 || !l.pauses.get(0).isEmpty();
@@ -451,6 +410,41 @@ public final class CampaignPlots {
                 + (paused ? ", no-pause runs" : "") + ": mean over instances (line) and the range over instances (shaded)"
                 + (l.gauged.size() > 1 ? "; solid: gauged, dashed: ungauged" : "") + ". " + Charts.counts(l.summary)
                 + " " + camp.instanceCount() + " instance(s) per point.", c);
+    }
+
+    /**
+     * One line with its shaded band for each of the gauged and ungauged groups, a point per chain
+     * coupling: {@code point} gives {line, band low, band high} for a setting, or null to leave it
+     * out. Returns every point drawn, for the y range.
+     */
+    private static List<double[]> gaugeLines(XYChart c, Layout l, IntFunction<double[]> point, String unnamed,
+            String bandSuffix, boolean log, int alpha) {
+        List<double[]> all = new ArrayList<>();
+        for (int gi = 0; gi < l.gauged.size(); gi++) {
+            String g = l.gauged.get(gi);
+            List<Double> xs = new ArrayList<>();
+            List<double[]> ys = new ArrayList<>();
+            for (int s : couplingSettings(l, g)) {
+                double[] v = point.apply(s);
+                if (v != null) {
+                    xs.add(Double.parseDouble(l.get(s, COUPLING)));
+                    ys.add(v);
+                    all.add(v);
+                }
+            }
+            if (xs.isEmpty()) {
+                continue;
+            }
+            Color color = LINE[gi % LINE.length];
+            String label = l.gaugeName(g).isEmpty() ? unnamed : l.gaugeName(g);
+            Charts.band(c, label + bandSuffix, xs, ys, log, Charts.translucent(color, alpha));
+            XYSeries line = c.addSeries(label, xs, ys.stream().map(v -> v[0]).toList());
+            line.setLineColor(color);
+            line.setMarkerColor(color);
+            line.setLineStyle(gi == 0 ? SOLID : DASHED);
+            line.setMarker(gi == 0 ? SeriesMarkers.CIRCLE : SeriesMarkers.SQUARE);
+        }
+        return all;
     }
 
     private static CampaignSummary.Banded banded(Layout l, int s, boolean tts) {

@@ -298,9 +298,9 @@ public final class LanczosLevelSolver implements LevelSolver {
                 return null;
             }
             if (restart == MAX_RESTARTS) {
-                throw new IllegalStateException("the Lanczos solver did not reach residual " + tol + " in "
+                throw new SolverNotConvergedException("the Lanczos solver did not reach residual " + tol + " in "
                         + MAX_RESTARTS + " restarts (dimension " + dim + ", " + locked.size() + " of " + k
-                        + " levels locked); use --solver dense for a small problem or a looser --tolerance");
+                        + " levels locked)");
             }
             if (locked.size() >= k && !fresh) {
                 // Confirm from scratch: a new basis from a block of random vectors orthogonal to

@@ -80,6 +80,6 @@ class PauseGapStepTest extends QuietTest {
         PauseGapStep.Result r = PauseGapStep.run(new PauseGapStep.Request(out, 4));
         assertThat(r.skipped()).contains("not the path-integral sampler");
         assertThat(r.figures()).isEmpty();
-        assertThat(r.table()).isEqualTo(PauseGapStep.HEADER);
+        assertThat(r.table()).isEqualTo(org.obverse.io.table.PauseGapTable.HEADER);
     }
 }

@@ -2,6 +2,7 @@ package org.obverse.io.table;
 
 import org.obverse.io.BadInputException;
 import java.io.IOException;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -15,7 +16,8 @@ import java.util.TreeSet;
  * {@code qubit,gauge,reads,sum_spin} and optionally {@code sign} (the gauge's sign of the
  * qubit, −1 or +1). sum_spin is the sum of the qubit's ±1 device-frame spins over the reads of
  * that gauge. A (qubit, gauge) pair given twice is summed. The same for coupler correlations
- * ({@link #readCouplers}).
+ * ({@link #readCouplers}). This class owns both tables: {@link QubitRows} and {@link CouplerRows}
+ * write them.
  */
 public final class MagnetisationTable {
     /**
@@ -26,7 +28,62 @@ public final class MagnetisationTable {
     public record Loaded(List<Integer> qubits, List<Integer> gauges, double[][] sums, long[][] reads, byte[][] signs) {
     }
 
+    /** The columns of the qubit table as written, sign included. */
+    public static final String QUBIT_HEADER = "qubit,gauge,reads,sum_spin,sign";
+    /** The columns of the coupler table as written, sign included. */
+    public static final String COUPLER_HEADER = "qubit_a,qubit_b,gauge,reads,sum_product,sign";
+
     private MagnetisationTable() {
+    }
+
+    /**
+     * A qubit table being written, one row per (qubit, gauge), with the sign column; the text
+     * {@link #read} reads back to the same sums, reads and signs.
+     */
+    public static final class QubitRows {
+        private final StringBuilder text = new StringBuilder(QUBIT_HEADER).append('\n');
+
+        /** Adds the row of one qubit in one gauge: its reads, Σ of its ±1 spins and its gauge sign. */
+        public QubitRows add(int qubit, int gauge, long reads, long sumSpin, int sign) {
+            text.append(qubit).append(',').append(gauge).append(',').append(reads).append(',').append(sumSpin)
+                    .append(',').append(sign).append('\n');
+            return this;
+        }
+
+        /** The table as CSV text, header first. */
+        public String text() {
+            return text.toString();
+        }
+
+        /** Writes the table to file (UTF-8). */
+        public void write(Path file) throws IOException {
+            Files.writeString(file, text);
+        }
+    }
+
+    /**
+     * A coupler table being written, one row per (coupler, gauge), with the sign column; the
+     * text {@link #readCouplers} reads back to the same sums, reads and signs.
+     */
+    public static final class CouplerRows {
+        private final StringBuilder text = new StringBuilder(COUPLER_HEADER).append('\n');
+
+        /** Adds the row of coupler (a, b) in one gauge: its reads, Σ s_a s_b and the sign g_a·g_b. */
+        public CouplerRows add(int qubitA, int qubitB, int gauge, long reads, long sumProduct, int sign) {
+            text.append(qubitA).append(',').append(qubitB).append(',').append(gauge).append(',').append(reads)
+                    .append(',').append(sumProduct).append(',').append(sign).append('\n');
+            return this;
+        }
+
+        /** The table as CSV text, header first. */
+        public String text() {
+            return text.toString();
+        }
+
+        /** Writes the table to file (UTF-8). */
+        public void write(Path file) throws IOException {
+            Files.writeString(file, text);
+        }
     }
 
     /** Reads a qubit table ({@code qubit,gauge,reads,sum_spin[,sign]}). */

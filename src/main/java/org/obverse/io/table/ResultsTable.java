@@ -328,7 +328,7 @@ public final class ResultsTable {
         return new Row(inst, r[col[1]], gauge, energy, count, broken, run);
     }
 
-    private static double number(CsvReader csv, int column, String text) {
+    static double number(CsvReader csv, int column, String text) {
         String t = text.trim();
         if (!DECIMAL.matcher(t).matches()) {
             throw csv.error(column, text, "is not a finite decimal number", "write a number such as -12.5 or 3e-2");

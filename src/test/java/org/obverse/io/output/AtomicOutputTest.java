@@ -1,6 +1,6 @@
-package org.obverse.io;
+package org.obverse.io.output;
 
-import org.obverse.io.output.AtomicOutput;
+import org.obverse.io.BadInputException;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -23,7 +23,7 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
  * The output layer (issue 13, classes 2, 3, 4 and 8): inputs are never an output, one writer
  * per target, publication only of complete outputs, and no temporary folder left behind.
  */
-class OutputSafetyTest extends QuietTest {
+class AtomicOutputTest extends QuietTest {
     @TempDir
     Path dir;
 
