@@ -104,7 +104,7 @@ runs = collections.defaultdict(list)
 for line in open("times.log"):
     w = line.split()
     if len(w) >= 9 and w[2] == "wall":
-        runs[w[0]].append((float(w[3]) + float(w[5]), float(w[1]), float(w[10]) if len(w) > 10 else float("nan")))
+        runs[w[0]].append((float(w[3]) + float(w[5]), float(w[1]), float(w[8]) if len(w) > 8 and w[7] == "load" else float("nan")))
 med = {k: (statistics.median(c for c, _, _ in v), statistics.median(x for _, x, _ in v),
            statistics.median(l for _, _, l in v), len(v)) for k, v in runs.items()}
 print("%-12s %9s %9s %6s %4s" % ("job", "cpu s", "wall s", "load", "runs"))
