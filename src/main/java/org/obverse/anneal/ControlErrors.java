@@ -3,6 +3,9 @@ package org.obverse.anneal;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StandardNormal;
+import org.obverse.random.StreamPurpose;
 
 /**
  * The control-error model of a simulated analog device. Static errors: every qubit q has a
@@ -98,7 +101,7 @@ public final class ControlErrors {
         if (fieldSigma == 0.0) {
             return 0.0;
         }
-        return fieldSigma * StreamSeeds.gaussian(StreamSeeds.generator(deviceSeed, StreamSeeds.FIELD_OFFSETS, qubit));
+        return fieldSigma * StandardNormal.draw(RandomStreams.generator(deviceSeed, StreamPurpose.FIELD_OFFSETS, qubit));
     }
 
     /** The static offset of the coupler between two qubit ids (either order) on this device. */
@@ -107,7 +110,7 @@ public final class ControlErrors {
             return 0.0;
         }
         long key = ((long) Math.min(a, b) << 32) | (Math.max(a, b) & 0xffffffffL);
-        return couplingSigma * StreamSeeds.gaussian(StreamSeeds.generator(deviceSeed, StreamSeeds.COUPLER_OFFSETS, key));
+        return couplingSigma * StandardNormal.draw(RandomStreams.generator(deviceSeed, StreamPurpose.COUPLER_OFFSETS, key));
     }
 
     /** The problem as the device runs it: every field and used coupler plus its static offset. */
@@ -136,12 +139,12 @@ public final class ControlErrors {
     void addReadNoise(UniformRandomProvider rng, double[] fields, double[] couplings) {
         if (readFieldSigma != 0.0) {
             for (int k = 0; k < fields.length; k++) {
-                fields[k] += readFieldSigma * StreamSeeds.gaussian(rng);
+                fields[k] += readFieldSigma * StandardNormal.draw(rng);
             }
         }
         if (readCouplingSigma != 0.0) {
             for (int e = 0; e < couplings.length; e++) {
-                couplings[e] += readCouplingSigma * StreamSeeds.gaussian(rng);
+                couplings[e] += readCouplingSigma * StandardNormal.draw(rng);
             }
         }
     }

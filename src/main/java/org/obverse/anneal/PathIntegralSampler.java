@@ -5,6 +5,8 @@ import java.util.List;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.obverse.model.BinaryProblem;
 import org.obverse.model.IsingProblem;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 import org.obverse.samples.SampleBlock;
 
 /**
@@ -19,7 +21,7 @@ import org.obverse.samples.SampleBlock;
  *
  * <p>Read r draws everything (the start of every slice-spin, per-read noise, the Metropolis
  * numbers, and last the slice it reports) from its own generator
- * {@code StreamSeeds.generator(seed, PATH_INTEGRAL_READS, r)}; reads are split over threads
+ * {@code RandomStreams.generator(seed, PATH_INTEGRAL_READS, r)}; reads are split over threads
  * in 64-read blocks, so the output never depends on the thread count. Reads start from
  * uniformly random slice-spins. Static control errors and per-read noise act on H_P as in
  * simulated annealing; energies are those of the problem as submitted, by
@@ -281,7 +283,7 @@ public final class PathIntegralSampler {
         }
 
         private void read(int r, Workspace ws) {
-            UniformRandomProvider rng = StreamSeeds.generator(seed, StreamSeeds.PATH_INTEGRAL_READS, r);
+            UniformRandomProvider rng = RandomStreams.generator(seed, StreamPurpose.PATH_INTEGRAL_READS, r);
             byte[] s = ws.spins;
             int size = s.length;
             for (int q = 0; q < size; q += 64) {

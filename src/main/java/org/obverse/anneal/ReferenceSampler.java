@@ -5,6 +5,8 @@ import java.util.concurrent.atomic.AtomicReference;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.obverse.model.BinaryProblem;
 import org.obverse.model.IsingProblem;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 import org.obverse.samples.SampleBlock;
 
 /**
@@ -16,7 +18,7 @@ import org.obverse.samples.SampleBlock;
  * submitted.
  *
  * <p>Reproducible: read r (exact kernel) draws its start state, its noise and every
- * Metropolis number from its own generator {@code StreamSeeds.generator(seed, READS, r)}; with
+ * Metropolis number from its own generator {@code RandomStreams.generator(seed, READS, r)}; with
  * the multi-spin kernel, 64-read word w uses {@code generator(seed, WORDS, w)}. Work is split
  * into 64-read blocks over the worker threads, so the output never depends on the thread
  * count. Reads start from uniformly random spins.
@@ -286,7 +288,7 @@ public final class ReferenceSampler {
         }
 
         private void read(int r, Workspace ws) {
-            UniformRandomProvider rng = StreamSeeds.generator(seed, StreamSeeds.READS, r);
+            UniformRandomProvider rng = RandomStreams.generator(seed, StreamPurpose.READS, r);
             byte[] s = ws.spins;
             for (int k = 0; k < n; k += 64) {
                 long bits = rng.nextLong();
@@ -386,7 +388,7 @@ public final class ReferenceSampler {
             int count = Math.min(4, block.blockCount() - first);
             UniformRandomProvider[] rng = new UniformRandomProvider[count];
             for (int i = 0; i < count; i++) {
-                rng[i] = StreamSeeds.generator(seed, StreamSeeds.WORDS, first + i);
+                rng[i] = RandomStreams.generator(seed, StreamPurpose.WORDS, first + i);
                 long[] bits = ws.bits[i];
                 for (int k = 0; k < n; k++) {
                     bits[k] = rng[i].nextLong();

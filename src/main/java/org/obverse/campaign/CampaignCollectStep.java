@@ -10,7 +10,6 @@ import java.util.Map;
 import java.util.TreeMap;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.function.IntConsumer;
-import org.obverse.anneal.StreamSeeds;
 import org.obverse.embed.ChainBreakRule;
 import org.obverse.embed.ChainDecoder;
 import org.obverse.embed.Chains;
@@ -32,6 +31,8 @@ import org.obverse.io.samples.SampleFiles;
 import org.obverse.io.samples.SampleFormat;
 import org.obverse.io.samples.SampleWriter;
 import org.obverse.model.IsingProblem;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 import org.obverse.samples.EnergyKernel;
 import org.obverse.samples.SampleBlock;
 import org.obverse.samples.SpinFlip;
@@ -314,7 +315,7 @@ public final class CampaignCollectStep {
             }
         }
         ChainDecoder decoder = DecodeStep.decoder(logical.problem(), logical.chains(), physical.variables(), rule,
-                StreamSeeds.derive(plan.seed(), CampaignPrepareStep.DECODE_SEED, index),
+                RandomStreams.derive(plan.seed(), StreamPurpose.PLAN_DECODE, index),
                 folder.resolve(CampaignFolder.chainsFile(j.instance())), folder.resolve(j.problem()));
         DecodedSamples d = DecodeStep.decode(decoder, block, raw);
         writeDecoded(folder, j, logical.problem(), d);

@@ -14,7 +14,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.function.IntConsumer;
 import org.obverse.anneal.AnnealSchedule;
-import org.obverse.anneal.StreamSeeds;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.QubitGraph;
 import org.obverse.device.ValueRange;
@@ -40,6 +39,8 @@ import org.obverse.io.codec.ProblemFile;
 import org.obverse.io.codec.ScheduleCodec;
 import org.obverse.model.IsingProblem;
 import org.obverse.problems.GrayCodeSearch;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 
 /**
  * Prepares a campaign folder from a plan (spec/campaign.md): copies the inputs in, finds chains
@@ -53,12 +54,6 @@ import org.obverse.problems.GrayCodeSearch;
  * same plan gives the same folder, byte for byte.
  */
 public final class CampaignPrepareStep {
-    /** Purposes of the seeds derived from the plan's seed (with {@link StreamSeeds#derive}). */
-    static final long CHAINS_SEED = 101;
-    static final long GAUGES_SEED = 102;
-    static final long JOBS_SEED = 103;
-    static final long DECODE_SEED = 104;
-
     /** Largest logical problem whose ground energy is worked out exactly (every assignment). */
     public static final int EXACT_GROUND_LIMIT = GrayCodeSearch.MAX_VARIABLES;
 
@@ -152,7 +147,7 @@ public final class CampaignPrepareStep {
                     ProblemCodec.write(dir.resolve(embedded), false, physical);
                     String gaugeDir = CampaignFolder.gaugeFolder(inst.name(), couplings[v]);
                     Files.createDirectories(dir.resolve(gaugeDir).getParent());
-                    long gaugeSeed = StreamSeeds.derive(plan.seed(), GAUGES_SEED, (long) k * couplings.length + v);
+                    long gaugeSeed = RandomStreams.derive(plan.seed(), StreamPurpose.PLAN_GAUGES, (long) k * couplings.length + v);
                     GaugeStep.Result g = GaugeStep.run(new GaugeStep.Request(dir.resolve(embedded),
                             dir.resolve("inputs/device.json"),
                             dir.resolve(CampaignFolder.chainsFile(inst.name())), LockPolicy.ofLabel(plan.gauges().lock()),
@@ -282,7 +277,7 @@ public final class CampaignPrepareStep {
             if (c == null) {
                 int index = byStructure.size();
                 c = EmbedStep.findChains(q, graph, null, plan.device(), plan.instances().get(k).problem(),
-                        new EmbedStep.Search(EmbedStep.Finder.REROUTE, StreamSeeds.derive(plan.seed(), CHAINS_SEED, index),
+                        new EmbedStep.Search(EmbedStep.Finder.REROUTE, RandomStreams.derive(plan.seed(), StreamPurpose.PLAN_CHAINS, index),
                                 FINDER_ROUNDS, FINDER_TRIES, 0)).chains();
                 byStructure.put(key, c);
                 notes.add(String.format("chains for %s%s: found on %d qubits, longest chain %d", plan.instances().get(k)
@@ -387,7 +382,7 @@ public final class CampaignPrepareStep {
                                     String scheduleHash) {
         String id = String.format("j%05d", index);
         return new JobTable.Job(id, instance, coupling, s.name(), s.annealUs(), s.pauseS(), s.pauseUs(), runUs, gauged,
-                gauge, reads, StreamSeeds.derive(plan.seed(), JOBS_SEED, index), problem, problemHash, manifest,
+                gauge, reads, RandomStreams.derive(plan.seed(), StreamPurpose.PLAN_JOBS, index), problem, problemHash, manifest,
                 scheduleFile, scheduleHash, CampaignFolder.RAW + "/" + id + ".npy");
     }
 

@@ -10,7 +10,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.function.IntConsumer;
-import org.obverse.anneal.StreamSeeds;
 import org.obverse.embed.ChainBreakRule;
 import org.obverse.embed.ChainDecoder;
 import org.obverse.embed.Chains;
@@ -33,6 +32,8 @@ import org.obverse.io.samples.SampleReader;
 import org.obverse.io.samples.SampleWriter;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 import org.obverse.samples.SampleBlock;
 
 /**
@@ -183,7 +184,7 @@ public final class DecodeStep {
 
     /** The tie-coin seed of gauge {@code index}, derived from the run's seed. */
     public static long gaugeSeed(long seed, int index) {
-        return StreamSeeds.derive(seed, StreamSeeds.GAUGES, index);
+        return RandomStreams.derive(seed, StreamPurpose.GAUGES, index);
     }
 
     /** Decodes the un-gauged reads of every gauge of a manifest into one folder. */

@@ -5,7 +5,6 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.List;
-import org.apache.commons.rng.simple.RandomSource;
 import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.QubitGraph;
@@ -26,6 +25,7 @@ import org.obverse.io.json.JsonFiles;
 import org.obverse.io.codec.ProblemCodec;
 import org.obverse.io.codec.ProblemFile;
 import org.obverse.model.IsingProblem;
+import org.obverse.random.LegacyStreams;
 
 /**
  * Places a logical problem on a device through chains and writes the physical problem, whose
@@ -231,7 +231,7 @@ public final class EmbedStep {
         try {
             Chains c = RerouteEmbeddingFinder.findBest(q, g,
                     new FinderLimits(s.rounds(), (long) (s.timeLimitSeconds() * 1000)), s.tries(),
-                    RandomSource.XO_RO_SHI_RO_128_PP.create(s.seed()));
+                    LegacyStreams.ofSeed(s.seed()));
             return new FoundChains(c, new Found(s, (System.nanoTime() - start) / 1e9, null, 0));
         } catch (EmbeddingNotFoundException e) {
             throw BadInputException.at(logicalFile, "", e.getMessage() + " (seed " + s.seed() + ")", "");

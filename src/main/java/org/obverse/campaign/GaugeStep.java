@@ -14,7 +14,6 @@ import org.obverse.gauge.GaugeSet;
 import org.obverse.gauge.GaugeTransform;
 import org.obverse.gauge.LockPolicy;
 import org.obverse.gauge.LockedClusters;
-import org.obverse.gauge.SeedStream;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.BadInputException;
 import org.obverse.io.codec.ChainList;
@@ -27,6 +26,7 @@ import org.obverse.io.codec.ProblemCodec;
 import org.obverse.io.codec.ProblemFile;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
+import org.obverse.random.RandomStreams;
 
 /**
  * Gauges a problem file on a device: writes {@code manifest.json} and one gauged spin problem
@@ -97,7 +97,7 @@ public final class GaugeStep {
                 new GaugeManifest.SourceFile(relative(outAbs, r.device()), DeviceCodec.contentHash(device)),
                 chains == null ? null
                         : new GaugeManifest.SourceFile(relative(outAbs, r.chains()), ChainsCodec.contentHash(chains)),
-                r.lock().label(), r.design().label(), r.seed(), SeedStream.ALGORITHM, SeedStream.EXPANSION,
+                r.lock().label(), r.design().label(), r.seed(), RandomStreams.ALGORITHM, RandomStreams.EXPANSION,
                 counts(clusters), set.redraws(), set.distinctCount(), entries);
         AtomicOutput.writeDirectory(r.out(), r.force(), AtomicOutput.inputs(r.problem(), r.device(), r.chains()), dir -> {
             for (int i = 0; i < gauged.size(); i++) {

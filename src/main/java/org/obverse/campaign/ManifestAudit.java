@@ -15,7 +15,6 @@ import org.obverse.gauge.GaugeDesign;
 import org.obverse.gauge.GaugeSet;
 import org.obverse.gauge.LockPolicy;
 import org.obverse.gauge.LockedClusters;
-import org.obverse.gauge.SeedStream;
 import org.obverse.io.BadInputException;
 import org.obverse.io.codec.ChainList;
 import org.obverse.io.codec.ChainsCodec;
@@ -29,6 +28,8 @@ import org.obverse.io.samples.SampleFormat;
 import org.obverse.io.samples.SampleReader;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
+import org.obverse.random.LegacyStreams;
+import org.obverse.random.RandomStreams;
 import org.obverse.samples.EnergyKernel;
 import org.obverse.samples.SampleBlock;
 import org.obverse.samples.SpinFlip;
@@ -185,9 +186,9 @@ public final class ManifestAudit {
     private static void redrawCheck(List<AuditCheck> out, GaugeManifest m, IsingProblem p, DeviceLimits d,
                                     LockedClusters clusters, List<Gauge> gauges) {
         String claim = "redrawn from seed " + m.seed() + " (" + m.design() + " design) they reproduce the manifest";
-        if (!m.generator().equals(SeedStream.ALGORITHM) || !m.seedExpansion().equals(SeedStream.EXPANSION)) {
+        if (!m.generator().equals(RandomStreams.ALGORITHM) || !m.seedExpansion().equals(RandomStreams.EXPANSION)) {
             out.add(AuditCheck.fail("gauges", claim, "generator " + m.generator() + "/" + m.seedExpansion()
-                    + " is not this version's " + SeedStream.ALGORITHM + "/" + SeedStream.EXPANSION));
+                    + " is not this version's " + RandomStreams.ALGORITHM + "/" + RandomStreams.EXPANSION));
             return;
         }
         try {
@@ -219,61 +220,29 @@ public final class ManifestAudit {
             }
         }
         VariableIndex ids = source.variables();
-        int n = ids.size();
-        int[] flipped = g.flippedPositions();
-        byte[] row = new byte[n];
-        long reads = 0;
-        long mismatches = 0;
-        String firstMismatch = null;
-        double[] energies;
+        InvarianceCheck check = new InvarianceCheck(source, gauged, g);
         if (raw != null) {
-            // Bit-sliced exact kernels: the same fixed summation order as IsingProblem.energy, so
-            // the same bits, 64 reads at a time; the un-gauge is an XOR of the flipped words.
-            double[] list = new double[1024];
-            EnergyKernel onGauged = EnergyKernel.exact(gauged);
-            EnergyKernel onSource = EnergyKernel.exact(source);
-            SpinFlip flip = SpinFlip.of(n, flipped);
-            double[] eg = new double[UngaugeStep.CHUNK_READS];
-            double[] es = new double[UngaugeStep.CHUNK_READS];
             try (SampleReader in = SampleFiles.open(raw, ids)) {
                 SampleBlock b = null;
                 while ((b = in.nextBlock(UngaugeStep.CHUNK_READS, b)) != null) {
-                    int got = b.reads();
-                    onGauged.energies(b, eg, 0);
-                    flip.applyInPlace(b);
-                    onSource.energies(b, es, 0);
-                    if (reads + got > list.length) {
-                        list = Arrays.copyOf(list, (int) Math.max(list.length * 2L, reads + got));
-                    }
-                    for (int r = 0; r < got; r++) {
-                        if (Double.doubleToRawLongBits(eg[r]) != Double.doubleToRawLongBits(es[r]) && mismatches++ == 0) {
-                            firstMismatch = "read " + (reads + r) + ": gauged " + eg[r] + ", source " + es[r];
-                        }
-                    }
-                    System.arraycopy(eg, 0, list, (int) reads, got);
-                    reads += got;
+                    check.add(b);
                 }
             }
-            energies = Arrays.copyOf(list, (int) reads);
         } else {
-            UniformRandomProvider rng = SeedStream.of(seed ^ AUDIT_STREAM, e.index());
-            energies = new double[RANDOM_READS];
+            // Drawn read by read, spin by spin, from the audit's own stream of the manifest's seed.
+            UniformRandomProvider rng = LegacyStreams.gauges(seed ^ AUDIT_STREAM, e.index());
+            SampleBlock b = SampleBlock.allDown(RANDOM_READS, ids.size());
             for (int r = 0; r < RANDOM_READS; r++) {
-                for (int k = 0; k < n; k++) {
-                    row[k] = (byte) (rng.nextBoolean() ? 1 : -1);
+                for (int k = 0; k < ids.size(); k++) {
+                    b.setSpin(r, k, rng.nextBoolean() ? 1 : -1);
                 }
-                double eg = gauged.energy(row);
-                for (int k : flipped) {
-                    row[k] = (byte) -row[k];
-                }
-                double es = source.energy(row);
-                if (Double.doubleToRawLongBits(eg) != Double.doubleToRawLongBits(es) && mismatches++ == 0) {
-                    firstMismatch = "read " + r + ": gauged " + eg + ", source " + es;
-                }
-                energies[r] = eg;
-                reads++;
             }
+            check.add(b);
         }
+        long reads = check.reads;
+        long mismatches = check.mismatches;
+        String firstMismatch = check.firstMismatch;
+        double[] energies = Arrays.copyOf(check.energies, (int) reads);
         String where = raw != null ? reads + " reads of " + raw.getFileName() : reads + " seeded random reads";
         out.add(AuditCheck.of(subject, "energy unchanged bit for bit under the un-gauge",
                 mismatches == 0 ? null : mismatches + " of " + reads + " reads differ, first " + firstMismatch, where));
@@ -295,6 +264,52 @@ public final class ManifestAudit {
                         bad < 0 ? null : "read " + bad + ": reported " + reported[bad] + ", computed " + energies[bad],
                         reported.length + " reads, largest difference " + worst));
             }
+        }
+    }
+
+    /**
+     * Energy invariance on reads in the device frame: each read's energy under the gauged
+     * problem against the un-gauged read's (an XOR of the flipped words) under the source, both
+     * by the exact kernels that sum in {@link IsingProblem#energy}'s order, so equal bits are
+     * required; keeps the gauged energies for the reported-energy check.
+     */
+    private static final class InvarianceCheck {
+        private final EnergyKernel onGauged;
+        private final EnergyKernel onSource;
+        private final SpinFlip flip;
+        private double[] eg = new double[0];
+        private double[] es = new double[0];
+        double[] energies = new double[1024];
+        long reads;
+        long mismatches;
+        String firstMismatch;
+
+        InvarianceCheck(IsingProblem source, IsingProblem gauged, Gauge g) {
+            onGauged = EnergyKernel.exact(gauged);
+            onSource = EnergyKernel.exact(source);
+            flip = SpinFlip.of(source.size(), g.flippedPositions());
+        }
+
+        /** Checks every read of a block; the block is un-gauged in place. */
+        void add(SampleBlock b) {
+            int got = b.reads();
+            if (eg.length < got) {
+                eg = new double[got];
+                es = new double[got];
+            }
+            onGauged.energies(b, eg, 0);
+            flip.applyInPlace(b);
+            onSource.energies(b, es, 0);
+            if (reads + got > energies.length) {
+                energies = Arrays.copyOf(energies, (int) Math.max(energies.length * 2L, reads + got));
+            }
+            for (int r = 0; r < got; r++) {
+                if (Double.doubleToRawLongBits(eg[r]) != Double.doubleToRawLongBits(es[r]) && mismatches++ == 0) {
+                    firstMismatch = "read " + (reads + r) + ": gauged " + eg[r] + ", source " + es[r];
+                }
+            }
+            System.arraycopy(eg, 0, energies, (int) reads, got);
+            reads += got;
         }
     }
 
@@ -362,9 +377,5 @@ public final class ManifestAudit {
             }
         }
         return null;
-    }
-
-    static String ids(int[] a) {
-        return Arrays.toString(a);
     }
 }

@@ -12,7 +12,6 @@ import java.util.function.IntConsumer;
 import org.obverse.anneal.ReferenceSampler;
 import org.obverse.anneal.SampledReads;
 import org.obverse.anneal.SamplerSettings;
-import org.obverse.anneal.StreamSeeds;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.BadInputException;
 import org.obverse.io.table.EnergyFrame;
@@ -26,6 +25,8 @@ import org.obverse.io.samples.SampleCoding;
 import org.obverse.io.samples.SampleFiles;
 import org.obverse.io.samples.SampleFormat;
 import org.obverse.io.samples.SampleWriter;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
 
 /**
  * Samples problems with the reference sampler into raw sample files: one problem file into
@@ -128,7 +129,7 @@ public final class SampleStep {
 
     /** The seed gauge {@code index} of a manifest is sampled with, derived from the run's seed. */
     public static long gaugeSeed(long seed, int index) {
-        return StreamSeeds.derive(seed, StreamSeeds.GAUGES, index);
+        return RandomStreams.derive(seed, StreamPurpose.GAUGES, index);
     }
 
     public static Result run(Request r) throws IOException {

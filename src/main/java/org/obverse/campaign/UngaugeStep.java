@@ -21,6 +21,7 @@ import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
 import org.obverse.samples.SampleBlock;
 import org.obverse.samples.SpinFlip;
+import org.obverse.samples.SpinMoments;
 
 /**
  * Maps raw samples out of their gauges: for each gauge of a manifest, {@code SAMPLES/<stem>.npy}
@@ -108,9 +109,9 @@ public final class UngaugeStep {
                 }
                 GaugeManifest.Entry e = m.gauges().get(i);
                 Path out = SampleFiles.sameLayout(in, dir, e.stem());
-                Moments mom = new Moments(spin);
+                SpinMoments mom = SpinMoments.of(spin);
                 long reads = ungaugeFile(in, out, ids, gauges.get(i), r.coding(), mom);
-                mom.append(mag, cor, e.index(), gauges.get(i), ids, spin);
+                appendMoments(mag, cor, mom, e.index(), gauges.get(i), ids, spin);
                 Path energies = r.samples().resolve(e.stem() + ".energies.npy");
                 if (Files.exists(energies)) {
                     NpyReader.open(energies).close(); // a regular NPY file whose length matches its header
@@ -125,7 +126,7 @@ public final class UngaugeStep {
     }
 
     /** Un-gauges one file, streaming. */
-    static long ungaugeFile(Path in, Path out, VariableIndex ids, Gauge g, SampleCoding coding, Moments mom)
+    static long ungaugeFile(Path in, Path out, VariableIndex ids, Gauge g, SampleCoding coding, SpinMoments mom)
             throws IOException {
         SpinFlip flip = SpinFlip.of(ids.size(), g.flippedPositions());
         try (SampleReader reader = SampleFiles.open(in, ids, coding);
@@ -141,48 +142,19 @@ public final class UngaugeStep {
         }
     }
 
-    /** Device-frame sums of one gauge's raw reads: Σ s_k per qubit and Σ s_a s_b per coupler, by popcounts. */
-    static final class Moments {
-        private final int[] u;
-        private final int[] v;
-        private final long[] up;
-        private final long[] differ;
-        private long reads;
-
-        Moments(IsingProblem p) {
-            u = p.edgeUs();
-            v = p.edgeVs();
-            up = new long[p.size()];
-            differ = new long[u.length];
+    /** Appends one gauge's device-frame sums (its raw reads) to the magnetisation and correlation tables. */
+    static void appendMoments(MagnetisationTable.QubitRows mag, MagnetisationTable.CouplerRows cor, SpinMoments mom,
+                              int gauge, Gauge g, VariableIndex ids, IsingProblem p) {
+        long reads = mom.reads();
+        if (reads == 0) {
+            return; // an empty file has no moments; the tables require reads >= 1
         }
-
-        void add(SampleBlock b) {
-            int n = b.variables();
-            long[] w = b.words();
-            for (int blk = 0; blk < b.blockCount(); blk++) {
-                long mask = b.validMask(blk);
-                int base = blk * n;
-                for (int k = 0; k < n; k++) {
-                    up[k] += Long.bitCount(w[base + k] & mask);
-                }
-                for (int e = 0; e < u.length; e++) {
-                    differ[e] += Long.bitCount((w[base + u[e]] ^ w[base + v[e]]) & mask);
-                }
-            }
-            reads += b.reads();
+        for (int k = 0; k < p.size(); k++) {
+            mag.add(ids.id(k), gauge, reads, mom.spinSum(k), g.sign(k));
         }
-
-        void append(MagnetisationTable.QubitRows mag, MagnetisationTable.CouplerRows cor, int gauge, Gauge g,
-                    VariableIndex ids, IsingProblem p) {
-            if (reads == 0) {
-                return; // an empty file has no moments; the tables require reads >= 1
-            }
-            for (int k = 0; k < up.length; k++) {
-                mag.add(ids.id(k), gauge, reads, 2 * up[k] - reads, g.sign(k));
-            }
-            for (int e = 0; e < u.length; e++) {
-                cor.add(ids.id(u[e]), ids.id(v[e]), gauge, reads, reads - 2 * differ[e], g.sign(u[e]) * g.sign(v[e]));
-            }
+        for (int e = 0; e < p.edgeCount(); e++) {
+            cor.add(ids.id(p.edgeU(e)), ids.id(p.edgeV(e)), gauge, reads, mom.productSum(e),
+                    g.sign(p.edgeU(e)) * g.sign(p.edgeV(e)));
         }
     }
 

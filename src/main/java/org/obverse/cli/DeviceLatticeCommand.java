@@ -7,7 +7,6 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.concurrent.Callable;
-import org.apache.commons.rng.simple.RandomSource;
 import org.obverse.io.BadInputException;
 import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
@@ -16,6 +15,7 @@ import org.obverse.device.ValueRange;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.codec.DeviceCodec;
 import org.obverse.io.json.JsonFiles;
+import org.obverse.random.LegacyStreams;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Mixin;
@@ -96,7 +96,7 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
         long s = seed.orDrawn();
         boolean random = randomQubits > 0 || randomCouplers > 0;
         if (random) {
-            g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers, RandomSource.XO_RO_SHI_RO_128_PP.create(s));
+            g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers, LegacyStreams.ofSeed(s));
         }
         DeviceLimits.Builder b = DeviceLimits.builder(range(field, "--field"), range(coupling, "--coupling")).graph(g);
         if (couplingSum != null) {

@@ -2,9 +2,10 @@ package org.obverse.embed;
 
 import java.util.stream.IntStream;
 import org.apache.commons.rng.UniformRandomProvider;
-import org.apache.commons.rng.simple.RandomSource;
+import org.obverse.bits.BitSlicedCounter;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
+import org.obverse.random.LegacyStreams;
 import org.obverse.samples.EnergyKernel;
 import org.obverse.samples.SampleBlock;
 
@@ -34,7 +35,6 @@ import org.obverse.samples.SampleBlock;
  */
 public final class ChainDecoder {
     private static final int BLOCKS_PER_TASK = 32;
-    private static final long STREAM_STEP = 0x9E3779B97F4A7C15L;
 
     private final IsingProblem logical;
     private final ChainBreakRule rule;
@@ -270,16 +270,11 @@ public final class ChainDecoder {
                 for (int i = 0; i < len; i++) {
                     long word = in[base + chainColumns[s + i]];
                     brk |= word ^ first;
-                    long carry = word;
-                    for (int p = 0; p < planes && carry != 0L; p++) {
-                        long t = cnt[p] & carry;
-                        cnt[p] ^= carry;
-                        carry = t;
-                    }
+                    BitSlicedCounter.add(cnt, planes, word);
                 }
-                up = atLeast(cnt, planes, len / 2 + 1);
+                up = BitSlicedCounter.atLeast(cnt, planes, len / 2 + 1);
                 if ((len & 1) == 0) {
-                    tie = exactly(cnt, planes, len / 2);
+                    tie = BitSlicedCounter.exactly(cnt, planes, len / 2);
                 }
             }
             brk &= valid;
@@ -290,12 +285,7 @@ public final class ChainDecoder {
             any |= brk;
             if (brk != 0L) {
                 w.breaksPerChain[c] += Long.bitCount(brk);
-                long carry = brk;
-                for (int p = 0; p < bc.length && carry != 0L; p++) {
-                    long t = bc[p] & carry;
-                    bc[p] ^= carry;
-                    carry = t;
-                }
+                BitSlicedCounter.add(bc, bc.length, brk);
             }
         }
         anyBroken[b] = any;
@@ -303,11 +293,7 @@ public final class ChainDecoder {
         int live = Math.min(64, physical.reads() - first);
         if (any != 0L) {
             for (int r = 0; r < live; r++) {
-                int k = 0;
-                for (int p = 0; p < bc.length; p++) {
-                    k |= (int) ((bc[p] >>> r) & 1L) << p;
-                }
-                broken[first + r] = k;
+                broken[first + r] = BitSlicedCounter.lane(bc, bc.length, r);
             }
         }
         if (rule == ChainBreakRule.DISCARD) {
@@ -321,30 +307,6 @@ public final class ChainDecoder {
                 descendRead(out, outBase, r, w.spins, w.localField);
             }
         }
-    }
-
-    /** Bits where the bit-sliced count is at least t. */
-    private static long atLeast(long[] cnt, int planes, int t) {
-        long gt = 0L;
-        long eq = -1L;
-        for (int p = planes - 1; p >= 0; p--) {
-            if (((t >>> p) & 1) != 0) {
-                eq &= cnt[p];
-            } else {
-                gt |= eq & cnt[p];
-                eq &= ~cnt[p];
-            }
-        }
-        return gt | eq;
-    }
-
-    /** Bits where the bit-sliced count equals t. */
-    private static long exactly(long[] cnt, int planes, int t) {
-        long eq = -1L;
-        for (int p = planes - 1; p >= 0; p--) {
-            eq &= ((t >>> p) & 1) != 0 ? cnt[p] : ~cnt[p];
-        }
-        return eq;
     }
 
     private void settleTies(long[] in, int base, long[] out, int outBase, int block, long[] tie) {
@@ -371,7 +333,7 @@ public final class ChainDecoder {
                     plus = false;
                 } else {
                     if (coin == null) {
-                        coin = RandomSource.XO_RO_SHI_RO_128_PP.create(seed + (block + 1) * STREAM_STEP);
+                        coin = LegacyStreams.decodeTies(seed, block);
                     }
                     int s = chainStart[c];
                     int pick = coin.nextInt(chainStart[c + 1] - s);

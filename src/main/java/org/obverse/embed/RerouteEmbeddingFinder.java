@@ -6,6 +6,7 @@ import org.apache.commons.rng.UniformRandomProvider;
 import org.obverse.device.QubitGraph;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
+import org.obverse.random.LegacyStreams;
 
 /**
  * Finds chains for any logical graph in any working graph, defects and all, by the path-based
@@ -182,7 +183,7 @@ public final class RerouteEmbeddingFinder {
                 break;
             }
             FinderLimits own = limits.timeLimitMillis() == 0 ? limits : new FinderLimits(limits.rounds(), Math.max(1, left));
-            UniformRandomProvider stream = org.apache.commons.rng.simple.RandomSource.XO_RO_SHI_RO_128_PP.create(rng.nextLong());
+            UniformRandomProvider stream = LegacyStreams.ofSeed(rng.nextLong());
             try {
                 Chains c = find(logical, graph, own, stream);
                 if (best == null || c.maxLength() < best.maxLength()

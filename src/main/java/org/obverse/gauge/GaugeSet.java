@@ -11,6 +11,7 @@ import org.obverse.device.LimitCheck;
 import org.obverse.device.LimitViolation;
 import org.obverse.device.ValueRange;
 import org.obverse.model.IsingProblem;
+import org.obverse.random.LegacyStreams;
 
 /**
  * A set of gauges for one problem on one device, drawn by a design from a seed. Each gauge
@@ -54,7 +55,7 @@ public final class GaugeSet {
             throw new IllegalArgumentException("the source problem breaks the device's limits before any gauge ("
                     + v.size() + " violations, first: " + v.get(0).describe() + "); fix the source or the device file");
         }
-        UniformRandomProvider rng = SeedStream.of(seed);
+        UniformRandomProvider rng = LegacyStreams.gauges(seed, 0);
         int free = clusters.freeCount();
         int redraws = 0;
         long[][] masks = design.draw(free, count, rng);

@@ -3,6 +3,7 @@ package org.obverse.gauge;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.obverse.connectivity.DisjointSets;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.ValueRange;
 import org.obverse.model.IsingProblem;
@@ -71,7 +72,7 @@ public final class LockedClusters {
     public static LockedClusters of(IsingProblem p, DeviceLimits d, LockPolicy policy, int[][] chains) {
         int n = p.size();
         VariableIndex ids = p.variables();
-        UnionFind uf = new UnionFind(n);
+        DisjointSets uf = DisjointSets.of(n);
         if (policy == LockPolicy.CHAINS && chains == null) {
             throw new IllegalArgumentException("lock policy chains needs the embedding's chains");
         }
@@ -221,59 +222,5 @@ public final class LockedClusters {
             }
         }
         return null;
-    }
-
-    /** Union–find with path halving and union by size; labels are dense, by smallest member. */
-    private static final class UnionFind {
-        private final int[] parent;
-        private final int[] weight;
-
-        UnionFind(int n) {
-            parent = new int[n];
-            weight = new int[n];
-            for (int i = 0; i < n; i++) {
-                parent[i] = i;
-                weight[i] = 1;
-            }
-        }
-
-        int find(int x) {
-            while (parent[x] != x) {
-                parent[x] = parent[parent[x]];
-                x = parent[x];
-            }
-            return x;
-        }
-
-        void union(int a, int b) {
-            int ra = find(a);
-            int rb = find(b);
-            if (ra == rb) {
-                return;
-            }
-            if (weight[ra] < weight[rb]) {
-                int t = ra;
-                ra = rb;
-                rb = t;
-            }
-            parent[rb] = ra;
-            weight[ra] += weight[rb];
-        }
-
-        int[] labels() {
-            int n = parent.length;
-            int[] label = new int[n];
-            int[] ofRoot = new int[n];
-            Arrays.fill(ofRoot, -1);
-            int next = 0;
-            for (int i = 0; i < n; i++) {
-                int r = find(i);
-                if (ofRoot[r] < 0) {
-                    ofRoot[r] = next++;
-                }
-                label[i] = ofRoot[r];
-            }
-            return label;
-        }
     }
 }

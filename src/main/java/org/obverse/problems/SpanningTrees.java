@@ -3,6 +3,7 @@ package org.obverse.problems;
 import java.util.function.Consumer;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.CommonOps_DDRM;
+import org.obverse.connectivity.DisjointSets;
 
 /**
  * Spanning trees of a small undirected graph on nodes 0 … n−1 with edges
@@ -34,12 +35,12 @@ public final class SpanningTrees {
             return;
         }
         int[] pick = new int[need];
-        int[] parent = new int[nodes];
+        DisjointSets sets = DisjointSets.of(nodes);
         for (int i = 0; i < need; i++) {
             pick[i] = i;
         }
         while (true) {
-            if (isTree(nodes, edges, pick, parent)) {
+            if (isTree(edges, pick, sets)) {
                 visitor.accept(pick);
             }
             int i = need - 1;
@@ -90,27 +91,14 @@ public final class SpanningTrees {
         }
     }
 
-    private static boolean isTree(int nodes, int[][] edges, int[] pick, int[] parent) {
-        for (int v = 0; v < nodes; v++) {
-            parent[v] = v;
-        }
+    private static boolean isTree(int[][] edges, int[] pick, DisjointSets sets) {
+        sets.reset();
         for (int e : pick) {
-            int a = find(parent, edges[e][0]);
-            int b = find(parent, edges[e][1]);
-            if (a == b) {
+            if (!sets.union(edges[e][0], edges[e][1])) {
                 return false;
             }
-            parent[a] = b;
         }
         return true;
-    }
-
-    private static int find(int[] parent, int v) {
-        while (parent[v] != v) {
-            parent[v] = parent[parent[v]];
-            v = parent[v];
-        }
-        return v;
     }
 
     private static void check(int nodes, int[][] edges) {

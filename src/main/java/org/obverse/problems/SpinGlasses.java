@@ -3,6 +3,7 @@ package org.obverse.problems;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.obverse.model.IsingBuilder;
 import org.obverse.model.IsingProblem;
+import org.obverse.random.StandardNormal;
 
 /**
  * Random spin glasses on a rows × columns grid of K4,4 cells, the usual benchmark of analog
@@ -66,7 +67,7 @@ public final class SpinGlasses {
             b.variable(q);
         }
         for (int[] c : cellGridCouplers(rows, columns)) {
-            double j = kind == Couplings.PLUS_MINUS_ONE ? (rng.nextBoolean() ? 1.0 : -1.0) : gaussian(rng);
+            double j = kind == Couplings.PLUS_MINUS_ONE ? (rng.nextBoolean() ? 1.0 : -1.0) : StandardNormal.draw(rng);
             b.coupling(c[0], c[1], j);
         }
         return b.build();
@@ -75,18 +76,6 @@ public final class SpinGlasses {
     private static void checkSize(int rows, int columns) {
         if (rows < 1 || columns < 1) {
             throw new IllegalArgumentException("grid " + rows + " x " + columns + " needs at least one cell");
-        }
-    }
-
-    /** Marsaglia polar method. */
-    static double gaussian(UniformRandomProvider rng) {
-        while (true) {
-            double x = 2.0 * rng.nextDouble() - 1.0;
-            double y = 2.0 * rng.nextDouble() - 1.0;
-            double r = x * x + y * y;
-            if (r > 0.0 && r < 1.0) {
-                return x * StrictMath.sqrt(-2.0 * StrictMath.log(r) / r);
-            }
         }
     }
 }

@@ -5,6 +5,7 @@ import java.util.Arrays;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import org.obverse.bits.BitSlicedCounter;
 import org.obverse.model.IsingProblem;
 
 /**
@@ -16,7 +17,7 @@ import org.obverse.model.IsingProblem;
  * weight (2h or −2J); terms whose value is zero are dropped. Each remaining term goes to one of:
  * <ul>
  *   <li>a counted group: a weight that many terms share; per read, the set bits of the
- *       group's words are counted with {@link BitCounter} and the group adds weight · count;</li>
+ *       group's words are counted with {@link BitSlicedCounter} and the group adds weight · count;</li>
  *   <li>a cluster: eight consecutive positions 8c … 8c+7 whose own fields and couplers are
  *       many; a 256-entry table, computed once, holds their energy for every configuration,
  *       and per read the cluster adds the entry its eight spins select (the spins are
@@ -559,7 +560,7 @@ final class FastEnergy implements EnergyKernel {
                 x[i] = w[base + termA[start + i]] ^ w[base + termB[start + i]];
             }
         }
-        BitCounter.count(x, size, planes, counts);
+        BitSlicedCounter.countLanes(x, size, planes, counts);
     }
 
     @Override

@@ -4,10 +4,10 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.apache.commons.rng.UniformRandomProvider;
-import org.apache.commons.rng.simple.RandomSource;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.obverse.random.LegacyStreams;
 
 /**
  * Lowest levels by a matrix-free thick-restart Lanczos method with full reorthogonalisation,
@@ -163,7 +163,7 @@ public final class LanczosLevelSolver implements LevelSolver {
         double scale = Math.max(1.0, op.normBound());
         double tol = tolerance * scale;
         double tiny = 1e-14 * scale;
-        UniformRandomProvider rng = RandomSource.XO_RO_SHI_RO_128_PP.create(SEED + p);
+        UniformRandomProvider rng = LegacyStreams.ofSeed(SEED + p);
         int basisMax = basisVectors(dim, p, k);
         int sinceLock = 0;
         double[][] q = new double[basisMax][];

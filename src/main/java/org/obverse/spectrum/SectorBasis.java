@@ -1,6 +1,7 @@
 package org.obverse.spectrum;
 
 import java.util.stream.IntStream;
+import org.obverse.connectivity.DisjointSets;
 import org.obverse.model.IsingProblem;
 
 /**
@@ -157,35 +158,15 @@ public final class SectorBasis {
         return problem.size() - c;
     }
 
-    // Union–find over couplers with J ≠ 0; each position's root is its component's lowest position.
+    // Components over couplers with J ≠ 0; each position maps to its component's lowest position.
     private static int[] components(IsingProblem problem) {
-        int n = problem.size();
-        int[] parent = new int[n];
-        for (int k = 0; k < n; k++) {
-            parent[k] = k;
-        }
+        DisjointSets sets = DisjointSets.of(problem.size());
         for (int e = 0; e < problem.edgeCount(); e++) {
-            if (problem.coupling(e) == 0.0) {
-                continue;
-            }
-            int ru = find(parent, problem.edgeU(e));
-            int rv = find(parent, problem.edgeV(e));
-            if (ru != rv) {
-                parent[Math.max(ru, rv)] = Math.min(ru, rv);
+            if (problem.coupling(e) != 0.0) {
+                sets.union(problem.edgeU(e), problem.edgeV(e));
             }
         }
-        for (int k = 0; k < n; k++) {
-            parent[k] = find(parent, k);
-        }
-        return parent;
-    }
-
-    private static int find(int[] parent, int k) {
-        while (parent[k] != k) {
-            parent[k] = parent[parent[k]];
-            k = parent[k];
-        }
-        return k;
+        return sets.smallestMembers();
     }
 
     // E_P of every representative, summed in IsingProblem.energy's order (fields, couplers, offset).

@@ -7,7 +7,7 @@ import java.util.concurrent.atomic.AtomicInteger;
 import java.util.function.IntConsumer;
 import java.util.stream.IntStream;
 import org.apache.commons.rng.UniformRandomProvider;
-import org.apache.commons.rng.simple.RandomSource;
+import org.obverse.random.LegacyStreams;
 
 /**
  * The bootstrap of a campaign over its levels instances → gauges → reads ({@link Resampling};
@@ -157,22 +157,9 @@ public final class HierarchicalBootstrap {
                 diff, improved);
     }
 
-    /** The generator of replicate r: XO_RO_SHI_RO_128_PP seeded by SplitMix64 from (seed, r). */
+    /** The generator of replicate r ({@link LegacyStreams#bootstrapReplicate}). */
     public static UniformRandomProvider stream(long seed, int replicate) {
-        long z = mix(seed ^ 0x6a09e667f3bcc909L) + replicate * 0x9e3779b97f4a7c15L;
-        long a = mix(z);
-        long b = mix(z + 0x9e3779b97f4a7c15L);
-        if ((a | b) == 0) {
-            b = 1;
-        }
-        return RandomSource.XO_RO_SHI_RO_128_PP.create(new long[] {a, b});
-    }
-
-    private static long mix(long x) {
-        long z = x + 0x9e3779b97f4a7c15L;
-        z = (z ^ (z >>> 30)) * 0xbf58476d1ce4e5b9L;
-        z = (z ^ (z >>> 27)) * 0x94d049bb133111ebL;
-        return z ^ (z >>> 31);
+        return LegacyStreams.bootstrapReplicate(seed, replicate);
     }
 
     /** Ratio of two TTS values with the tie rule (equal values, including ∞ = ∞, give 1). */

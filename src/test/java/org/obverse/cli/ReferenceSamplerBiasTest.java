@@ -9,7 +9,7 @@ import org.obverse.anneal.SamplerSettings;
 import org.obverse.model.IsingBuilder;
 import org.obverse.model.IsingProblem;
 import org.obverse.stats.BiasDiagnostics;
-import org.obverse.stats.SpinMoments;
+import org.obverse.samples.SpinMoments;
 import org.obverse.testsupport.QuietTest;
 import org.obverse.testsupport.Seeds;
 
@@ -40,7 +40,8 @@ class ReferenceSamplerBiasTest extends QuietTest {
         }
         ReferenceSampler sampler = ReferenceSampler.of(SamplerSettings.defaults().withBetaRange(0.1, BETA)
                 .withSweepsPerMicrosecond(60).withErrors(errors).withThreads(1));
-        SpinMoments moments = SpinMoments.of(GAUGES, QUBITS, new int[0][]);
+        double[][] sums = new double[GAUGES][QUBITS];
+        long[][] reads = new long[GAUGES][QUBITS];
         byte[][] signs = new byte[GAUGES][QUBITS];
         for (int g = 0; g < GAUGES; g++) {
             IsingBuilder b = IsingProblem.builder();
@@ -49,9 +50,14 @@ class ReferenceSamplerBiasTest extends QuietTest {
                 b.variable(q).field(q, signs[g][q] * h[q]);
             }
             SampledReads s = sampler.sample(b.build(), READS, seed * 1000 + g);
-            moments.addBitSliced(g, s.samples().words(), READS);
+            SpinMoments moments = SpinMoments.of(QUBITS, new int[0][]);
+            moments.add(s.samples());
+            for (int q = 0; q < QUBITS; q++) {
+                sums[g][q] = moments.spinSum(q);
+                reads[g][q] = moments.reads();
+            }
         }
-        return new Run(BiasDiagnostics.diagnose(moments.qubitSums(), moments.readCounts(QUBITS), signs, 0.01), h);
+        return new Run(BiasDiagnostics.diagnose(sums, reads, signs, 0.01), h);
     }
 
     @Test

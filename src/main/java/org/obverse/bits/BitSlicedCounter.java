@@ -1,7 +1,11 @@
-package org.obverse.samples;
+package org.obverse.bits;
 
 /**
- * Carry-save bit counting: for each of the 64 bit lanes, how many of a list of words have
+ * Counting on 64 lanes at once: a count kept bit-sliced, word p holding bit p of every lane's
+ * count (a vertical counter), and kernels that add words into it and compare it with a
+ * constant. Static kernels over caller-owned {@code long[]} planes; nothing allocates.
+ *
+ * <p>{@link #countLanes} counts, for each of the 64 bit lanes, how many of a list of words have
  * that bit set. Sixteen words at a time pass through a tree of carry-save adders
  * (full adders on whole words: three words in, a sum and a carry word out), which keeps the
  * low four bits of every lane's count in the words ones, twos, fours and eights; each
@@ -10,8 +14,8 @@ package org.obverse.samples;
  * Muła, Kurz and Lemire, The Computer Journal 61(1), 2018). Cost: about six word
  * operations per input word.
  */
-final class BitCounter {
-    private BitCounter() {
+public final class BitSlicedCounter {
+    private BitSlicedCounter() {
     }
 
     /**
@@ -20,7 +24,7 @@ final class BitCounter {
      * @param planes Workspace of at least 32 words; overwritten
      * @param counts Output of 64 entries
      */
-    static void count(long[] x, int size, long[] planes, int[] counts) {
+    public static void countLanes(long[] x, int size, long[] planes, int[] counts) {
         long ones = 0;
         long twos = 0;
         long fours = 0;
@@ -103,17 +107,64 @@ final class BitCounter {
         for (int r = 0; r < 64; r++) {
             int c = (int) ((ones >>> r) & 1) | (int) ((twos >>> r) & 1) << 1 | (int) ((fours >>> r) & 1) << 2
                     | (int) ((eights >>> r) & 1) << 3;
-            for (int p = 0; p < used; p++) {
-                c |= (int) ((planes[p] >>> r) & 1) << (4 + p);
-            }
-            counts[r] = c;
+            counts[r] = c | lane(planes, used, r) << 4;
         }
     }
 
     /**
+     * Adds one word into a vertical counter: lane r of planes[0 … planeCount) gains bit r of
+     * {@code word} (a ripple-carry add on every lane; a carry out of the top plane is lost).
+     * Stops as soon as no lane carries, which pays where words are sparse or planes many.
+     *
+     * @param planes Input and output: the counter, modified
+     */
+    public static void add(long[] planes, int planeCount, long word) {
+        long carry = word;
+        for (int p = 0; p < planeCount && carry != 0L; p++) {
+            long t = planes[p] & carry;
+            planes[p] ^= carry;
+            carry = t;
+        }
+    }
+
+    /** Lanes whose count in planes[0 … planeCount) is at least t (0 ≤ t &lt; 2^planeCount). */
+    public static long atLeast(long[] planes, int planeCount, int t) {
+        long gt = 0L;
+        long eq = -1L;
+        for (int p = planeCount - 1; p >= 0; p--) {
+            if (((t >>> p) & 1) != 0) {
+                eq &= planes[p];
+            } else {
+                gt |= eq & planes[p];
+                eq &= ~planes[p];
+            }
+        }
+        return gt | eq;
+    }
+
+    /** Lanes whose count in planes[0 … planeCount) equals t. */
+    public static long exactly(long[] planes, int planeCount, int t) {
+        long eq = -1L;
+        for (int p = planeCount - 1; p >= 0; p--) {
+            eq &= ((t >>> p) & 1) != 0 ? planes[p] : ~planes[p];
+        }
+        return eq;
+    }
+
+    /** The count of lane r in planes[0 … planeCount). */
+    public static int lane(long[] planes, int planeCount, int r) {
+        int c = 0;
+        for (int p = 0; p < planeCount; p++) {
+            c |= (int) ((planes[p] >>> r) & 1L) << p;
+        }
+        return c;
+    }
+
+    /**
      * Adds one word of carries (each worth 16) into the vertical counter planes[0 … used).
-     * A fixed number of steps without an early exit: carries stop at unpredictable depths, and
-     * a mispredicted branch costs more than the few extra word operations.
+     * Unlike {@link #add}, a fixed number of steps without an early exit (a deliberate
+     * variant): here carries stop at unpredictable depths, and a mispredicted branch costs more
+     * than the few extra word operations.
      */
     private static void ripple(long[] planes, int used, long carry) {
         for (int p = 0; p < used; p++) {
