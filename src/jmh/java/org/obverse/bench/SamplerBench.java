@@ -64,6 +64,8 @@ public class SamplerBench {
     static final int N = ROWS * ROWS * 8;
     /** Sweeps per invocation of the one-read kernels, so the CPU-time reads cost little beside them. */
     static final int SWEEPS = 8;
+    /** Blocks swept together by the lane kernel, as the sampler does for 4,096 reads a thread or more. */
+    static final int LANES = 64;
 
     /** The problem, shared read-only. */
     @State(Scope.Benchmark)
@@ -82,11 +84,23 @@ public class SamplerBench {
         double[] betas;
         MultiSpinCoding coding;
         long[][] thresholds;
+        // The Gaussian glass on the same cells: its couplings (rows and padded) and anneal.
+        double[] gaussCoupling;
+        double[] gaussFields;
+        double[] gaussBetas;
 
         @Setup
         public void setUp() {
-            problem = SpinGlasses.cellGrid(ROWS, ROWS, SpinGlasses.Couplings.PLUS_MINUS_ONE,
-                    RandomSource.XO_RO_SHI_RO_128_PP.create(2026L));
+            problem = problem(false);
+            IsingProblem gauss = problem(true);
+            int[] gaussEdge = gauss.adjacencyEdges();
+            gaussCoupling = new double[gaussEdge.length];
+            for (int q = 0; q < gaussEdge.length; q++) {
+                gaussCoupling[q] = gauss.coupling(gaussEdge[q]);
+            }
+            gaussFields = gauss.fields();
+            double[] gaussRange = BetaRange.automatic(gauss);
+            gaussBetas = BetaRange.perSweep(SamplerSettings.defaults(), gaussRange[0], gaussRange[1]);
             start = problem.adjacencyStarts();
             neighbour = problem.adjacencyVariables();
             int[] edge = problem.adjacencyEdges();
@@ -118,6 +132,12 @@ public class SamplerBench {
         }
     }
 
+    /** The benchmark's glass: 16 × 16 K4,4 cells, ±1 or N(0, 1) couplings, no fields. */
+    static IsingProblem problem(boolean gaussian) {
+        return SpinGlasses.cellGrid(ROWS, ROWS, gaussian ? SpinGlasses.Couplings.GAUSSIAN
+                : SpinGlasses.Couplings.PLUS_MINUS_ONE, RandomSource.XO_RO_SHI_RO_128_PP.create(2026L));
+    }
+
     /** One thread's replica: spins, fields, its own generator, the sweep counter. */
     @State(Scope.Thread)
     public static class Replica {
@@ -130,7 +150,19 @@ public class SamplerBench {
         long[][] words4;
         UniformRandomProvider rng;
         UniformRandomProvider[] rng4;
+        // The branch-free kernels' replicas and bare generator states.
+        byte[] fastSpins;
+        int[] fastLocalField;
+        byte[] gaussSpins;
+        double[] gaussLocalField;
+        long[] laneWords;
+        MultiSpinCoding.Lanes lanes;
+        long[] state;
+        long[] words4Fast;
+        long[][] words4b;
+        long[] states4;
         int sweep;
+        int gaussSweep;
         private static int nextSeed;
 
         @Setup(Level.Trial)
@@ -160,6 +192,35 @@ public class SamplerBench {
             intLocalField = new int[N];
             MetropolisKernels.localFields(N, p.start, p.neighbour, p.intCoupling, p.intFields, intSpins, intLocalField);
             scratchThresholds = new long[p.intThresholds[0].length];
+            fastSpins = spins.clone();
+            fastLocalField = intLocalField.clone();
+            gaussSpins = spins.clone();
+            gaussLocalField = new double[N];
+            MetropolisKernels.localFields(N, p.start, p.neighbour, p.gaussCoupling, p.gaussFields, gaussSpins,
+                    gaussLocalField);
+            lanes = new MultiSpinCoding.Lanes(LANES);
+            laneWords = new long[N * LANES];
+            for (int i = 0; i < laneWords.length; i++) {
+                laneWords[i] = rng.nextLong();
+            }
+            for (int i = 0; i < LANES; i++) {
+                lanes.setState(i, rng.nextLong(), rng.nextLong());
+            }
+            state = new long[] {rng.nextLong(), rng.nextLong()};
+            words4b = new long[4][];
+            states4 = new long[8];
+            for (int w = 0; w < 4; w++) {
+                words4b[w] = words4[w].clone();
+                states4[2 * w] = rng.nextLong();
+                states4[2 * w + 1] = rng.nextLong();
+            }
+            words4Fast = words.clone();
+        }
+
+        int nextGaussSweep(int sweeps) {
+            int s = gaussSweep;
+            gaussSweep = s + 1 == sweeps ? 0 : s + 1;
+            return s;
         }
 
         int nextSweep(int sweeps) {
@@ -199,6 +260,59 @@ public class SamplerBench {
         c.cpuNanos += c.now() - t0;
         c.attempts += SWEEPS * N;
         return r.spins[0];
+    }
+
+    /** The plain baseline on the Gaussian glass. */
+    @Benchmark
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte baselineGaussian(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.gaussBetas[r.nextGaussSweep(p.gaussBetas.length)];
+            MetropolisKernels.sweepBaseline(N, p.start, p.neighbour, p.gaussCoupling, p.gaussFields, r.gaussSpins, beta,
+                    r.rng);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += SWEEPS * N;
+        return r.gaussSpins[0];
+    }
+
+    /** The double kernel with the generator object and the branching bracket, Gaussian glass. */
+    @Benchmark
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactGaussian(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.gaussBetas[r.nextGaussSweep(p.gaussBetas.length)];
+            MetropolisKernels.sweep(N, p.start, p.neighbour, p.gaussCoupling, r.gaussSpins, r.gaussLocalField, beta,
+                    r.rng);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += SWEEPS * N;
+        return r.gaussSpins[0];
+    }
+
+    /** What {@code sample} runs on the ±1 glass: integer, branch-free, bare state, padded rows. */
+    @Benchmark
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactIntegerBranchFree(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.betas[r.nextSweep(p.betas.length)];
+            MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
+            MetropolisKernels.sweepIntegerBranchFree(N, p.degree, p.start, p.padNeighbour, p.padCoupling, r.fastSpins,
+                    r.fastLocalField, r.scratchThresholds, r.state);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += SWEEPS * N;
+        return r.fastSpins[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(SWEEPS * N)
+    public byte exactIntegerBranchFreeTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return exactIntegerBranchFree(p, r, c);
     }
 
     @Benchmark
@@ -282,6 +396,54 @@ public class SamplerBench {
         return w[0][0];
     }
 
+    /** One word, the generator's state in local variables ({@link MultiSpinCoding#sweep(long[], long[], long[])}). */
+    @Benchmark
+    @OperationsPerInvocation(64 * N)
+    public long multiSpinBareState(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        p.coding.sweep(r.words4Fast, p.thresholds[r.nextSweep(p.betas.length)], r.state);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += 64 * N;
+        return r.words4Fast[0];
+    }
+
+    /** What {@code sample --kernel multi-spin} runs: four blocks, bare generator states. */
+    @Benchmark
+    @OperationsPerInvocation(4 * 64 * N)
+    public long multiSpinFourWordsBareState(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        long[][] w = r.words4b;
+        p.coding.sweep4(w[0], w[1], w[2], w[3], p.thresholds[r.nextSweep(p.betas.length)], r.states4);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += 4 * 64 * N;
+        return w[0][0];
+    }
+
+    /** What {@code sample --kernel multi-spin} runs for 4,096 reads a thread or more: 64 blocks as vector lanes. */
+    @Benchmark
+    @OperationsPerInvocation(LANES * 64 * N)
+    public long multiSpinLanes(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        p.coding.sweepLanes(r.laneWords, p.thresholds[r.nextSweep(p.betas.length)], r.lanes);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += LANES * 64 * N;
+        return r.laneWords[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(LANES * 64 * N)
+    public long multiSpinLanesTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return multiSpinLanes(p, r, c);
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(4 * 64 * N)
+    public long multiSpinFourWordsBareStateTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return multiSpinFourWordsBareState(p, r, c);
+    }
+
     @Benchmark
     @Threads(2)
     @OperationsPerInvocation(64 * N)
@@ -295,7 +457,7 @@ public class SamplerBench {
      */
     public static void main(String[] args) throws RunnerException {
         // An optional argument picks benchmarks by a regular expression (the baseline always runs).
-        String only = args.length > 0 ? "(baseline|" + args[0] + ")" : "";
+        String only = args.length > 0 ? "(baseline|baselineGaussian|" + args[0] + ")" : "";
         Options opt = new OptionsBuilder().include(SamplerBench.class.getName() + "\\." + only).forks(1)
                 .warmupIterations(2).warmupTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2))
                 .measurementIterations(3).measurementTime(org.openjdk.jmh.runner.options.TimeValue.seconds(2)).build();
@@ -312,15 +474,24 @@ public class SamplerBench {
         }
         double base = score.get("baseline");
         double baseCpu = perCpu.get("baseline");
-        System.out.printf("%-22s %12s %10s %16s %10s%n", "kernel", "attempts/ns", "x baseline", "attempts/cpu-ns",
+        double gaussBase = score.getOrDefault("baselineGaussian", base);
+        double gaussBaseCpu = perCpu.getOrDefault("baselineGaussian", baseCpu);
+        System.out.printf("%-38s %12s %10s %16s %10s%n", "kernel", "attempts/ns", "x baseline", "attempts/cpu-ns",
                 "x baseline");
         for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger", "exactIntegerRows",
-                "exactIntegerTwoThreads", "multiSpin", "multiSpinFourWords", "multiSpinTwoThreads"}) {
+                "exactIntegerTwoThreads", "exactIntegerBranchFree", "exactIntegerBranchFreeTwoThreads",
+                "baselineGaussian", "exactGaussian", "multiSpin", "multiSpinFourWords", "multiSpinTwoThreads",
+                "multiSpinBareState", "multiSpinFourWordsBareState", "multiSpinFourWordsBareStateTwoThreads",
+                "multiSpinLanes", "multiSpinLanesTwoThreads"}) {
             if (!score.containsKey(k)) {
                 continue;
             }
-            System.out.printf("%-22s %12.4f %10.2f %16.4f %10.2f%n", k, score.get(k), score.get(k) / base,
-                    perCpu.get(k), perCpu.get(k) / baseCpu);
+            // Gaussian-glass kernels are compared with the baseline on the Gaussian glass.
+            boolean gauss = k.contains("Gaussian");
+            double b = gauss ? gaussBase : base;
+            double bc = gauss ? gaussBaseCpu : baseCpu;
+            System.out.printf("%-38s %12.4f %10.2f %16.4f %10.2f%n", k, score.get(k), score.get(k) / b, perCpu.get(k),
+                    perCpu.get(k) / bc);
         }
         if (score.containsKey("multiSpin") && score.containsKey("multiSpinFourWords")) {
             System.out.printf("multi-spin, four words / one: %.2f%n", score.get("multiSpinFourWords") / score.get("multiSpin"));

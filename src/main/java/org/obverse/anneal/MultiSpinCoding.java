@@ -451,4 +451,437 @@ public final class MultiSpinCoding {
         }
         return below;
     }
+
+    /**
+     * {@link #sweep} with the generator's state in {@code state} ({@link XoroshiroState},
+     * advanced in place), drawing in local variables: the same draws, so the same bits as
+     * {@link #sweep} with the generator of that state.
+     */
+    public void sweep(long[] bits, long[] thresholds, long[] state) {
+        for (int k = 0; k < n; k++) {
+            int uphillLevels = (terms[k] + 1) >>> 1;
+            bits[k] ^= uphillLevels <= 3 ? acceptFew(bits, k, thresholds, state, 0) : acceptMany(bits, k, thresholds, state, 0);
+        }
+    }
+
+    /**
+     * {@link #sweep4} with the four generators' states in {@code state} (block i at
+     * {@code state[2i], state[2i + 1]}), each advanced in place: every block ends as
+     * {@link #sweep} would leave it with its own generator. Spin k of the four blocks is
+     * visited together; the random draws run in local variables, so the four independent
+     * chains of draws overlap in the processor.
+     */
+    public void sweep4(long[] b0, long[] b1, long[] b2, long[] b3, long[] thresholds, long[] state) {
+        for (int k = 0; k < n; k++) {
+            int uphillLevels = (terms[k] + 1) >>> 1;
+            if (uphillLevels <= 3) {
+                long a0 = acceptFew(b0, k, thresholds, state, 0);
+                long a1 = acceptFew(b1, k, thresholds, state, 2);
+                long a2 = acceptFew(b2, k, thresholds, state, 4);
+                long a3 = acceptFew(b3, k, thresholds, state, 6);
+                b0[k] ^= a0;
+                b1[k] ^= a1;
+                b2[k] ^= a2;
+                b3[k] ^= a3;
+            } else {
+                b0[k] ^= acceptMany(b0, k, thresholds, state, 0);
+                b1[k] ^= acceptMany(b1, k, thresholds, state, 2);
+                b2[k] ^= acceptMany(b2, k, thresholds, state, 4);
+                b3[k] ^= acceptMany(b3, k, thresholds, state, 6);
+            }
+        }
+    }
+
+    /**
+     * The reads of {@code bits} whose spin k flips, for a spin with at most six terms (three
+     * uphill levels), drawing from the state at {@code state[at], state[at + 1]}: the decisions
+     * and draws of {@link #sweepOne}.
+     */
+    private long acceptFew(long[] bits, int k, long[] thresholds, long[] state, int at) {
+        long b = bits[k];
+        long c0 = 0;
+        long c1 = 0;
+        long c2 = 0;
+        if (hasGhost[k]) {
+            c0 = b ^ ghostMask[k];
+        }
+        for (int q = start[k]; q < start[k + 1]; q++) {
+            long x = b ^ bits[neighbour[q]] ^ sameIsUnsatisfied[q];
+            long t0 = c0 & x;
+            c0 ^= x;
+            long t1 = c1 & t0;
+            c1 ^= t0;
+            c2 ^= t1;
+        }
+        int d = terms[k];
+        int uphillLevels = (d + 1) >>> 1;
+        long e0 = uphillLevels > 0 ? ~c0 & ~c1 & ~c2 : 0;
+        long e1 = uphillLevels > 1 ? c0 & ~c1 & ~c2 : 0;
+        long e2 = uphillLevels > 2 ? ~c0 & c1 & ~c2 : 0;
+        long undecided = e0 | e1 | e2;
+        if (undecided == 0) {
+            return -1L;
+        }
+        int base = d * LEVELS;
+        long p0 = thresholds[base];
+        long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
+        long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
+        long s0 = state[at];
+        long s1 = state[at + 1];
+        long below = 0;
+        long accept = ~undecided;
+        for (int bit = 0; bit < FIXED_ROUNDS; bit++) {
+            long pb = (e0 & (p0 >> 63)) | (e1 & (p1 >> 63)) | (e2 & (p2 >> 63));
+            p0 <<= 1;
+            p1 <<= 1;
+            p2 <<= 1;
+            long r = Long.rotateLeft(s0 + s1, 17) + s0;
+            long t = s1 ^ s0;
+            s0 = Long.rotateLeft(s0, 49) ^ t ^ (t << 21);
+            s1 = Long.rotateLeft(t, 28);
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        for (int bit = FIXED_ROUNDS; bit < 64 && undecided != 0; bit++) {
+            long pb = (e0 & (p0 >> 63)) | (e1 & (p1 >> 63)) | (e2 & (p2 >> 63));
+            p0 <<= 1;
+            p1 <<= 1;
+            p2 <<= 1;
+            long r = Long.rotateLeft(s0 + s1, 17) + s0;
+            long t = s1 ^ s0;
+            s0 = Long.rotateLeft(s0, 49) ^ t ^ (t << 21);
+            s1 = Long.rotateLeft(t, 28);
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        state[at] = s0;
+        state[at + 1] = s1;
+        return accept | below;
+    }
+
+    /**
+     * As {@link #acceptFew} for a spin with more than six terms (four to eight uphill levels):
+     * bit by bit until every read is decided, as {@link #sweepOne} does there.
+     */
+    private long acceptMany(long[] bits, int k, long[] thresholds, long[] state, int at) {
+        return acceptMany(bits, 1, 0, k, thresholds, state, at);
+    }
+
+    /** {@link #acceptMany} for lane {@code lane} of words laid out with stride {@code stride} (spin k at k·stride). */
+    private long acceptMany(long[] bits, int stride, int lane, int k, long[] thresholds, long[] state, int at) {
+        long b = bits[k * stride + lane];
+        long c0 = 0;
+        long c1 = 0;
+        long c2 = 0;
+        long c3 = 0;
+        if (hasGhost[k]) {
+            c0 = b ^ ghostMask[k];
+        }
+        for (int q = start[k]; q < start[k + 1]; q++) {
+            long x = b ^ bits[neighbour[q] * stride + lane] ^ sameIsUnsatisfied[q];
+            long t0 = c0 & x;
+            c0 ^= x;
+            long t1 = c1 & t0;
+            c1 ^= t0;
+            long t2 = c2 & t1;
+            c2 ^= t1;
+            c3 ^= t2;
+        }
+        int d = terms[k];
+        int uphillLevels = (d + 1) >>> 1;
+        long nc0 = ~c0;
+        long nc1 = ~c1;
+        long nc2 = ~c2;
+        long low = ~c3;
+        long e0 = nc0 & nc1 & nc2 & low;
+        long e1 = c0 & nc1 & nc2 & low;
+        long e2 = nc0 & c1 & nc2 & low;
+        long e3 = c0 & c1 & nc2 & low;
+        long e4 = uphillLevels > 4 ? nc0 & nc1 & c2 & low : 0;
+        long e5 = uphillLevels > 5 ? c0 & nc1 & c2 & low : 0;
+        long e6 = uphillLevels > 6 ? nc0 & c1 & c2 & low : 0;
+        long e7 = uphillLevels > 7 ? c0 & c1 & c2 & low : 0;
+        int base = d * LEVELS;
+        long p0 = thresholds[base];
+        long p1 = thresholds[base + 1];
+        long p2 = thresholds[base + 2];
+        long p3 = thresholds[base + 3];
+        long p4 = uphillLevels > 4 ? thresholds[base + 4] : 0;
+        long p5 = uphillLevels > 5 ? thresholds[base + 5] : 0;
+        long p6 = uphillLevels > 6 ? thresholds[base + 6] : 0;
+        long p7 = uphillLevels > 7 ? thresholds[base + 7] : 0;
+        long undecided = e0 | e1 | e2 | e3 | e4 | e5 | e6 | e7;
+        long accept = ~undecided;
+        long s0 = state[at];
+        long s1 = state[at + 1];
+        long below = 0;
+        for (int bit = 63; bit >= 0 && undecided != 0; bit--) {
+            long pb = (e0 & -((p0 >>> bit) & 1L)) | (e1 & -((p1 >>> bit) & 1L))
+                    | (e2 & -((p2 >>> bit) & 1L)) | (e3 & -((p3 >>> bit) & 1L))
+                    | (e4 & -((p4 >>> bit) & 1L)) | (e5 & -((p5 >>> bit) & 1L))
+                    | (e6 & -((p6 >>> bit) & 1L)) | (e7 & -((p7 >>> bit) & 1L));
+            long r = Long.rotateLeft(s0 + s1, 17) + s0;
+            long t = s1 ^ s0;
+            s0 = Long.rotateLeft(s0, 49) ^ t ^ (t << 21);
+            s1 = Long.rotateLeft(t, 28);
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        state[at] = s0;
+        state[at + 1] = s1;
+        return accept | below;
+    }
+
+    /**
+     * The working arrays of {@link #sweepLanes} for a number of 64-read blocks (lanes): the
+     * generator state of each lane ({@link XoroshiroState}) and scratch, one array per
+     * quantity so that the lane loops compile to vector instructions. Not shared between
+     * threads.
+     */
+    public static final class Lanes {
+        private final int count;
+        private final long[] s0;
+        private final long[] s1;
+        private final long[] c0;
+        private final long[] c1;
+        private final long[] c2;
+        private final long[] e0;
+        private final long[] e1;
+        private final long[] e2;
+        private final long[] undecided;
+        private final long[] below;
+        private final long[] keep;
+        private final long[] draw;
+        private final long[] saved0;
+        private final long[] saved1;
+        private final long[] one = new long[2];
+
+        /** Working arrays for {@code count} ≥ 1 lanes. */
+        public Lanes(int count) {
+            if (count < 1) {
+                throw new IllegalArgumentException("lanes " + count + " must be >= 1");
+            }
+            this.count = count;
+            s0 = new long[count];
+            s1 = new long[count];
+            c0 = new long[count];
+            c1 = new long[count];
+            c2 = new long[count];
+            e0 = new long[count];
+            e1 = new long[count];
+            e2 = new long[count];
+            undecided = new long[count];
+            below = new long[count];
+            keep = new long[count];
+            draw = new long[count];
+            saved0 = new long[count];
+            saved1 = new long[count];
+        }
+
+        public int count() {
+            return count;
+        }
+
+        /** Sets the generator state of a lane. */
+        public void setState(int lane, long a, long b) {
+            s0[lane] = a;
+            s1[lane] = b;
+        }
+
+        /** The generator state of a lane, {a, b}, as a new array. */
+        public long[] state(int lane) {
+            return new long[] {s0[lane], s1[lane]};
+        }
+    }
+
+    /**
+     * {@link #sweep} for {@code lanes.count()} blocks at once, each with its own generator
+     * state in {@code lanes}: every block ends exactly as {@link #sweep} would leave it with its
+     * generator (the same draws in the same order). {@code bits} holds the blocks interleaved:
+     * spin k of lane i at {@code bits[k·lanes + i]}. Every step is a loop over the lanes on
+     * arrays (counting, the fixed threshold rounds with their random draws, the update), which
+     * the JIT compiles to vector instructions: this is where the speed comes from. A lane with
+     * no uphill read at spin k draws nothing (its state is kept by a mask); the rare reads still
+     * undecided after the fixed rounds, and spins with more than six terms, take the one-lane
+     * paths.
+     */
+    public void sweepLanes(long[] bits, long[] thresholds, Lanes lanes) {
+        int m = lanes.count;
+        long[] s0 = lanes.s0;
+        long[] s1 = lanes.s1;
+        long[] c0 = lanes.c0;
+        long[] c1 = lanes.c1;
+        long[] c2 = lanes.c2;
+        long[] e0 = lanes.e0;
+        long[] e1 = lanes.e1;
+        long[] e2 = lanes.e2;
+        long[] und = lanes.undecided;
+        long[] below = lanes.below;
+        long[] keep = lanes.keep;
+        long[] one = lanes.one;
+        for (int k = 0; k < n; k++) {
+            int d = terms[k];
+            int uphillLevels = (d + 1) >>> 1;
+            int row = k * m;
+            if (uphillLevels > 3) {
+                for (int i = 0; i < m; i++) {
+                    one[0] = s0[i];
+                    one[1] = s1[i];
+                    bits[row + i] ^= acceptMany(bits, m, i, k, thresholds, one, 0);
+                    s0[i] = one[0];
+                    s1[i] = one[1];
+                }
+                continue;
+            }
+            // Counts of unsatisfied terms, bit-sliced: at most six terms, three planes.
+            long g = hasGhost[k] ? ghostMask[k] : 0L;
+            long ghostOn = hasGhost[k] ? -1L : 0L;
+            for (int i = 0; i < m; i++) {
+                c0[i] = (bits[row + i] ^ g) & ghostOn;
+                c1[i] = 0;
+                c2[i] = 0;
+            }
+            for (int q = start[k]; q < start[k + 1]; q++) {
+                int other = neighbour[q] * m;
+                long same = sameIsUnsatisfied[q];
+                for (int i = 0; i < m; i++) {
+                    long x = bits[row + i] ^ bits[other + i] ^ same;
+                    long a0 = c0[i];
+                    long t0 = a0 & x;
+                    c0[i] = a0 ^ x;
+                    long a1 = c1[i];
+                    c1[i] = a1 ^ t0;
+                    c2[i] ^= a1 & t0;
+                }
+            }
+            // eq(m) for the uphill levels m < d/2 (at most three).
+            long on0 = uphillLevels > 0 ? -1L : 0L;
+            long on1 = uphillLevels > 1 ? -1L : 0L;
+            long on2 = uphillLevels > 2 ? -1L : 0L;
+            for (int i = 0; i < m; i++) {
+                long a0 = c0[i];
+                long a1 = c1[i];
+                long a2 = c2[i];
+                long f0 = ~(a0 | a1 | a2) & on0;
+                long f1 = a0 & ~(a1 | a2) & on1;
+                long f2 = a1 & ~(a0 | a2) & on2;
+                e0[i] = f0;
+                e1[i] = f1;
+                e2[i] = f2;
+                und[i] = f0 | f1 | f2;
+                below[i] = 0;
+            }
+            // A lane with no uphill read draws nothing: the rounds below run every lane's
+            // generator, and such lanes get their state back afterwards.
+            long some = 0;
+            long all = -1L;
+            for (int i = 0; i < m; i++) {
+                long u = und[i];
+                long kp = (u | -u) >> 63;
+                keep[i] = kp;
+                some |= kp;
+                all &= kp;
+            }
+            int base = d * LEVELS;
+            long p0 = uphillLevels > 0 ? thresholds[base] : 0;
+            long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
+            long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
+            if (some != 0) {
+                if (all == 0) {
+                    System.arraycopy(s0, 0, lanes.saved0, 0, m);
+                    System.arraycopy(s1, 0, lanes.saved1, 0, m);
+                }
+                long[] r = lanes.draw;
+                for (int bit = 0; bit < FIXED_ROUNDS; bit++) {
+                    long h0 = p0 >> 63;
+                    long h1 = p1 >> 63;
+                    long h2 = p2 >> 63;
+                    p0 <<= 1;
+                    p1 <<= 1;
+                    p2 <<= 1;
+                    draws(m, s0, s1, r);
+                    decide(m, r, und, below, e0, e1, e2, h0, h1, h2);
+                }
+                if (all == 0) {
+                    restore(m, s0, lanes.saved0, keep);
+                    restore(m, s1, lanes.saved1, keep);
+                }
+            } else {
+                p0 <<= FIXED_ROUNDS;
+                p1 <<= FIXED_ROUNDS;
+                p2 <<= FIXED_ROUNDS;
+            }
+            long left = 0;
+            for (int i = 0; i < m; i++) {
+                left |= und[i];
+            }
+            if (left != 0) {
+                for (int i = 0; i < m; i++) {
+                    if (und[i] != 0) {
+                        one[0] = s0[i];
+                        one[1] = s1[i];
+                        below[i] |= finishLane(und[i], e0[i], p0, e1[i], p1, e2[i], p2, one);
+                        s0[i] = one[0];
+                        s1[i] = one[1];
+                    }
+                }
+            }
+            for (int i = 0; i < m; i++) {
+                bits[row + i] ^= ~(e0[i] | e1[i] | e2[i]) | below[i];
+            }
+        }
+    }
+
+    /** The next word of every lane's generator into r (a loop the JIT vectorises). */
+    private static void draws(int m, long[] s0, long[] s1, long[] r) {
+        for (int i = 0; i < m; i++) {
+            long x = s0[i];
+            long y = s1[i];
+            r[i] = Long.rotateLeft(x + y, 17) + x;
+            long t = y ^ x;
+            s0[i] = Long.rotateLeft(x, 49) ^ t ^ (t << 21);
+            s1[i] = Long.rotateLeft(t, 28);
+        }
+    }
+
+    /** One threshold bit (h0 … h2 all ones where set) compared with every lane's draw. */
+    private static void decide(int m, long[] r, long[] und, long[] below, long[] e0, long[] e1, long[] e2, long h0,
+                               long h1, long h2) {
+        for (int i = 0; i < m; i++) {
+            long x = r[i];
+            long pb = (e0[i] & h0) | (e1[i] & h1) | (e2[i] & h2);
+            long un = und[i];
+            below[i] |= un & ~x & pb;
+            und[i] = un & ~(x ^ pb);
+        }
+    }
+
+    /** s[i] back to saved[i] where keep[i] is 0. */
+    private static void restore(int m, long[] s, long[] saved, long[] keep) {
+        for (int i = 0; i < m; i++) {
+            s[i] = saved[i] ^ ((s[i] ^ saved[i]) & keep[i]);
+        }
+    }
+
+    /** {@link #finish} on a bare state: the reads still undecided after the fixed rounds. */
+    private static long finishLane(long undecided, long e0, long p0, long e1, long p1, long e2, long p2, long[] state) {
+        long s0 = state[0];
+        long s1 = state[1];
+        long below = 0;
+        for (int bit = FIXED_ROUNDS; bit < 64 && undecided != 0; bit++) {
+            long pb = (e0 & (p0 >> 63)) | (e1 & (p1 >> 63)) | (e2 & (p2 >> 63));
+            p0 <<= 1;
+            p1 <<= 1;
+            p2 <<= 1;
+            long r = Long.rotateLeft(s0 + s1, 17) + s0;
+            long t = s1 ^ s0;
+            s0 = Long.rotateLeft(s0, 49) ^ t ^ (t << 21);
+            s1 = Long.rotateLeft(t, 28);
+            below |= undecided & ~r & pb;
+            undecided &= ~(r ^ pb);
+        }
+        state[0] = s0;
+        state[1] = s1;
+        return below;
+    }
 }

@@ -24,8 +24,11 @@ import org.obverse.samples.SampleBlock;
  * count. Reads start from uniformly random spins.
  *
  * <p>The exact kernel runs problems with small integer fields and couplings (and no per-read
- * noise) in integer arithmetic ({@link MetropolisKernels#sweepInteger}): the same decisions
- * from the same random numbers, so the same reads, in less time.
+ * noise) in integer arithmetic without a branch on the decision, drawing on the generator's
+ * bare state ({@link MetropolisKernels#sweepIntegerBranchFree}): the same decisions from the
+ * same random numbers, so the same reads, in less time. The multi-spin kernel sweeps its
+ * blocks four at a time or as vector lanes ({@link MultiSpinCoding#sweepLanes}), again with
+ * each block's own draws in their own order.
  *
  * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
  * problem's arrays per thread.
@@ -113,7 +116,7 @@ public final class ReferenceSampler {
                         + "use the exact kernel to sample with errors");
             }
             MultiSpinCoding coding = MultiSpinCoding.of(problem);
-            task = new MultiSpinTask(problem, coding, betas, block, energies, seed);
+            task = new MultiSpinTask(problem, coding, betas, block, energies, seed, settings.threads());
         } else {
             task = new ExactTask(problem, device, settings.errors(), betas, block, energies, seed);
         }
@@ -197,8 +200,8 @@ public final class ReferenceSampler {
         private final int[] intCoupling;
         private final int[] intFields;
         private final int fieldBound;
-        // The integer kernel's padded layout (stride degree) where padding costs at most twice
-        // the compressed rows, else null.
+        // The padded layout (stride degree) where padding costs at most twice the compressed
+        // rows, else degree 0 and nulls; its couplings as integers or as doubles.
         private final int degree;
         private final int[] paddedNeighbour;
         private final int[] paddedCoupling;
@@ -238,7 +241,7 @@ public final class ReferenceSampler {
                 intFields = null;
             }
             int d = MetropolisKernels.maxDegree(n, start);
-            if (intCoupling != null && (long) n * d <= 2L * neighbour.length) {
+            if (intCoupling != null && d > 0 && (long) n * d <= 2L * neighbour.length) {
                 degree = d;
                 paddedNeighbour = MetropolisKernels.padded(n, start, neighbour, d, true);
                 paddedCoupling = MetropolisKernels.padded(n, start, intCoupling, d, false);
@@ -288,6 +291,10 @@ public final class ReferenceSampler {
         }
 
         private void read(int r, Workspace ws) {
+            if (intCoupling != null) {
+                readInteger(r, ws);
+                return;
+            }
             UniformRandomProvider rng = RandomStreams.generator(seed, StreamPurpose.READS, r);
             byte[] s = ws.spins;
             for (int k = 0; k < n; k += 64) {
@@ -296,21 +303,9 @@ public final class ReferenceSampler {
                     s[i] = (byte) ((((bits >>> (i - k)) & 1L) << 1) - 1);
                 }
             }
-            if (intCoupling != null) {
-                MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, s, ws.intLocalField);
-                for (double beta : betas) {
-                    MetropolisKernels.integerThresholds(beta, ws.thresholds);
-                    if (paddedNeighbour != null) {
-                        MetropolisKernels.sweepIntegerPadded(n, degree, paddedNeighbour, paddedCoupling, s,
-                                ws.intLocalField, ws.thresholds, rng);
-                    } else {
-                        MetropolisKernels.sweepInteger(n, start, neighbour, intCoupling, s, ws.intLocalField,
-                                ws.thresholds, rng);
-                    }
-                }
-                finish(r, s);
-                return;
-            }
+            // Fields or couplings that are not small integers, or per-read noise: the double
+            // kernel. (A branch-free form of it measured slower here: on Gaussian couplings few
+            // moves are taken, so the branch is well predicted and skipping the updates pays.)
             double[] h = fields;
             double[] csr = csrCoupling;
             if (errors.hasReadNoise()) {
@@ -330,6 +325,31 @@ public final class ReferenceSampler {
             finish(r, s);
         }
 
+        /**
+         * A read of an integer problem: the branch-free integer kernel on the generator's bare
+         * state ({@link MetropolisKernels#sweepIntegerBranchFree}), the same draws and
+         * decisions as {@link MetropolisKernels#sweepExactExponential} with the generator.
+         */
+        private void readInteger(int r, Workspace ws) {
+            long[] state = RandomStreams.state(seed, StreamPurpose.READS, r);
+            byte[] s = ws.spins;
+            for (int k = 0; k < n; k += 64) {
+                long bits = XoroshiroState.next(state);
+                for (int i = k; i < Math.min(n, k + 64); i++) {
+                    s[i] = (byte) ((((bits >>> (i - k)) & 1L) << 1) - 1);
+                }
+            }
+            int[] rowNeighbour = degree > 0 ? paddedNeighbour : neighbour;
+            int[] rowCoupling = degree > 0 ? paddedCoupling : intCoupling;
+            MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, s, ws.intLocalField);
+            for (double beta : betas) {
+                MetropolisKernels.integerThresholds(beta, ws.thresholds);
+                MetropolisKernels.sweepIntegerBranchFree(n, degree, start, rowNeighbour, rowCoupling, s,
+                        ws.intLocalField, ws.thresholds, state);
+            }
+            finish(r, s);
+        }
+
         private void finish(int r, byte[] s) {
             // Each block is written by one thread only, so these bit writes never race.
             for (int k = 0; k < n; k++) {
@@ -339,83 +359,133 @@ public final class ReferenceSampler {
         }
     }
 
-    /** The multi-spin kernel: 64 reads a word. */
+    /**
+     * The multi-spin kernel: 64 reads a word (a block), blocks grouped into units. Where each
+     * thread gets at least {@link #MIN_LANES} blocks, a unit is up to {@link #MAX_LANES} blocks
+     * swept together as lanes ({@link MultiSpinCoding#sweepLanes}, vectorised); otherwise four
+     * ({@link MultiSpinCoding#sweep4}). Every block draws from its own generator in the same
+     * order either way, so the grouping never changes a bit of the output.
+     */
     private static final class MultiSpinTask implements Task {
+        /** Lanes per unit at most: 4,096 reads. */
+        static final int MAX_LANES = 64;
+        /** Fewest lanes worth the lane kernel (its loops need this many to use vector instructions). */
+        static final int MIN_LANES = 16;
+
         private final IsingProblem nominal;
         private final MultiSpinCoding coding;
         private final double[] betas;
         private final SampleBlock block;
         private final double[] energies;
         private final long seed;
+        private final int lanes;
 
         MultiSpinTask(IsingProblem nominal, MultiSpinCoding coding, double[] betas, SampleBlock block,
-                      double[] energies, long seed) {
+                      double[] energies, long seed, int threads) {
             this.nominal = nominal;
             this.coding = coding;
             this.betas = betas;
             this.block = block;
             this.energies = energies;
             this.seed = seed;
+            int perThread = (block.blockCount() + threads - 1) / Math.max(1, threads);
+            int l = Math.min(MAX_LANES, perThread);
+            this.lanes = l >= MIN_LANES ? l : 4;
         }
 
         private static final class Workspace {
             final long[][] bits;
             final long[] thresholds = new long[MultiSpinCoding.thresholdLength()];
+            // The four blocks' generator states, block i at [2i, 2i + 1].
+            final long[] states = new long[8];
             final byte[] row;
+            final long[] laneBits;
+            final MultiSpinCoding.Lanes lanes;
 
-            Workspace(int n) {
-                bits = new long[4][n];
+            Workspace(int n, int lanes) {
+                bits = lanes == 4 ? new long[4][n] : null;
+                laneBits = lanes == 4 ? null : new long[n * lanes];
+                this.lanes = lanes == 4 ? null : new MultiSpinCoding.Lanes(lanes);
                 row = new byte[n];
             }
         }
 
         @Override
         public Object workspace() {
-            return new Workspace(coding.size());
+            return new Workspace(coding.size(), lanes);
         }
 
-        /** Four blocks a unit: {@link MultiSpinCoding#sweep4} runs their independent sweeps together. */
         @Override
         public int units(int blocks) {
-            return (blocks + 3) / 4;
+            return (blocks + lanes - 1) / lanes;
         }
 
         @Override
         public void block(int unit, Object workspace) {
             Workspace ws = (Workspace) workspace;
-            int n = coding.size();
-            int first = unit * 4;
-            int count = Math.min(4, block.blockCount() - first);
-            UniformRandomProvider[] rng = new UniformRandomProvider[count];
-            for (int i = 0; i < count; i++) {
-                rng[i] = RandomStreams.generator(seed, StreamPurpose.WORDS, first + i);
-                long[] bits = ws.bits[i];
-                for (int k = 0; k < n; k++) {
-                    bits[k] = rng[i].nextLong();
-                }
+            int first = unit * lanes;
+            int count = Math.min(lanes, block.blockCount() - first);
+            if (ws.lanes != null && count == lanes) {
+                sweepLanes(first, ws);
+                return;
             }
-            for (double beta : betas) {
-                coding.thresholds(beta, ws.thresholds);
-                if (count == 4) {
-                    coding.sweep4(ws.bits[0], ws.bits[1], ws.bits[2], ws.bits[3], ws.thresholds, rng[0], rng[1], rng[2],
-                            rng[3]);
-                } else {
-                    for (int i = 0; i < count; i++) {
-                        coding.sweep(ws.bits[i], ws.thresholds, rng[i]);
+            int n = coding.size();
+            // Four blocks at a time (a last short unit of the lane kernel too, in fours).
+            for (int from = first; from < first + count; from += 4) {
+                int c = Math.min(4, first + count - from);
+                long[][] bits = ws.bits != null ? ws.bits : new long[4][n];
+                long[][] state = new long[c][];
+                for (int i = 0; i < c; i++) {
+                    state[i] = RandomStreams.state(seed, StreamPurpose.WORDS, from + i);
+                    for (int k = 0; k < n; k++) {
+                        bits[i][k] = XoroshiroState.next(state[i]);
+                    }
+                    ws.states[2 * i] = state[i][0];
+                    ws.states[2 * i + 1] = state[i][1];
+                }
+                for (double beta : betas) {
+                    coding.thresholds(beta, ws.thresholds);
+                    if (c == 4) {
+                        coding.sweep4(bits[0], bits[1], bits[2], bits[3], ws.thresholds, ws.states);
+                    } else {
+                        for (int i = 0; i < c; i++) {
+                            coding.sweep(bits[i], ws.thresholds, state[i]);
+                        }
                     }
                 }
-            }
-            for (int i = 0; i < count; i++) {
-                finishBlock(first + i, ws.bits[i], ws.row);
+                for (int i = 0; i < c; i++) {
+                    finishBlock(from + i, bits[i], 1, 0, ws.row);
+                }
             }
         }
 
-        private void finishBlock(int b, long[] bits, byte[] row) {
+        private void sweepLanes(int first, Workspace ws) {
+            int n = coding.size();
+            int m = lanes;
+            long[] bits = ws.laneBits;
+            for (int i = 0; i < m; i++) {
+                long[] state = RandomStreams.state(seed, StreamPurpose.WORDS, first + i);
+                for (int k = 0; k < n; k++) {
+                    bits[k * m + i] = XoroshiroState.next(state);
+                }
+                ws.lanes.setState(i, state[0], state[1]);
+            }
+            for (double beta : betas) {
+                coding.thresholds(beta, ws.thresholds);
+                coding.sweepLanes(bits, ws.thresholds, ws.lanes);
+            }
+            for (int i = 0; i < m; i++) {
+                finishBlock(first + i, bits, m, i, ws.row);
+            }
+        }
+
+        /** Block b's words from {@code bits} (spin k at k·stride + lane) into the output, and its energies. */
+        private void finishBlock(int b, long[] bits, int stride, int lane, byte[] row) {
             int n = coding.size();
             long mask = block.validMask(b);
             long[] words = block.words();
             for (int k = 0; k < n; k++) {
-                words[b * n + k] = bits[k] & mask;
+                words[b * n + k] = bits[k * stride + lane] & mask;
             }
             int first = b << 6;
             int last = Math.min(block.reads(), first + 64);

@@ -49,6 +49,16 @@ public final class RandomStreams {
     }
 
     /**
+     * The two state words {a, b} of {@link #generator}, as a new array, for kernels that step
+     * the same algorithm on local variables (the sampler's xoroshiro128++ kernels): they then
+     * draw the very numbers of the generator.
+     */
+    public static long[] state(long seed, long purpose, long index) {
+        long a = derive(seed, purpose, index);
+        return new long[] {a, mix(a + GOLDEN)};
+    }
+
+    /**
      * The generator whose state is the first two outputs of a SplitMix64 sequence started at
      * {@code start}: {@code (mix(start + G), mix(start + 2G))}. Never all zero (as above).
      * Only the named recipes of {@link LegacyStreams} use it.

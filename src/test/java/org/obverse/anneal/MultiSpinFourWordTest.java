@@ -61,7 +61,7 @@ class MultiSpinFourWordTest extends QuietTest {
         });
     }
 
-    private static IsingProblem randomPlusMinus(UniformRandomProvider rng) {
+    static IsingProblem randomPlusMinus(UniformRandomProvider rng) {
         int n = 2 + rng.nextInt(30);
         double c = rng.nextBoolean() ? 1.0 : 0.5;
         int maxDegree = 1 + rng.nextInt(14);

@@ -1,0 +1,141 @@
+/*
+ * The C yardstick for the exact Metropolis kernel (issue 12, item 5): a plain single-spin
+ * Metropolis sweep over compressed rows, as a practitioner would write it in C. Built and run
+ * only by bench/run_sampler_c.sh (gcc -O3 -march=native), never in CI.
+ *
+ *   metropolis PROBLEM.txt table|exp SWEEPS
+ *
+ * PROBLEM.txt (written by org.obverse.bench.SamplerProblemFile): "n terms sweeps", then n + 1
+ * row starts, then per term "neighbour coupling", then one beta per sweep of the anneal (hex
+ * floats, so every value is the one Java used). Spins start uniformly random; local fields are
+ * maintained; a move with dE <= 0 is taken without a draw, an uphill move draws one uniform u
+ * (top 53 bits of a xoroshiro128++ word: Blackman & Vigna, ACM TOMS 47(4), 2021) and is taken
+ * when u < exp(-beta dE):
+ *   table: dE = 2v for integer v (integer problems): exp(-beta 2v) tabulated once per sweep;
+ *   exp:   exp() from libm on every uphill attempt (any couplings);
+ *   bracket: a table of exp(-k/32); u below the bracket's lower end accepts, at or above its
+ *          upper end refuses, exp() only in between (any couplings).
+ * Prints attempts per ns of thread CPU time and of wall time, and a checksum of the spins.
+ */
+#define _POSIX_C_SOURCE 199309L
+#include <math.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+
+static uint64_t s0 = 0x243F6A8885A308D3ULL, s1 = 0x13198A2E03707344ULL;
+
+static inline uint64_t rotl(uint64_t x, int k) { return (x << k) | (x >> (64 - k)); }
+
+static inline uint64_t next(void) {
+    uint64_t a = s0, b = s1;
+    uint64_t r = rotl(a + b, 17) + a;
+    b ^= a;
+    s0 = rotl(a, 49) ^ b ^ (b << 21);
+    s1 = rotl(b, 28);
+    return r;
+}
+
+static inline double uniform(void) { return (double) (next() >> 11) * 0x1p-53; }
+
+static double now(clockid_t c) {
+    struct timespec t;
+    clock_gettime(c, &t);
+    return t.tv_sec * 1e9 + t.tv_nsec;
+}
+
+int main(int argc, char **argv) {
+    if (argc != 4) {
+        fprintf(stderr, "usage: metropolis PROBLEM.txt table|exp SWEEPS\n");
+        return 2;
+    }
+    FILE *f = fopen(argv[1], "r");
+    if (!f) { perror(argv[1]); return 2; }
+    int table = strcmp(argv[2], "table") == 0;
+    int bracket = strcmp(argv[2], "bracket") == 0;
+    double ex[1027];
+    for (int k = 0; k <= 1024; k++) ex[k] = exp(-k / 32.0);
+    ex[1025] = ex[1024]; /* x >= 32: the bracket [0, exp(-32)] */
+    ex[1026] = 0.0;
+    long sweeps = atol(argv[3]);
+    int n, m, nb;
+    if (fscanf(f, "%d %d %d", &n, &m, &nb) != 3) return 2;
+    int *start = malloc((n + 1) * sizeof(int));
+    int *nbr = malloc(m * sizeof(int));
+    double *J = malloc(m * sizeof(double));
+    double *betas = malloc(nb * sizeof(double));
+    char buf[64];
+    for (int k = 0; k <= n; k++) if (fscanf(f, "%d", &start[k]) != 1) return 2;
+    for (int q = 0; q < m; q++) {
+        if (fscanf(f, "%d %63s", &nbr[q], buf) != 2) return 2;
+        J[q] = strtod(buf, NULL);
+    }
+    for (int i = 0; i < nb; i++) {
+        if (fscanf(f, "%63s", buf) != 1) return 2;
+        betas[i] = strtod(buf, NULL);
+    }
+    fclose(f);
+
+    signed char *s = malloc(n);
+    double *lf = calloc(n, sizeof(double));
+    int *ilf = calloc(n, sizeof(int));
+    int *iJ = malloc(m * sizeof(int));
+    int bound = 0;
+    for (int k = 0; k < n; k++) {
+        s[k] = (next() >> 63) ? 1 : -1;
+        int tot = 0;
+        for (int q = start[k]; q < start[k + 1]; q++) tot += (int) fabs(J[q]);
+        if (tot > bound) bound = tot;
+    }
+    for (int q = 0; q < m; q++) iJ[q] = (int) J[q];
+    for (int k = 0; k < n; k++) {
+        double h = 0; int ih = 0;
+        for (int q = start[k]; q < start[k + 1]; q++) { h += J[q] * s[nbr[q]]; ih += iJ[q] * s[nbr[q]]; }
+        lf[k] = h; ilf[k] = ih;
+    }
+    double *p = malloc((bound + 1) * sizeof(double));
+
+    double c0 = now(CLOCK_THREAD_CPUTIME_ID), w0 = now(CLOCK_MONOTONIC);
+    for (long t = 0; t < sweeps; t++) {
+        double beta = betas[t % nb];
+        if (table) {
+            for (int v = 0; v <= bound; v++) p[v] = exp(-beta * 2.0 * v);
+            for (int k = 0; k < n; k++) {
+                int v = s[k] * ilf[k];            /* dE = -2 v */
+                if (v < 0 && !(uniform() < p[-v])) continue;
+                int d = -2 * s[k];
+                s[k] = (signed char) -s[k];
+                for (int q = start[k]; q < start[k + 1]; q++) ilf[nbr[q]] += d * iJ[q];
+            }
+        } else if (bracket) {
+            for (int k = 0; k < n; k++) {
+                double dE = -2.0 * s[k] * lf[k];
+                if (dE > 0.0) {
+                    double x = beta * dE, u = uniform();
+                    int i = x < 32.0 ? (int) (x * 32.0) : 1025;
+                    if (!(u < ex[i + 1]) && (u >= ex[i] || !(u < exp(-x)))) continue;
+                }
+                double d = -2.0 * s[k];
+                s[k] = (signed char) -s[k];
+                for (int q = start[k]; q < start[k + 1]; q++) lf[nbr[q]] += d * J[q];
+            }
+        } else {
+            for (int k = 0; k < n; k++) {
+                double dE = -2.0 * s[k] * lf[k];
+                if (dE > 0.0 && !(uniform() < exp(-beta * dE))) continue;
+                double d = -2.0 * s[k];
+                s[k] = (signed char) -s[k];
+                for (int q = start[k]; q < start[k + 1]; q++) lf[nbr[q]] += d * J[q];
+            }
+        }
+    }
+    double c1 = now(CLOCK_THREAD_CPUTIME_ID), w1 = now(CLOCK_MONOTONIC);
+    long sum = 0;
+    for (int k = 0; k < n; k++) sum = sum * 31 + s[k];
+    double attempts = (double) sweeps * n;
+    printf("%s attempts/cpu-ns %.4f attempts/ns %.4f (checksum %ld)\n", argv[2], attempts / (c1 - c0),
+           attempts / (w1 - w0), sum);
+    return 0;
+}

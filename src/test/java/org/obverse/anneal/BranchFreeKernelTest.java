@@ -1,0 +1,202 @@
+package org.obverse.anneal;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.simple.RandomSource;
+import org.junit.jupiter.api.Test;
+import org.obverse.model.IsingProblem;
+import org.obverse.problems.SpinGlasses;
+import org.obverse.random.RandomStreams;
+import org.obverse.testsupport.QuietTest;
+import org.obverse.testsupport.Seeds;
+
+/**
+ * The fast kernels on a bare generator state against the reference paths (common practice, no
+ * source: an optimisation must not change a single decision). The oracle for the exact kernels
+ * is Metropolis as written (Metropolis et al., J. Chem. Phys. 21, 1087 (1953)): u =
+ * nextDouble() of Commons RNG's XO_RO_SHI_RO_128_PP compared with StrictMath.exp(−β ΔE) on
+ * every uphill move ({@link MetropolisKernels#sweepExactExponential}); for the multi-spin
+ * kernels it is the generator-object sweep.
+ */
+class BranchFreeKernelTest extends QuietTest {
+
+    @Test
+    void bareStateDrawsTheWordsOfTheCommonsGenerator() {
+        // The algorithm of Blackman & Vigna, ACM TOMS 47(4) (2021), as Commons RNG implements it.
+        Seeds.forEachCase(200, 9600, (rng, seed) -> {
+            long s = rng.nextLong();
+            long tag = rng.nextInt(8);
+            long index = rng.nextInt(1 << 20);
+            long[] state = RandomStreams.state(s, tag, index);
+            UniformRandomProvider g = RandomStreams.generator(s, tag, index);
+            long[] raw = {rng.nextLong(), rng.nextLong()};
+            UniformRandomProvider h = RandomSource.XO_RO_SHI_RO_128_PP.create(raw.clone());
+            for (int i = 0; i < 500; i++) {
+                assertThat(XoroshiroState.next(state)).as("word %d", i).isEqualTo(g.nextLong());
+                assertThat(XoroshiroState.next(raw)).as("raw word %d", i).isEqualTo(h.nextLong());
+            }
+        });
+    }
+
+    @Test
+    void branchFreeIntegerKernelTakesTheExactDecisions() {
+        Seeds.forEachCase(12, 9700, (rng, seed) -> {
+            IsingProblem p = SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3),
+                    SpinGlasses.Couplings.PLUS_MINUS_ONE, rng);
+            int n = p.size();
+            int[] start = p.adjacencyStarts();
+            int[] neighbour = p.adjacencyVariables();
+            int[] edge = p.adjacencyEdges();
+            int[] perEdge = new int[p.edgeCount()];
+            for (int e = 0; e < perEdge.length; e++) {
+                perEdge[e] = rng.nextInt(7) - 3;
+            }
+            int[] intCoupling = new int[edge.length];
+            double[] coupling = new double[edge.length];
+            for (int q = 0; q < edge.length; q++) {
+                intCoupling[q] = perEdge[edge[q]];
+                coupling[q] = intCoupling[q];
+            }
+            int[] intFields = new int[n];
+            double[] fields = new double[n];
+            for (int k = 0; k < n; k++) {
+                intFields[k] = rng.nextInt(3) == 0 ? rng.nextInt(5) - 2 : 0;
+                fields[k] = intFields[k];
+            }
+            int bound = MetropolisKernels.integerFieldBound(n, start, coupling, fields, 1 << 12);
+            int degree = MetropolisKernels.maxDegree(n, start);
+            int[] padNeighbour = MetropolisKernels.padded(n, start, neighbour, degree, true);
+            int[] padCoupling = MetropolisKernels.padded(n, start, intCoupling, degree, false);
+            byte[] ref = ExponentialBracketTest.randomSpins(n, rng);
+            byte[] rows = ref.clone();
+            byte[] pad = ref.clone();
+            double[] fRef = new double[n];
+            int[] fRows = new int[n];
+            int[] fPad = new int[n];
+            MetropolisKernels.localFields(n, start, neighbour, coupling, fields, ref, fRef);
+            MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, rows, fRows);
+            MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, pad, fPad);
+            long[] raw = {rng.nextLong(), rng.nextLong()};
+            UniformRandomProvider g = RandomSource.XO_RO_SHI_RO_128_PP.create(raw.clone());
+            long[] stRows = raw.clone();
+            long[] stPad = raw.clone();
+            long[] thresholds = new long[bound + 1];
+            for (int sweep = 0; sweep < 300; sweep++) {
+                // beta from 0 (every move taken) to about 8 (almost none uphill).
+                double beta = sweep == 0 ? 0.0 : 0.027 * sweep * rng.nextDouble();
+                MetropolisKernels.integerThresholds(beta, thresholds);
+                MetropolisKernels.sweepExactExponential(n, start, neighbour, coupling, ref, fRef, beta, g);
+                MetropolisKernels.sweepIntegerBranchFree(n, 0, start, neighbour, intCoupling, rows, fRows, thresholds,
+                        stRows);
+                MetropolisKernels.sweepIntegerBranchFree(n, degree, start, padNeighbour, padCoupling, pad, fPad,
+                        thresholds, stPad);
+                assertThat(rows).as("rows, sweep %d", sweep).isEqualTo(ref);
+                assertThat(pad).as("padded, sweep %d", sweep).isEqualTo(ref);
+            }
+            assertThat(fPad).isEqualTo(fRows);
+            // The same number of draws: the states agree with the generator's.
+            long next = g.nextLong();
+            assertThat(XoroshiroState.next(stRows)).isEqualTo(next);
+            assertThat(XoroshiroState.next(stPad)).isEqualTo(next);
+        });
+    }
+
+    @Test
+    void multiSpinSweepsOnBareStatesEqualTheGeneratorSweeps() {
+        Seeds.forEachCase(100, 9950, (rng, seed) -> {
+            IsingProblem p = rng.nextInt(4) == 0
+                    ? SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3), SpinGlasses.Couplings.PLUS_MINUS_ONE, rng)
+                    : MultiSpinFourWordTest.randomPlusMinus(rng);
+            MultiSpinCoding coding = MultiSpinCoding.of(p);
+            int n = p.size();
+            long[][] ref = new long[4][n];
+            long[][] one = new long[4][n];
+            long[][] four = new long[4][n];
+            UniformRandomProvider[] g = new UniformRandomProvider[4];
+            long[][] oneState = new long[4][];
+            long[] fourState = new long[8];
+            for (int w = 0; w < 4; w++) {
+                for (int k = 0; k < n; k++) {
+                    ref[w][k] = rng.nextLong();
+                }
+                one[w] = ref[w].clone();
+                four[w] = ref[w].clone();
+                long[] raw = {rng.nextLong(), rng.nextLong()};
+                g[w] = RandomSource.XO_RO_SHI_RO_128_PP.create(raw.clone());
+                oneState[w] = raw.clone();
+                fourState[2 * w] = raw[0];
+                fourState[2 * w + 1] = raw[1];
+            }
+            long[] thresholds = new long[MultiSpinCoding.thresholdLength()];
+            int sweeps = 1 + rng.nextInt(6);
+            for (int t = 0; t < sweeps; t++) {
+                double beta = rng.nextInt(5) == 0 ? 0.0 : rng.nextDouble() * 3;
+                coding.thresholds(beta, thresholds);
+                for (int w = 0; w < 4; w++) {
+                    coding.sweep(ref[w], thresholds, g[w]);
+                    coding.sweep(one[w], thresholds, oneState[w]);
+                }
+                coding.sweep4(four[0], four[1], four[2], four[3], thresholds, fourState);
+                for (int w = 0; w < 4; w++) {
+                    assertThat(one[w]).as("one word %d after sweep %d", w, t).containsExactly(ref[w]);
+                    assertThat(four[w]).as("four words, word %d after sweep %d", w, t).containsExactly(ref[w]);
+                }
+            }
+            for (int w = 0; w < 4; w++) {
+                long next = g[w].nextLong();
+                assertThat(XoroshiroState.next(oneState[w])).isEqualTo(next);
+                long[] st = {fourState[2 * w], fourState[2 * w + 1]};
+                assertThat(XoroshiroState.next(st)).isEqualTo(next);
+            }
+        });
+    }
+
+    @Test
+    void laneSweepEqualsOneWordSweepsBitForBit() {
+        // Lanes from 1 to 70 (short vector loops and long ones), spins with up to 15 terms (the
+        // one-lane path for more than three uphill levels), fields or none, the cell grid.
+        Seeds.forEachCase(60, 9970, (rng, seed) -> {
+            IsingProblem p = rng.nextInt(3) == 0
+                    ? SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3), SpinGlasses.Couplings.PLUS_MINUS_ONE, rng)
+                    : MultiSpinFourWordTest.randomPlusMinus(rng);
+            MultiSpinCoding coding = MultiSpinCoding.of(p);
+            int n = p.size();
+            int m = rng.nextInt(4) == 0 ? 1 + rng.nextInt(70) : 1 + rng.nextInt(20);
+            long[][] ref = new long[m][n];
+            long[] bits = new long[n * m];
+            UniformRandomProvider[] g = new UniformRandomProvider[m];
+            MultiSpinCoding.Lanes lanes = new MultiSpinCoding.Lanes(m);
+            for (int i = 0; i < m; i++) {
+                for (int k = 0; k < n; k++) {
+                    ref[i][k] = rng.nextLong();
+                    bits[k * m + i] = ref[i][k];
+                }
+                long a = rng.nextLong();
+                long b = rng.nextLong();
+                g[i] = RandomSource.XO_RO_SHI_RO_128_PP.create(new long[] {a, b});
+                lanes.setState(i, a, b);
+            }
+            long[] thresholds = new long[MultiSpinCoding.thresholdLength()];
+            int sweeps = 1 + rng.nextInt(5);
+            for (int t = 0; t < sweeps; t++) {
+                // Large beta too: then almost every uphill read is refused in the first rounds,
+                // and lanes without an uphill read (no draws) occur.
+                double beta = rng.nextInt(5) == 0 ? 0.0 : rng.nextInt(4) == 0 ? 20 * rng.nextDouble() : rng.nextDouble() * 3;
+                coding.thresholds(beta, thresholds);
+                for (int i = 0; i < m; i++) {
+                    coding.sweep(ref[i], thresholds, g[i]);
+                }
+                coding.sweepLanes(bits, thresholds, lanes);
+                for (int i = 0; i < m; i++) {
+                    for (int k = 0; k < n; k++) {
+                        assertThat(bits[k * m + i]).as("lane %d of %d, spin %d, sweep %d", i, m, k, t).isEqualTo(ref[i][k]);
+                    }
+                }
+            }
+            for (int i = 0; i < m; i++) {
+                assertThat(XoroshiroState.next(lanes.state(i))).as("lane %d state", i).isEqualTo(g[i].nextLong());
+            }
+        });
+    }
+}
