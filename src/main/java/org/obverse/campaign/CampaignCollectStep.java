@@ -14,7 +14,6 @@ import org.obverse.embed.ChainBreakRule;
 import org.obverse.embed.ChainDecoder;
 import org.obverse.embed.Chains;
 import org.obverse.embed.DecodedSamples;
-import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.BadInputException;
 import org.obverse.io.codec.CampaignPlan;
 import org.obverse.io.codec.ChainList;
@@ -84,7 +83,15 @@ public final class CampaignCollectStep {
 
     /** Collect a campaign, its jobs collected by the given engine and merged here by job index. */
     public static Result run(Request r, CampaignEngine engine, StepProgress progress) throws IOException {
-        CampaignFolder folder = CampaignFolder.open(r.folder());
+        return run(CampaignFolder.open(r.folder()), engine, FolderStore.local(), progress);
+    }
+
+    /**
+     * Collect a prepared campaign folder whose job files live in the store: its jobs collected
+     * by the engine, merged here by job index, the tables written into the store.
+     */
+    public static Result run(CampaignFolder folder, CampaignEngine engine, FolderStore store, StepProgress progress)
+            throws IOException {
         CampaignPlan plan = folder.plan();
         List<JobTable.Job> jobs = folder.jobs();
         ChainBreakRule.named(plan.decode()); // refuses an unknown rule before any work
@@ -96,9 +103,10 @@ public final class CampaignCollectStep {
         double[] best = new double[jobs.size()];
         int[] work = new int[jobs.size()];
         int total = 0;
+        boolean[] withRaw = store.hasRaw(folder, jobs);
         for (int k = 0; k < jobs.size(); k++) {
             JobTable.Job j = jobs.get(k);
-            present[k] = rawFile(folder, j) != null;
+            present[k] = withRaw[k];
             String mf = j.manifest().isEmpty() ? null : manifestFailures.get(j.manifest());
             if (present[k] && mf != null) {
                 failures[k] = j.id() + ": " + mf;
@@ -145,15 +153,15 @@ public final class CampaignCollectStep {
                 failed.add(0, f);
             }
         }
-        AtomicOutput.writeText(folder.resolve(CampaignFolder.RESULTS), true, List.of(), table.toString());
-        writeGround(folder, bestSeen);
+        store.writeText(folder, CampaignFolder.RESULTS, table.toString());
+        writeGround(folder, store, bestSeen);
         StringBuilder audit = new StringBuilder();
         audit.append(String.format("%d jobs: %d collected, %d without raw samples, %d failed%n", jobs.size(), collected,
                 missing, failed.size()));
         for (String f : failed) {
             audit.append("FAILED ").append(f).append('\n');
         }
-        AtomicOutput.writeText(folder.resolve(CampaignFolder.AUDIT), true, List.of(), audit.toString());
+        store.writeText(folder, CampaignFolder.AUDIT, audit.toString());
         return new Result(folder.resolve(CampaignFolder.RESULTS), jobs.size(), collected, missing, failed, rowCount,
                 readCount);
     }
@@ -349,12 +357,13 @@ public final class CampaignCollectStep {
     }
 
     /** Rewrites ground.csv with the best energy seen filled in where no ground energy was known. */
-    private static void writeGround(CampaignFolder folder, Map<String, Double> bestSeen) throws IOException {
+    private static void writeGround(CampaignFolder folder, FolderStore store, Map<String, Double> bestSeen)
+            throws IOException {
         Path file = folder.resolve(CampaignFolder.GROUND);
         List<GroundTable.Row> rows = new ArrayList<>();
         for (GroundTable.Row r : GroundTable.read(file)) {
             rows.add(r.source().equals("best_seen") ? r.withEnergy(bestSeen.getOrDefault(r.instance(), Double.NaN)) : r);
         }
-        AtomicOutput.writeText(file, true, List.of(), GroundTable.text(rows));
+        store.writeText(folder, CampaignFolder.GROUND, GroundTable.text(rows));
     }
 }

@@ -82,6 +82,19 @@ public final class CampaignFolder {
         return JobTable.read(dir.resolve(JOBS));
     }
 
+    /** A job's raw samples and their energies, relative to the folder, in the order they are written (samples last). */
+    public static List<String> rawFiles(JobTable.Job j) {
+        String raw = j.raw();
+        int dot = raw.lastIndexOf('.');
+        return List.of((dot > raw.lastIndexOf('/') ? raw.substring(0, dot) : raw) + ".energies.npy", raw);
+    }
+
+    /** The files collecting a job writes, relative to the folder. */
+    public static List<String> decodedFiles(JobTable.Job j) {
+        String d = DECODED + "/" + j.id();
+        return List.of(d + ".npy", d + ".kept.npy", d + ".broken.npy");
+    }
+
     /** The chains file of an instance. */
     static String chainsFile(String instance) {
         return "inputs/" + instance + ".chains.json";

@@ -1,7 +1,5 @@
 package org.obverse.campaign;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -33,7 +31,6 @@ import org.obverse.io.codec.GaugeManifest;
 import org.obverse.io.codec.PreparedCodec;
 import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.JobTable;
-import org.obverse.io.json.JsonFiles;
 import org.obverse.io.codec.ProblemCodec;
 import org.obverse.io.codec.ProblemFile;
 import org.obverse.io.codec.ScheduleCodec;
@@ -126,7 +123,7 @@ public final class CampaignPrepareStep {
         String inputsHash = inputsHash(plan);
         List<JobTable.Job> jobs = new ArrayList<>();
         AtomicOutput.writeDirectory(r.out(), r.force(), read, dir -> {
-            ObjectNode own = copyInputs(plan, dir);
+            CampaignPlanCodec.FileNames inputNames = copyInputs(plan, dir);
             for (int k = 0; k < logical.size(); k++) {
                 String name = plan.instances().get(k).name();
                 Chains c = chains.get(k);
@@ -186,7 +183,7 @@ public final class CampaignPrepareStep {
             }
             Files.writeString(dir.resolve(CampaignFolder.GROUND), GroundTable.text(g));
             Files.writeString(dir.resolve(CampaignFolder.JOBS), JobTable.text(jobs));
-            Files.writeString(dir.resolve(CampaignFolder.PLAN), JsonFiles.text(own));
+            Files.writeString(dir.resolve(CampaignFolder.PLAN), CampaignPlanCodec.relocatedText(plan, inputNames));
             Files.writeString(dir.resolve(CampaignFolder.PREPARED), PreparedCodec.text(inputsHash, jobs.size()));
             Files.createDirectories(dir.resolve(CampaignFolder.RAW));
         });
@@ -310,43 +307,40 @@ public final class CampaignPrepareStep {
     }
 
     /** Copies every named input into inputs/ and returns the plan with its paths pointing there. */
-    private static ObjectNode copyInputs(CampaignPlan plan, Path dir) throws IOException {
+    /** Copies every input into {@code inputs/}; returns their names there, relative to the folder. */
+    private static CampaignPlanCodec.FileNames copyInputs(CampaignPlan plan, Path dir) throws IOException {
         Path inputs = Files.createDirectories(dir.resolve("inputs"));
-        ObjectNode own = JsonFiles.read(plan.file(), CampaignPlanCodec.KIND);
-        ArrayNode instances = (ArrayNode) own.get("instances");
-        for (int k = 0; k < plan.instances().size(); k++) {
-            CampaignPlan.Instance i = plan.instances().get(k);
+        List<String> problems = new ArrayList<>();
+        for (CampaignPlan.Instance i : plan.instances()) {
             String name = i.name() + extension(i.problem());
             Files.copy(i.problem(), inputs.resolve(name));
-            ((ObjectNode) instances.get(k)).put("problem", "inputs/" + name);
+            problems.add("inputs/" + name);
         }
         Files.copy(plan.device(), inputs.resolve("device.json"));
-        own.put("device", "inputs/device.json");
+        String chains = null;
         if (plan.chains() != null) {
             Files.copy(plan.chains(), inputs.resolve("chains.json"));
-            own.put("chains", "inputs/chains.json");
+            chains = "inputs/chains.json";
         }
-        if (own.get("schedules").isArray()) {
-            ArrayNode list = (ArrayNode) own.get("schedules");
-            for (int k = 0; k < plan.schedules().size(); k++) {
-                CampaignPlan.Schedule s = plan.schedules().get(k);
+        List<String> schedules = new ArrayList<>();
+        for (CampaignPlan.Schedule s : plan.schedules()) {
+            if (s.file() != null) {
                 String name = "schedule-" + s.name() + ".json";
                 Files.copy(s.file(), inputs.resolve(name));
-                ((ObjectNode) list.get(k)).put("file", "inputs/" + name);
+                schedules.add("inputs/" + name);
             }
         }
-        if (own.get("sampler") != null && own.get("sampler").isObject()) {
-            ObjectNode s = (ObjectNode) own.get("sampler");
-            if (plan.sampler().errors() != null) {
-                Files.copy(plan.sampler().errors(), inputs.resolve("errors.json"));
-                s.put("errors", "inputs/errors.json");
-            }
-            if (plan.sampler().energyScales() != null) {
-                Files.copy(plan.sampler().energyScales(), inputs.resolve("energy-scales.csv"));
-                s.put("energy_scales", "inputs/energy-scales.csv");
-            }
+        String errors = null;
+        if (plan.sampler().errors() != null) {
+            Files.copy(plan.sampler().errors(), inputs.resolve("errors.json"));
+            errors = "inputs/errors.json";
         }
-        return own;
+        String scales = null;
+        if (plan.sampler().energyScales() != null) {
+            Files.copy(plan.sampler().energyScales(), inputs.resolve("energy-scales.csv"));
+            scales = "inputs/energy-scales.csv";
+        }
+        return new CampaignPlanCodec.FileNames(problems, "inputs/device.json", chains, schedules, errors, scales);
     }
 
     private static String extension(Path file) {

@@ -1,7 +1,6 @@
 package org.obverse.campaign;
 
 import java.io.IOException;
-import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -93,21 +92,31 @@ public final class CampaignRunStep {
                         r.threads()), progress);
             }
         }
-        CampaignFolder folder = CampaignFolder.open(dir);
+        return runPrepared(CampaignFolder.open(dir), prepared, engine, FolderStore.local(), r.threads(), progress);
+    }
+
+    /**
+     * Run a prepared campaign folder: sample every job the store does not have yet with the
+     * engine, then collect. The folder is read here (plan, jobs, problems); the store says which
+     * jobs are done and takes the tables.
+     *
+     * @param prepared the prepare step's result where the caller prepared the folder just now, else null
+     */
+    public static Result runPrepared(CampaignFolder folder, CampaignPrepareStep.Result prepared, CampaignEngine engine,
+                                     FolderStore store, int threads, StepProgress progress) throws IOException {
         CampaignPlan plan = folder.plan();
         List<JobTable.Job> jobs = folder.jobs();
         if (plan.sampler().external()) {
             throw BadInputException.at(folder.resolve(CampaignFolder.PLAN), "sampler", "is external: the raw samples "
                     + "come from a device", "place each job's raw file as jobs.csv names it, then run 'obverse campaign "
-                    + "collect " + dir + "'");
+                    + "collect " + store.describe(folder, "") + "'");
         }
-        removeStaleParts(folder.resolve(CampaignFolder.RAW));
+        store.removeStaleParts(folder);
         List<JobTable.Job> todo = new ArrayList<>();
-        // Each problem file is read once to learn its qubits, however many jobs share it.
-        Map<String, VariableIndex> variables = new HashMap<>();
-        for (JobTable.Job j : jobs) {
-            if (!done(folder, j, variables)) {
-                todo.add(j);
+        boolean[] done = store.sampled(folder, jobs);
+        for (int k = 0; k < done.length; k++) {
+            if (!done[k]) {
+                todo.add(jobs.get(k));
             }
         }
         baseSettings(plan); // reads the sampler's files (errors, energy scales) before any work: a bad one stops here
@@ -119,9 +128,8 @@ public final class CampaignRunStep {
         if (!todo.isEmpty()) {
             engine.sample(folder, todo, tick);
         }
-        CampaignCollectStep.Result collected = CampaignCollectStep.run(
-                new CampaignCollectStep.Request(dir, r.threads()), engine, progress);
-        return new Result(dir, prepared, todo.size(), jobs.size() - todo.size(), collected);
+        CampaignCollectStep.Result collected = CampaignCollectStep.run(folder, engine, store, progress);
+        return new Result(folder.dir(), prepared, todo.size(), jobs.size() - todo.size(), collected);
     }
 
     /** Whether a job's raw file is present with one row per read and one column per qubit. */
@@ -209,18 +217,6 @@ public final class CampaignRunStep {
             return ScheduleCodec.readTable(file);
         } catch (IOException e) {
             throw new java.io.UncheckedIOException(e);
-        }
-    }
-
-    /** Temporary files of writes that a killed run left behind in the raw folder. */
-    private static void removeStaleParts(Path raw) throws IOException {
-        if (!Files.isDirectory(raw)) {
-            return;
-        }
-        try (DirectoryStream<Path> s = Files.newDirectoryStream(raw, ".*.part")) {
-            for (Path p : s) {
-                Files.deleteIfExists(p);
-            }
         }
     }
 }

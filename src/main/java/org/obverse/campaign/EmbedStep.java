@@ -1,6 +1,5 @@
 package org.obverse.campaign;
 
-import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
@@ -151,7 +150,8 @@ public final class EmbedStep {
         } else {
             writeChains = r.chainsOut() != null ? r.chainsOut() : siblingChains(r.out());
             AtomicOutput.checkTarget(writeChains, r.force(), read);
-            FoundChains fc = findChains(q, g, deviceJson, r.device(), r.logical(), r.search());
+            FoundChains fc = findChains(q, g, DeviceCodec.lattice(r.device(), deviceJson), r.device(), r.logical(),
+                    r.search());
             c = fc.chains();
             found = fc.found();
         }
@@ -204,22 +204,19 @@ public final class EmbedStep {
     /**
      * Finds chains for a logical problem on a working graph.
      *
-     * @param deviceJson  the device file's JSON (the clique finder reads {@code meta.lattice})
+     * @param lattice     the cell lattice the device file records, or null (the clique finder needs it)
      * @param deviceFile  the device file, named in refusals
      * @param logicalFile the logical problem's file, named in refusals
      * @throws BadInputException where no embedding is found
      */
-    public static FoundChains findChains(IsingProblem q, QubitGraph g, ObjectNode deviceJson, Path deviceFile,
+    public static FoundChains findChains(IsingProblem q, QubitGraph g, CellLattice lattice, Path deviceFile,
                                          Path logicalFile, Search s) {
         long start = System.nanoTime();
         if (s.finder() == Finder.CLIQUE) {
-            JsonNode shape = deviceJson.path("meta").path("lattice");
-            if (!shape.path("rows").isInt() || !shape.path("cols").isInt() || !shape.path("shore").isInt()) {
+            if (lattice == null) {
                 throw BadInputException.at(deviceFile, "\"meta\".\"lattice\"", "is missing",
                         "--finder clique needs a device made by 'obverse device lattice'; use --finder reroute");
             }
-            CellLattice lattice = CellLattice.of(shape.get("rows").asInt(), shape.get("cols").asInt(),
-                    shape.get("shore").asInt());
             try {
                 Chains c = CliqueEmbedding.avoidingDefects(lattice, g, q.variables());
                 return new FoundChains(c, new Found(s, (System.nanoTime() - start) / 1e9, lattice,

@@ -7,11 +7,9 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
-import com.fasterxml.jackson.databind.JsonNode;
 import org.obverse.device.CellLattice;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.codec.DeviceCodec;
-import org.obverse.io.json.JsonFiles;
 import org.obverse.io.BadInputException;
 import org.obverse.io.table.MagnetisationTable;
 import org.obverse.io.table.ScoreFiles;
@@ -112,7 +110,7 @@ public final class ReportStep {
             figures.add(ReportPlots.comparison(scored.summary(), k));
         }
         if (bias != null) {
-            CellLattice lattice = r.device() == null ? null : lattice(r.device());
+            CellLattice lattice = r.device() == null ? null : DeviceCodec.lattice(r.device());
             figures.add(lattice == null ? ReportPlots.biasMap(bias, qubits) : ReportPlots.biasGrid(bias, qubits, lattice));
         }
         if (couplerBias != null) {
@@ -166,15 +164,6 @@ public final class ReportStep {
             }
         }
         return out;
-    }
-
-    /** The cell lattice a device file records under meta.lattice (written by 'device lattice'), or null. */
-    private static CellLattice lattice(Path device) {
-        JsonNode shape = JsonFiles.read(device, DeviceCodec.KIND).path("meta").path("lattice");
-        if (!shape.path("rows").isInt() || !shape.path("cols").isInt() || !shape.path("shore").isInt()) {
-            return null;
-        }
-        return CellLattice.of(shape.get("rows").asInt(), shape.get("cols").asInt(), shape.get("shore").asInt());
     }
 
     /** For each setting, its values of the named columns (comma separated), as "name = value, …". */

@@ -11,6 +11,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.Set;
 import org.obverse.io.BadInputException;
+import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.ResultsTable;
 import org.obverse.io.table.ScoreFiles;
 import org.obverse.stats.Campaign;
@@ -122,8 +123,8 @@ public final class ScoreStep {
             throw BadInputException.at(folderGround.get(1), "", "is one of several campaign ground-energy files",
                     "name the ground energies to use with --ground");
         }
-        Map<String, Double> g = groundFile == null ? null : ResultsTable.readGround(groundFile);
-        ResultsTable.Loaded loaded = ResultsTable.read(files, g, groundFile, rule);
+        GroundTable.Energies g = groundFile == null ? null : GroundTable.readEnergies(groundFile);
+        ResultsTable.Loaded loaded = ResultsTable.read(files, g, rule);
         Campaign c = loaded.campaign();
         Path where = files.get(0);
         Set<String> requested = new LinkedHashSet<>(r.sweep());

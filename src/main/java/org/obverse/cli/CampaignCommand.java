@@ -66,6 +66,11 @@ public final class CampaignCommand implements Runnable {
 
         @Override
         public Integer call() throws Exception {
+            if (isUri(out.toString())) {
+                throw new org.obverse.io.BadInputException("--out " + out + ": prepare writes a folder on this machine; "
+                        + "prepare it here and copy it (hdfs dfs -put DIR URI), or let 'obverse campaign run PLAN --out "
+                        + "URI --engine spark' prepare and upload it");
+            }
             CampaignPrepareStep.Result r = CampaignPrepareStep.run(new CampaignPrepareStep.Request(plan, out, force,
                     work.threads()), progress(spec, work.quiet));
             PrintWriter w = spec.commandLine().getOut();
@@ -85,11 +90,14 @@ public final class CampaignCommand implements Runnable {
         @Spec
         CommandSpec spec;
 
-        @Parameters(index = "0", paramLabel = "PLAN|DIR", description = "a plan file, or a prepared campaign folder")
-        Path source;
+        @Parameters(index = "0", paramLabel = "PLAN|DIR",
+                description = "a plan file, or a prepared campaign folder (a local path, or with --engine spark a Hadoop "
+                        + "URI: hdfs://, s3a:// …)")
+        String source;
 
-        @Option(names = "--out", paramLabel = "DIR", description = "the campaign folder (with a plan)")
-        Path out;
+        @Option(names = "--out", paramLabel = "DIR",
+                description = "the campaign folder (with a plan): a local path, or with --engine spark a Hadoop URI")
+        String out;
 
         @Option(names = "--force", description = "prepare the folder anew even where it exists (its samples are lost)")
         boolean force;
@@ -104,16 +112,35 @@ public final class CampaignCommand implements Runnable {
         public Integer call() throws Exception {
             long start = System.nanoTime();
             CampaignRunStep.Result r;
-            try (CampaignEngine e = engine.open(work.threads())) {
-                r = CampaignRunStep.run(new CampaignRunStep.Request(source, out, force, work.threads()), e,
-                        progress(spec, work.quiet));
+            String remote = isUri(source) ? source : isUri(out) ? out : null;
+            if (remote != null) {
+                engine.requireSpark(remote);
+                if (isUri(source) && out != null) {
+                    throw new org.obverse.io.BadInputException(source + ": is a campaign folder, so --out has no "
+                            + "meaning; run 'obverse campaign run " + source + "' alone, or give a plan file with --out");
+                }
+                Path plan = isUri(source) ? null : Path.of(source);
+                if (plan != null && java.nio.file.Files.isDirectory(plan)) {
+                    throw new org.obverse.io.BadInputException(source + ": is a campaign folder here; copy it whole to "
+                            + out + " (hdfs dfs -put " + source + " " + out + "), then run 'obverse campaign run " + out
+                            + " --engine spark'");
+                }
+                try (CampaignEngine e = engine.open(work.threads())) {
+                    r = SparkStart.run(plan, remote, force, work.threads(), e, progress(spec, work.quiet));
+                }
+            } else {
+                try (CampaignEngine e = engine.open(work.threads())) {
+                    r = CampaignRunStep.run(new CampaignRunStep.Request(Path.of(source), out == null ? null
+                            : Path.of(out), force, work.threads()), e, progress(spec, work.quiet));
+                }
             }
             PrintWriter w = spec.commandLine().getOut();
             if (r.prepared() != null) {
                 r.prepared().notes().forEach(w::println);
             }
             w.printf("sampled %d jobs (%d already had raw samples)%n", r.sampled(), r.skipped());
-            int code = Collect.print(w, r.collect());
+            int code = Collect.print(w, r.collect(), remote == null ? r.collect().results().toString()
+                    : Collect.inside(remote, "results.csv"));
             w.printf(java.util.Locale.ROOT, "done in %.1f s%n", (System.nanoTime() - start) / 1e9);
             return code;
         }
@@ -131,8 +158,9 @@ public final class CampaignCommand implements Runnable {
         @Spec
         CommandSpec spec;
 
-        @Parameters(index = "0", paramLabel = "DIR", description = "a prepared campaign folder")
-        Path dir;
+        @Parameters(index = "0", paramLabel = "DIR",
+                description = "a prepared campaign folder: a local path, or with --engine spark a Hadoop URI")
+        String dir;
 
         @Mixin
         WorkOptions work;
@@ -143,16 +171,27 @@ public final class CampaignCommand implements Runnable {
         @Override
         public Integer call() throws Exception {
             CampaignCollectStep.Result r;
+            if (isUri(dir)) {
+                engine.requireSpark(dir);
+                try (CampaignEngine e = engine.open(work.threads())) {
+                    r = SparkStart.collect(dir, e, progress(spec, work.quiet));
+                }
+                return print(spec.commandLine().getOut(), r, inside(dir, "results.csv"));
+            }
             try (CampaignEngine e = engine.open(work.threads())) {
-                r = CampaignCollectStep.run(new CampaignCollectStep.Request(dir, work.threads()), e,
+                r = CampaignCollectStep.run(new CampaignCollectStep.Request(Path.of(dir), work.threads()), e,
                         progress(spec, work.quiet));
             }
-            return print(spec.commandLine().getOut(), r);
+            return print(spec.commandLine().getOut(), r, r.results().toString());
         }
 
-        static int print(PrintWriter w, CampaignCollectStep.Result r) {
+        static String inside(String uri, String name) {
+            return (uri.endsWith("/") ? uri : uri + "/") + name;
+        }
+
+        static int print(PrintWriter w, CampaignCollectStep.Result r, String results) {
             w.printf("collected %d of %d jobs (%d without raw samples): %d reads in %d rows of %s%n", r.collected(),
-                    r.jobs(), r.missing(), r.reads(), r.rows(), r.results());
+                    r.jobs(), r.missing(), r.reads(), r.rows(), results);
             if (r.allPassed()) {
                 w.println("audit: every check holds (energies unchanged bit for bit under every un-gauge)");
                 return Main.DONE;
@@ -220,6 +259,14 @@ public final class CampaignCommand implements Runnable {
             }
         }
 
+        /** A folder on a Hadoop file system is for the Spark engine only. */
+        void requireSpark(String uri) {
+            if (!"spark".equals(name)) {
+                throw new org.obverse.io.BadInputException(uri + ": a campaign folder on a Hadoop file system (hdfs://, "
+                        + "s3a:// …) is run by the Spark engine; give --engine spark, or a local folder");
+            }
+        }
+
         static boolean sparkPresent() {
             try {
                 Class.forName(SPARK_PROBE, false, CampaignCommand.class.getClassLoader());
@@ -238,5 +285,23 @@ public final class CampaignCommand implements Runnable {
         static CampaignEngine start(String master, int jobsPerTask) {
             return org.obverse.campaign.spark.SparkCampaignEngine.start(master, jobsPerTask);
         }
+
+        static CampaignRunStep.Result run(Path plan, String uri, boolean force, int threads, CampaignEngine engine,
+                                          StepProgress progress) throws java.io.IOException {
+            return org.obverse.campaign.spark.HadoopCampaign.run(plan, uri, force, threads, engine, progress);
+        }
+
+        static CampaignCollectStep.Result collect(String uri, CampaignEngine engine, StepProgress progress)
+                throws java.io.IOException {
+            return org.obverse.campaign.spark.HadoopCampaign.collect(uri, engine, progress);
+        }
+    }
+
+    /**
+     * Whether a folder argument is a URI with a scheme (hdfs://, s3a://, file:/ …) rather than a
+     * local path; two letters at least, so a drive letter stays a path.
+     */
+    static boolean isUri(String folder) {
+        return folder != null && folder.matches("^[A-Za-z][A-Za-z0-9+.-]+:/.*");
     }
 }

@@ -1,7 +1,5 @@
 package org.obverse.cli;
 
-import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.List;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -14,7 +12,6 @@ import org.obverse.device.QubitGraph;
 import org.obverse.device.ValueRange;
 import org.obverse.io.output.AtomicOutput;
 import org.obverse.io.codec.DeviceCodec;
-import org.obverse.io.json.JsonFiles;
 import org.obverse.random.LegacyStreams;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -78,7 +75,12 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
     @Override
     public Integer call() throws Exception {
         AtomicOutput.checkTarget(out, force.on(), List.of());
-        CellLattice lattice = CellLattice.of(rows, cols, shore);
+        CellLattice lattice;
+        try {
+            lattice = CellLattice.of(rows, cols, shore);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--rows, --cols, --shore: " + e.getMessage());
+        }
         int[][] couplers = new int[removeCouplers.length][];
         for (int i = 0; i < couplers.length; i++) {
             String[] ab = removeCouplers[i].split("-");
@@ -92,33 +94,29 @@ public final class DeviceLatticeCommand implements Callable<Integer> {
                         + "' is not a coupler; write it as A-B, e.g. 0-4");
             }
         }
-        QubitGraph g = lattice.graphWithout(removeQubits, couplers);
+        QubitGraph g;
+        try {
+            g = lattice.graphWithout(removeQubits, couplers);
+        } catch (IllegalArgumentException e) {
+            throw new BadInputException("--remove-qubits, --remove-couplers: " + e.getMessage()
+                    + "; list only qubits and couplers of the lattice");
+        }
         long s = seed.orDrawn();
         boolean random = randomQubits > 0 || randomCouplers > 0;
         if (random) {
-            g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers, LegacyStreams.ofSeed(s));
+            try {
+                g = CellLattice.withRandomDefects(g, randomQubits, randomCouplers, LegacyStreams.ofSeed(s));
+            } catch (IllegalArgumentException e) {
+                throw new BadInputException("--random-qubits, --random-couplers: " + e.getMessage());
+            }
         }
         DeviceLimits.Builder b = DeviceLimits.builder(range(field, "--field"), range(coupling, "--coupling")).graph(g);
         if (couplingSum != null) {
             b.couplingSum(range(couplingSum, "--coupling-sum"));
         }
         DeviceLimits d = b.build();
-        ObjectNode root = DeviceCodec.toJson(d);
-        ObjectNode meta = root.putObject("meta");
-        ObjectNode shape = meta.putObject("lattice");
-        shape.put("rows", rows).put("cols", cols).put("shore", shore);
-        shape.put("numbering", "qubit = ((row*cols + col)*2 + side)*shore + k; side 0 vertical, side 1 horizontal");
+        DeviceCodec.write(out, force.on(), d, new DeviceCodec.LatticeMeta(lattice, random ? s : null));
         QubitGraph full = lattice.graph();
-        ArrayNode missing = meta.putArray("removed_qubits");
-        for (int q : full.qubits().toArray()) {
-            if (!g.hasQubit(q)) {
-                missing.add(q);
-            }
-        }
-        if (random) {
-            meta.put("seed", s);
-        }
-        AtomicOutput.writeText(out, force.on(), List.of(), JsonFiles.text(root));
         PrintWriter w = spec.commandLine().getOut();
         w.printf("%s: %d of %d qubits, %d of %d couplers%s%n", lattice, g.qubits().size(), full.qubits().size(),
                 g.couplerCount(), full.couplerCount(), random ? " (random defects, seed " + s + ")" : "");

@@ -107,4 +107,42 @@ class CampaignPrepareStepTest extends QuietTest {
         assertThat(Files.readString(dir.resolve("b").resolve(CampaignFolder.GROUND)))
                 .isEqualTo(Files.readString(dir.resolve("a").resolve(CampaignFolder.GROUND)));
     }
+
+    @Test
+    void theFolderCopyOfThePlanNamesItsInputsAndKeepsEveryOtherByte() throws IOException {
+        Path out = dir.resolve("c");
+        CampaignPrepareStep.run(new CampaignPrepareStep.Request(plan("{\"count\": 1}"), out, false, 1),
+                StepProgress.NONE);
+        // Expected bytes written by hand from the plan above: each input renamed into inputs/ (an instance's
+        // problem by its name), Jackson's default pretty printer (common practice, no source).
+        assertThat(Files.readString(out.resolve(CampaignFolder.PLAN))).isEqualTo("""
+                {
+                  "format" : "obverse.campaign/1",
+                  "instances" : [ {
+                    "name" : "tri",
+                    "problem" : "inputs/tri.json"
+                  }, {
+                    "name" : "given",
+                    "problem" : "inputs/given.json",
+                    "ground_energy" : -7.25
+                  } ],
+                  "device" : "inputs/device.json",
+                  "chain_couplings" : [ -1.0, -1.5 ],
+                  "schedules" : {
+                    "anneal_us" : [ 1 ],
+                    "pause_s" : [ 0.4 ],
+                    "pause_us" : [ 0.5 ],
+                    "baseline" : true
+                  },
+                  "gauges" : {
+                    "count" : 1
+                  },
+                  "reads" : 20,
+                  "seed" : 11
+                }
+                """);
+        assertThat(Files.readString(out.resolve("inputs/given.json"))).isEqualTo(TRIANGLE);
+        assertThat(Files.readString(out.resolve("inputs/device.json")))
+                .isEqualTo(Files.readString(Path.of("examples/device.json")));
+    }
 }

@@ -3,6 +3,7 @@ package org.obverse.cli;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.obverse.device.CellLattice;
@@ -66,6 +67,17 @@ class ChainCommandsTest extends CommandTestSupport {
                 tmp.resolve("x.json").toString());
         assertThat(bad.code()).isEqualTo(2);
         assertThat(bad.err()).contains("'0:4' is not a coupler");
+        // A coupler or qubit the lattice lacks, or a zero size, is bad input (exit 2), not an internal error.
+        for (String[] args : new String[][] {{"--remove-couplers", "0-1"}, {"--remove-qubits", "32"},
+            {"--random-qubits", "33"}}) {
+            Run absent = obverse(Stream.concat(Stream.of("device", "lattice", "--rows", "2", "--cols", "2", "--out",
+                    tmp.resolve("y.json").toString()), Stream.of(args)).toArray(String[]::new));
+            assertThat(absent.code()).as(args[0]).isEqualTo(2);
+            assertThat(absent.err()).as(args[0]).contains(args[0]).doesNotContain("internal error");
+        }
+        Run zero = obverse("device", "lattice", "--rows", "0", "--cols", "2", "--out", tmp.resolve("z.json").toString());
+        assertThat(zero.code()).isEqualTo(2);
+        assertThat(zero.err()).contains("must be >= 1");
         Run again = obverse("device", "lattice", "--rows", "3", "--cols", "3", "--out", d.toString());
         assertThat(again.code()).isEqualTo(2);
         assertThat(again.err()).contains("already exists");

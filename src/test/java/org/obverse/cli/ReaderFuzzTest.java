@@ -18,6 +18,7 @@ import org.obverse.io.codec.ManifestCodec;
 import org.obverse.io.Messages;
 import org.obverse.io.npy.NpyVectors;
 import org.obverse.io.codec.ProblemCodec;
+import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.ResultsTable;
 import org.obverse.io.samples.SampleFiles;
 import org.obverse.io.codec.ScheduleCodec;
@@ -62,8 +63,8 @@ class ReaderFuzzTest extends QuietTest {
         r.put("errors.json", ControlErrorsCodec::read);
         r.put("schedule-pause.json", ScheduleCodec::read);
         r.put("manifest.json", ManifestCodec::read);
-        r.put("results.csv", f -> ResultsTable.read(f, null, null, SuccessRule.DEFAULT));
-        r.put("ground.csv", ResultsTable::readGround);
+        r.put("results.csv", f -> ResultsTable.read(f, null, SuccessRule.DEFAULT));
+        r.put("ground.csv", GroundTable::readEnergies);
         r.put("samples.csv", f -> SampleFiles.readAll(f, six));
         r.put("samples.npy", f -> SampleFiles.readAll(f, null));
         r.put("energies.npy", f -> NpyVectors.readFloat64(f, NpyVectors.ANY_LENGTH));

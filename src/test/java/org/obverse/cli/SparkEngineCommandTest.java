@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.obverse.campaign.spark.TestFileSystems;
 
 /**
  * {@code campaign run|collect --engine spark --master URL} from the command line: the same
@@ -118,5 +119,63 @@ class SparkEngineCommandTest extends CommandTestSupport {
         assertThat(none.code()).isEqualTo(Main.BAD_INPUT);
         assertThat(none.err().strip()).isEqualTo("obverse campaign collect: --jobs-per-task 0: need at least 1");
         assertThat(CampaignCommand.EngineOptions.sparkPresent()).isTrue();
+    }
+
+    @Test
+    void aPlanRunIntoAHadoopFolderIsPreparedHereUploadedAndResumed() throws IOException {
+        Path plan = plan();
+        Path local = dir.resolve("local");
+        Run l = obverse("campaign", "run", plan.toString(), "--out", local.toString(), "--quiet");
+        assertThat(l.code()).as(l.err()).isEqualTo(Main.DONE);
+
+        // An object store of the tests' own (org.obverse.campaign.spark.TestFileSystems), registered through
+        // spark.hadoop.* system properties, which Spark reads into the session's Hadoop configuration.
+        Path remote = dir.resolve("remote");
+        String uri = "testobj://" + remote.toAbsolutePath();
+        System.setProperty("spark.hadoop.fs.testobj.impl", TestFileSystems.ObjectStore.class.getName());
+        System.setProperty("spark.hadoop.obverse.publish.testobj", "direct");
+        try {
+            Run s = obverse("campaign", "run", plan.toString(), "--out", uri, "--quiet", "--engine", "spark",
+                    "--master", "local[2]", "--jobs-per-task", "3");
+            assertThat(s.code()).as(s.err()).isEqualTo(Main.DONE);
+            assertThat(s.out()).contains("sampled 12 jobs (0 already").contains("rows of " + uri + "/results.csv");
+            for (String f : new String[] {"results.csv", "ground.csv", "audit.txt", "jobs.csv", "raw/j00007.npy",
+                "decoded/j00011.npy"}) {
+                assertThat(Files.readAllBytes(remote.resolve(f))).as(f).isEqualTo(Files.readAllBytes(local.resolve(f)));
+            }
+            // The same plan again resumes the folder there: nothing is sampled, the table is rewritten the same.
+            Files.delete(remote.resolve("results.csv"));
+            Run again = obverse("campaign", "run", plan.toString(), "--out", uri, "--quiet", "--engine", "spark",
+                    "--master", "local[2]");
+            assertThat(again.code()).as(again.err()).isEqualTo(Main.DONE);
+            assertThat(again.out()).contains("sampled 0 jobs (12 already had raw samples)");
+            assertThat(Files.readAllBytes(remote.resolve("results.csv"))).isEqualTo(
+                    Files.readAllBytes(local.resolve("results.csv")));
+        } finally {
+            System.clearProperty("spark.hadoop.fs.testobj.impl");
+            System.clearProperty("spark.hadoop.obverse.publish.testobj");
+        }
+    }
+
+    @Test
+    void aHadoopFolderIsRefusedInOneLineWhereItCannotWork() throws IOException {
+        Path plan = plan();
+        String uri = "hdfs://namenode:8020/campaigns/c1";
+        Run prepare = obverse("campaign", "prepare", plan.toString(), "--out", uri);
+        assertThat(prepare.code()).isEqualTo(Main.BAD_INPUT);
+        assertThat(prepare.err().lines()).hasSize(1);
+        assertThat(prepare.err()).contains("prepare writes a folder on this machine").contains("hdfs dfs -put");
+
+        Run local = obverse("campaign", "run", uri);
+        assertThat(local.code()).isEqualTo(Main.BAD_INPUT);
+        assertThat(local.err().strip()).isEqualTo("obverse campaign run: " + uri + ": a campaign folder on a Hadoop "
+                + "file system (hdfs://, s3a:// …) is run by the Spark engine; give --engine spark, or a local folder");
+        Run collect = obverse("campaign", "collect", uri, "--engine", "local");
+        assertThat(collect.code()).isEqualTo(Main.BAD_INPUT);
+
+        Run both = obverse("campaign", "run", uri, "--out", dir.resolve("x").toString(), "--engine", "spark");
+        assertThat(both.code()).isEqualTo(Main.BAD_INPUT);
+        assertThat(both.err()).contains("is a campaign folder, so --out has no meaning");
+        assertThat(dir.resolve("x")).doesNotExist();
     }
 }

@@ -1,7 +1,7 @@
 package org.obverse.io;
 
 import org.obverse.io.npy.NpyReader;
-import org.obverse.io.table.ResultsTable;
+import org.obverse.io.table.GroundTable;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -47,7 +47,7 @@ class MessagesTest extends QuietTest {
         Path t = dir.resolve("ground.csv");
         Files.writeString(t, "instance,ground_energy\n"
                 + "a,\u001b]0;owned\u0007" + "9".repeat(500) + "\n", StandardCharsets.UTF_8);
-        BadInputException e = catchThrowableOfType(() -> ResultsTable.readGround(t), BadInputException.class);
+        BadInputException e = catchThrowableOfType(() -> GroundTable.readEnergies(t), BadInputException.class);
         assertThat(e).isNotNull();
         assertThat(e.getMessage()).contains("ground.csv").contains("line 2").contains("\\x1b]0;owned\\x07")
                 .doesNotContain("\u001b").doesNotContain("9".repeat(60));
@@ -59,7 +59,7 @@ class MessagesTest extends QuietTest {
         Path t = dir.resolve("ground.csv");
         String column = "x".repeat(400_000);
         Files.writeString(t, column + "," + column + "\n");
-        BadInputException e = catchThrowableOfType(() -> ResultsTable.readGround(t), BadInputException.class);
+        BadInputException e = catchThrowableOfType(() -> GroundTable.readEnergies(t), BadInputException.class);
         assertThat(e).isNotNull();
         assertThat(e.getMessage().length()).isLessThanOrEqualTo(Messages.MAX_MESSAGE);
         assertThat(e.getMessage()).contains("ground.csv");

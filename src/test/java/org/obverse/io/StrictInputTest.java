@@ -6,6 +6,7 @@ import org.obverse.io.npy.NpyReader;
 import org.obverse.io.samples.SampleFiles;
 import org.obverse.io.table.CsvReader;
 import org.obverse.io.table.MagnetisationTable;
+import org.obverse.io.table.GroundTable;
 import org.obverse.io.table.ResultsTable;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -91,9 +92,9 @@ class StrictInputTest extends QuietTest {
     @Test
     void everyTableReaderNamesFileAndLine() throws Exception {
         Path ground = withBadByte("ground.csv", "instance,ground_energy\na,-1\nb,-2\n", 3);
-        assertBad(() -> ResultsTable.readGround(ground), "ground.csv", "line 3");
+        assertBad(() -> GroundTable.readEnergies(ground), "ground.csv", "line 3");
         Path results = withBadByte("results.csv", Files.readString(Path.of("examples/results.csv")), 2);
-        assertBad(() -> ResultsTable.read(results, null, null, SuccessRule.DEFAULT), "results.csv", "line 2");
+        assertBad(() -> ResultsTable.read(results, null, SuccessRule.DEFAULT), "results.csv", "line 2");
         Path mag = withBadByte("magnetisation.csv", "qubit,gauge,reads,sum_spin,sign\n0,0,4,2,1\n", 2);
         assertBad(() -> MagnetisationTable.read(mag), "magnetisation.csv", "line 2");
         Path cor = withBadByte("correlations.csv", "qubit_a,qubit_b,gauge,reads,sum_product,sign\n0,1,0,4,2,1\n", 1);
@@ -108,7 +109,7 @@ class StrictInputTest extends QuietTest {
         Path zero = Path.of("/dev/zero");
         assumeTrue(Files.exists(zero));
         assertTimeoutPreemptively(Duration.ofSeconds(5), () -> {
-            assertBad(() -> ResultsTable.readGround(zero), "/dev/zero", "not a regular file");
+            assertBad(() -> GroundTable.readEnergies(zero), "/dev/zero", "not a regular file");
             assertBad(() -> ProblemCodec.read(zero), "/dev/zero", "not a regular file");
             assertBad(() -> NpyReader.open(zero), "/dev/zero", "not a regular file");
             assertBad(() -> SampleFiles.open(Path.of("/dev/zero"), null), "zero", "");
@@ -142,7 +143,7 @@ class StrictInputTest extends QuietTest {
     void anOverlongLineIsRefusedNotRead() throws Exception {
         Path f = dir.resolve("long.csv");
         Files.writeString(f, "instance,ground_energy\na," + "1".repeat(TextInput.MAX_LINE + 10) + "\n");
-        assertBad(() -> ResultsTable.readGround(f), "long.csv", "line 2");
+        assertBad(() -> GroundTable.readEnergies(f), "long.csv", "line 2");
     }
 
     interface Action {

@@ -50,6 +50,70 @@ public final class CampaignPlanCodec {
         return new CampaignPlanCodec(file).parse(root);
     }
 
+    /**
+     * New names for the files a plan names, relative to the folder of a copy of the plan (the
+     * prepare step copies every input into the campaign folder and renames them).
+     *
+     * @param problems     one per instance, in plan order
+     * @param device       the device file's
+     * @param chains       the chains file's, null where the plan names none
+     * @param schedules    one per listed schedule file, in plan order; empty for a grid of schedules
+     * @param errors       the sampler's control-error model's, null where it names none
+     * @param energyScales the sampler's energy-scales table's, null where it names none
+     */
+    public record FileNames(List<String> problems, String device, String chains, List<String> schedules,
+                            String errors, String energyScales) {
+        public FileNames {
+            problems = List.copyOf(problems);
+            schedules = List.copyOf(schedules);
+        }
+    }
+
+    /**
+     * The text of a plan's file with its files renamed: the document as the plan's file holds
+     * it (keys in its order, {@code meta} and every other value kept), only the file names
+     * replaced.
+     *
+     * @throws BadInputException where the plan's file no longer matches the plan read from it
+     */
+    public static String relocatedText(CampaignPlan plan, FileNames names) {
+        ObjectNode root = JsonFiles.read(plan.file(), KIND);
+        CampaignPlanCodec c = new CampaignPlanCodec(plan.file());
+        JsonNode instances = root.get("instances");
+        if (instances == null || !instances.isArray() || instances.size() != names.problems().size()
+                || plan.instances().size() != names.problems().size()) {
+            throw c.bad("instances", "no longer lists " + plan.instances().size() + " instances",
+                    "leave the plan unchanged while a campaign is prepared from it");
+        }
+        for (int k = 0; k < names.problems().size(); k++) {
+            ((ObjectNode) instances.get(k)).put("problem", names.problems().get(k));
+        }
+        root.put("device", names.device());
+        if (names.chains() != null) {
+            root.put("chains", names.chains());
+        }
+        JsonNode schedules = root.get("schedules");
+        if (schedules != null && schedules.isArray()) {
+            if (schedules.size() != names.schedules().size()) {
+                throw c.bad("schedules", "no longer lists " + names.schedules().size() + " schedule files",
+                        "leave the plan unchanged while a campaign is prepared from it");
+            }
+            for (int k = 0; k < names.schedules().size(); k++) {
+                ((ObjectNode) schedules.get(k)).put("file", names.schedules().get(k));
+            }
+        }
+        JsonNode sampler = root.get("sampler");
+        if (sampler != null && sampler.isObject()) {
+            if (names.errors() != null) {
+                ((ObjectNode) sampler).put("errors", names.errors());
+            }
+            if (names.energyScales() != null) {
+                ((ObjectNode) sampler).put("energy_scales", names.energyScales());
+            }
+        }
+        return JsonFiles.text(root);
+    }
+
     private BadInputException bad(String key, String problem, String remedy) {
         return BadInputException.at(file, key, problem, remedy);
     }

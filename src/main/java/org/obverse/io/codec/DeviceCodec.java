@@ -1,5 +1,6 @@
 package org.obverse.io.codec;
 
+import org.obverse.io.BadInputException;
 import org.obverse.io.json.ContentHash;
 import org.obverse.io.json.JsonFields;
 import org.obverse.io.json.JsonFiles;
@@ -11,6 +12,7 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.Map;
 import java.util.TreeMap;
+import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.QubitGraph;
 import org.obverse.device.ValueRange;
@@ -18,12 +20,35 @@ import org.obverse.device.ValueRange;
 /**
  * Reads and writes {@code obverse.device/1}: {@code field} and {@code coupling} ranges,
  * optional {@code coupling_sum}, {@code coupler_ranges} [[i, j, lo, hi], …], and an optional
- * working graph given as {@code qubits} and {@code couplers} (both or neither).
+ * working graph given as {@code qubits} and {@code couplers} (both or neither). A device made
+ * from a cell lattice records the lattice under {@code meta} ({@link LatticeMeta}); the rest of
+ * {@code meta} is free and not read.
  */
 public final class DeviceCodec {
     public static final String KIND = "device";
 
     private DeviceCodec() {
+    }
+
+    /** The text of meta.lattice.numbering: how a qubit id is made from its place in the lattice. */
+    private static final String NUMBERING =
+            "qubit = ((row*cols + col)*2 + side)*shore + k; side 0 vertical, side 1 horizontal";
+
+    /**
+     * What a device made from a cell lattice records under {@code meta}: {@code lattice}
+     * (rows, cols, shore and the numbering of qubits), {@code removed_qubits} (the lattice's
+     * qubits missing from the device's working graph) and, where defects were drawn at random,
+     * {@code seed}.
+     *
+     * @param lattice the lattice the device was made from
+     * @param seed    the seed of the random defects, or null where none were drawn
+     */
+    public record LatticeMeta(CellLattice lattice, Long seed) {
+        public LatticeMeta {
+            if (lattice == null) {
+                throw new IllegalArgumentException("a lattice record needs the lattice");
+            }
+        }
     }
 
     public static DeviceLimits read(Path file) {
@@ -113,12 +138,61 @@ public final class DeviceCodec {
         return root;
     }
 
+    /** The JSON of a device made from a cell lattice, the lattice recorded under {@code meta}. */
+    public static ObjectNode toJson(DeviceLimits d, LatticeMeta meta) {
+        ObjectNode root = toJson(d);
+        ObjectNode m = root.putObject("meta");
+        CellLattice l = meta.lattice();
+        ObjectNode shape = m.putObject("lattice");
+        shape.put("rows", l.rows()).put("cols", l.cols()).put("shore", l.shore());
+        shape.put("numbering", NUMBERING);
+        ArrayNode missing = m.putArray("removed_qubits");
+        for (int q : l.graph().qubits().toArray()) {
+            if (d.graph().map(g -> !g.hasQubit(q)).orElse(false)) {
+                missing.add(q);
+            }
+        }
+        if (meta.seed() != null) {
+            m.put("seed", meta.seed().longValue());
+        }
+        return root;
+    }
+
+    /**
+     * The cell lattice a device file's JSON records under {@code meta.lattice}, or null where
+     * it records none (rows, cols and shore are not all whole numbers).
+     *
+     * @throws BadInputException where the recorded sizes make no lattice
+     */
+    public static CellLattice lattice(Path file, ObjectNode root) {
+        JsonNode shape = root.path("meta").path("lattice");
+        if (!shape.path("rows").isInt() || !shape.path("cols").isInt() || !shape.path("shore").isInt()) {
+            return null;
+        }
+        try {
+            return CellLattice.of(shape.get("rows").asInt(), shape.get("cols").asInt(), shape.get("shore").asInt());
+        } catch (IllegalArgumentException e) {
+            throw BadInputException.at(file, "\"meta\".\"lattice\"", e.getMessage(),
+                    "remake the device from its lattice, or remove \"meta\".\"lattice\"");
+        }
+    }
+
+    /** The cell lattice a device file records, or null where it records none. */
+    public static CellLattice lattice(Path file) {
+        return lattice(file, JsonFiles.read(file, KIND));
+    }
+
     private static void range(ArrayNode a, ValueRange r) {
         a.add(r.lo()).add(r.hi());
     }
 
     public static void write(Path file, boolean force, DeviceLimits d) throws IOException {
         AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(d)));
+    }
+
+    /** Writes a device made from a cell lattice, the lattice recorded under {@code meta}. */
+    public static void write(Path file, boolean force, DeviceLimits d, LatticeMeta meta) throws IOException {
+        AtomicOutput.writeText(file, force, java.util.List.of(), JsonFiles.text(toJson(d, meta)));
     }
 
     public static String contentHash(DeviceLimits d) {

@@ -21,7 +21,7 @@ import org.obverse.stats.SuccessRule;
  *
  * <p>Reading streams the file and sums each (instance, setting, gauge) into a
  * {@link Campaign}, so a table never sits in memory row by row. Ground energies come from a
- * file; without one, an instance's least energy seen over the whole table is used and marked
+ * ground-energy file ({@link GroundTable}); without one, an instance's least energy seen over the whole table is used and marked
  * as such (the file is then read twice).
  *
  * <p>Frames: a row's energies are in the frame of its {@value #FRAME} column (logical where the
@@ -60,59 +60,13 @@ public final class ResultsTable {
     }
 
     /**
-     * Reads a ground-energy file ({@code instance,ground_energy}).
-     *
-     * @throws BadInputException for missing columns, a non-finite value, a repeated instance
-     */
-    public static Map<String, Double> readGround(Path file) throws IOException {
-        Map<String, Double> out = new LinkedHashMap<>();
-        try (CsvReader csv = CsvReader.open(file)) {
-            int[] col = csv.require("a ground-energy file", "instance", "ground_energy");
-            String[] r;
-            while ((r = csv.record()) != null) {
-                String inst = r[col[0]];
-                if (inst.isEmpty()) {
-                    throw csv.error(col[0], inst, "is empty", "name the instance");
-                }
-                double e = number(csv, col[1], r[col[1]]);
-                if (out.put(inst, e) != null) {
-                    throw csv.error(col[0], inst, "appears twice", "give each instance one ground energy");
-                }
-            }
-        }
-        return out;
-    }
-
-    /**
-     * The frames of a ground-energy file's instances, from its optional {@value #FRAME} column
-     * (an instance without one, or a file without the column, is logical).
-     */
-    public static Map<String, EnergyFrame> readGroundFrames(Path file) throws IOException {
-        Map<String, EnergyFrame> out = new HashMap<>();
-        try (CsvReader csv = CsvReader.open(file)) {
-            int[] col = csv.require("a ground-energy file", "instance", "ground_energy");
-            int f = csv.column(FRAME);
-            if (f < 0) {
-                return out;
-            }
-            String[] r;
-            while ((r = csv.record()) != null) {
-                out.put(r[col[0]], frame(csv, f, r[f]));
-            }
-        }
-        return out;
-    }
-
-    /**
-     * Reads a results table into counts. ground may be null (best seen is used then); the
-     * frames of ground energies come from groundFile's {@value #FRAME} column, and ground
-     * energies given without a file are logical.
+     * Reads a results table into counts. ground may be null (best seen is used then); each
+     * ground energy carries its frame ({@link GroundTable}).
      *
      * @throws BadInputException at the first bad row, or naming an instance with no ground energy
      */
-    public static Loaded read(Path file, Map<String, Double> ground, Path groundFile, SuccessRule rule)
-            throws IOException {
-        return read(List.of(file), ground, groundFile, rule);
+    public static Loaded read(Path file, GroundTable.Energies ground, SuccessRule rule) throws IOException {
+        return read(List.of(file), ground, rule);
     }
 
     /**
@@ -122,8 +76,7 @@ public final class ResultsTable {
      *
      * @throws BadInputException at the first bad row, a repeated file or gauge, or an instance with no ground energy
      */
-    public static Loaded read(List<Path> files, Map<String, Double> ground, Path groundFile, SuccessRule rule)
-            throws IOException {
+    public static Loaded read(List<Path> files, GroundTable.Energies ground, SuccessRule rule) throws IOException {
         if (files.isEmpty()) {
             throw new IllegalArgumentException("no results table to read");
         }
@@ -142,8 +95,6 @@ public final class ResultsTable {
             }
         }
         Map<String, Double> best = null;
-        Map<String, EnergyFrame> groundFrames = ground == null || groundFile == null ? Map.of()
-                : readGroundFrames(groundFile);
         Map<String, EnergyFrame> frames = new HashMap<>();
         if (ground == null) {
             best = new HashMap<>();
@@ -154,7 +105,7 @@ public final class ResultsTable {
                     String[] r;
                     while ((r = csv.record()) != null) {
                         Row row = parse(csv, col, r);
-                        checkFrame(csv, frameCol, r, row.instance, frames, null, null);
+                        checkFrame(csv, frameCol, r, row.instance, frames, null);
                         if (!Double.isNaN(row.energy)) {
                             best.merge(row.instance, row.energy, Math::min);
                         }
@@ -193,7 +144,7 @@ public final class ResultsTable {
                 while ((r = csv.record()) != null) {
                     Row row = parse(csv, col, r);
                     if (ground != null) {
-                        checkFrame(csv, frameCol, r, row.instance, frames, groundFrames, groundFile);
+                        checkFrame(csv, frameCol, r, row.instance, frames, ground);
                     }
                     if (files.size() > 1) {
                         Integer first = gaugeFile.putIfAbsent(List.of(row.instance, row.setting, row.gauge), fileIndex);
@@ -208,9 +159,9 @@ public final class ResultsTable {
                     Double g = groundSeen.get(row.instance);
                     if (g == null) {
                         if (ground != null) {
-                            g = ground.get(row.instance);
+                            g = ground.energy(row.instance);
                             if (g == null) {
-                                throw BadInputException.at(groundFile, "", "has no ground energy for instance '"
+                                throw BadInputException.at(ground.file(), "", "has no ground energy for instance '"
                                         + row.instance + "' (" + file + ", line " + csv.line() + ")",
                                         "add a row '" + Messages.excerpt(row.instance) + ",<energy>' or leave out --ground to use the best energy seen");
                             }
@@ -258,17 +209,17 @@ public final class ResultsTable {
     }
 
     /**
-     * Refuses a row whose frame differs from its instance's ground energy's (groundFrames given)
+     * Refuses a row whose frame differs from its instance's ground energy's (ground given)
      * or, without ground energies, from the frame of the instance's earlier rows.
      */
     private static void checkFrame(CsvReader csv, int frameCol, String[] r, String instance,
-            Map<String, EnergyFrame> seen, Map<String, EnergyFrame> groundFrames, Path groundFile) {
+            Map<String, EnergyFrame> seen, GroundTable.Energies ground) {
         EnergyFrame f = frameCol < 0 ? EnergyFrame.LOGICAL : frame(csv, frameCol, r[frameCol]);
-        if (groundFrames != null) {
-            EnergyFrame g = groundFrames.getOrDefault(instance, EnergyFrame.LOGICAL);
+        if (ground != null) {
+            EnergyFrame g = ground.frame(instance);
             if (f != g) {
                 throw BadInputException.at(csv.file(), "line " + csv.line(), "instance '" + instance + "' has "
-                        + f.label() + " energies but its ground energy (" + groundFile + ") is " + g.label(),
+                         + f.label() + " energies but its ground energy (" + ground.file() + ") is " + g.label(),
                         f == EnergyFrame.PHYSICAL
                                 ? "decode the physical samples with their chains (decode --instance) to get logical "
                                         + "energies, or give ground energies in the physical frame (column " + FRAME + ")"

@@ -1,6 +1,7 @@
 package org.obverse.campaign.spark;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.io.IOException;
 import java.nio.file.Files;
@@ -10,6 +11,7 @@ import java.util.Map;
 import java.util.TreeMap;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.util.stream.Stream;
+import org.apache.hadoop.conf.Configuration;
 import org.apache.spark.SparkConf;
 import org.apache.spark.Success$;
 import org.apache.spark.api.java.JavaSparkContext;
@@ -25,6 +27,7 @@ import org.obverse.campaign.CampaignFolder;
 import org.obverse.campaign.CampaignPrepareStep;
 import org.obverse.campaign.CampaignRunStep;
 import org.obverse.campaign.StepProgress;
+import org.obverse.io.BadInputException;
 import org.obverse.testsupport.QuietTest;
 
 /**
@@ -75,7 +78,13 @@ class SparkCampaignEngineTest extends QuietTest {
     @BeforeAll
     static void startSparkAndRunLocally() throws IOException {
         sc = new JavaSparkContext(new SparkConf().setMaster("local[2,2]").setAppName("obverse engine test")
-                .set("spark.ui.enabled", "false").set("spark.driver.host", "127.0.0.1"));
+                .set("spark.ui.enabled", "false").set("spark.driver.host", "127.0.0.1")
+                // Two Hadoop file systems of the tests' own: a folder there is a URI java.nio cannot open.
+                .set("spark.hadoop.fs." + TestFileSystems.AtomicRename.SCHEME + ".impl",
+                        TestFileSystems.AtomicRename.class.getName())
+                .set("spark.hadoop.fs." + TestFileSystems.ObjectStore.SCHEME + ".impl",
+                        TestFileSystems.ObjectStore.class.getName())
+                .set("spark.hadoop." + HadoopFolder.PUBLISH_KEY + TestFileSystems.ObjectStore.SCHEME, "direct"));
         prepared = shared.resolve("prepared");
         CampaignPrepareStep.run(new CampaignPrepareStep.Request(plan(shared), prepared, false, 2), SILENT);
         Path local = copy(prepared, shared.resolve("local"));
@@ -220,5 +229,84 @@ class SparkCampaignEngineTest extends QuietTest {
         twice.sample(folder, folder.jobs(), null);
         CampaignCollectStep.run(new CampaignCollectStep.Request(spark, 2), twice, SILENT);
         assertSameBytes(outputs(spark), expected);
+    }
+
+    /** The folder's URI under one of the test file systems. */
+    private static String uri(String scheme, Path folder) {
+        return scheme + "://" + folder.toAbsolutePath();
+    }
+
+    @Test
+    void aFolderOnAFileSystemWithAtomicRenameGivesTheLocalEnginesBytes() throws IOException {
+        Path folder = copy(prepared, dir.resolve("on-testfs"));
+        String uri = uri(TestFileSystems.AtomicRename.SCHEME, folder);
+        assertThat(Files.exists(Path.of(uri))).isFalse();
+        int renames = TestFileSystems.AtomicRename.RENAMES.get();
+        CampaignRunStep.Result r = HadoopCampaign.run(null, uri, false, 2, SparkCampaignEngine.on(sc, 5), SILENT);
+        assertThat(r.sampled()).isEqualTo(48);
+        assertThat(r.collect().collected()).isEqualTo(48);
+        // outputs() lists raw/ and decoded/ whole: a temporary name left behind would show as a key too.
+        assertSameBytes(outputs(folder), expected);
+        // Each of the 48 × 5 job files and the three tables appeared by one rename (ground.csv, there since
+        // prepare, by the rename that replaces a file).
+        assertThat(TestFileSystems.AtomicRename.RENAMES.get() - renames).isEqualTo(48 * 5 + 3);
+    }
+
+    @Test
+    void anObjectStoreFolderWithTasksThatFailOnceGivesTheLocalEnginesBytesWithoutARename() throws IOException {
+        Path folder = copy(prepared, dir.resolve("on-testobj"));
+        // What a killed run leaves: a stray temporary file, and an energies object whose samples never came.
+        Files.createDirectories(folder.resolve("raw"));
+        Files.write(folder.resolve("raw/.j00005.npy.1234.part"), new byte[] {1, 2, 3});
+        Files.write(folder.resolve("raw/j00006.energies.npy"), expected.get("raw/j00006.energies.npy"));
+        // And a samples file 64 bytes short, whose length does not fit the job's reads: not done, so
+        // sampled again and replaced.
+        byte[] whole = expected.get("raw/j00009.npy");
+        Files.write(folder.resolve("raw/j00009.npy"), java.util.Arrays.copyOf(whole, whole.length - 64));
+        Files.write(folder.resolve("raw/j00009.energies.npy"), expected.get("raw/j00009.energies.npy"));
+        String uri = uri(TestFileSystems.ObjectStore.SCHEME, folder);
+        int renames = TestFileSystems.ObjectStore.RENAMES.get();
+        int creates = TestFileSystems.ObjectStore.CREATES.get();
+
+        sc.setLocalProperty(SparkCampaignEngine.FAIL_FIRST_ATTEMPT, "j00003,j00017,j00047");
+        try (FailedTasks failures = new FailedTasks()) {
+            CampaignRunStep.Result r = HadoopCampaign.run(null, uri, false, 2, SparkCampaignEngine.on(sc, 4), SILENT);
+            assertThat(r.sampled()).isEqualTo(48);
+            assertThat(r.collect().collected()).isEqualTo(48);
+            assertThat(failures.failed.get()).isEqualTo(6);
+        } finally {
+            sc.setLocalProperty(SparkCampaignEngine.FAIL_FIRST_ATTEMPT, null);
+        }
+        assertSameBytes(outputs(folder), expected);
+        assertThat(TestFileSystems.ObjectStore.RENAMES.get() - renames).isZero();
+        // One object per job file and table, and again for each job a failed attempt had done before it
+        // failed (4 jobs a task; j00003 and j00047 end their tasks, j00017 is the second of its task):
+        // 4 + 2 + 4 jobs, 2 raw files each while sampling and 3 decoded files each while collecting.
+        assertThat(TestFileSystems.ObjectStore.CREATES.get() - creates).isEqualTo(48 * 5 + 3 + (4 + 2 + 4) * (2 + 3));
+
+        // Collected again in one task: the same table, whatever the partitioning.
+        CampaignCollectStep.Result c = HadoopCampaign.collect(uri, SparkCampaignEngine.on(sc, 100), SILENT);
+        assertThat(c.collected()).isEqualTo(48);
+        assertSameBytes(outputs(folder), expected);
+    }
+
+    @Test
+    void publishingIsByRenameUnlessTheSchemeIsAnObjectStore() {
+        // The stores' documented semantics: an s3a, gs or wasb object appears whole when its writer closes;
+        // HDFS renames atomically and shows a file while it is written (common practice, no source).
+        Configuration conf = new Configuration(false);
+        for (String s : new String[] {"s3a", "gs", "wasbs", "S3A"}) {
+            assertThat(HadoopFolder.rule(s, conf)).as(s).isEqualTo(HadoopFolder.Publish.DIRECT);
+        }
+        for (String s : new String[] {"hdfs", "file", "viewfs", "abfss", "testfs"}) {
+            assertThat(HadoopFolder.rule(s, conf)).as(s).isEqualTo(HadoopFolder.Publish.RENAME);
+        }
+        conf.set(HadoopFolder.PUBLISH_KEY + "abfss", "direct");
+        conf.set(HadoopFolder.PUBLISH_KEY + "s3a", "rename");
+        assertThat(HadoopFolder.rule("abfss", conf)).isEqualTo(HadoopFolder.Publish.DIRECT);
+        assertThat(HadoopFolder.rule("s3a", conf)).isEqualTo(HadoopFolder.Publish.RENAME);
+        conf.set(HadoopFolder.PUBLISH_KEY + "gs", "atomic");
+        assertThatThrownBy(() -> HadoopFolder.rule("gs", conf)).isInstanceOf(BadInputException.class)
+                .hasMessageContaining("obverse.publish.gs = atomic");
     }
 }

@@ -9,6 +9,7 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.obverse.testsupport.QuietTest;
@@ -85,5 +86,74 @@ class CampaignPlanCodecTest extends QuietTest {
         Path p = plan(text);
         assertThatThrownBy(() -> CampaignPlanCodec.read(p)).isInstanceOf(BadInputException.class)
                 .hasMessageContaining(expected).satisfies(e -> assertThat(e.getMessage()).doesNotContain("\n"));
+    }
+
+    @Test
+    void aRelocatedPlanRenamesOnlyItsFiles() throws IOException {
+        for (String f : List.of("p.json", "dev.json", "ch.json", "s1.json", "s2.json", "err.json", "scales.csv")) {
+            Files.writeString(dir.resolve(f), "x");
+        }
+        Path p = dir.resolve("plan.json");
+        // Keys in an unusual order, meta and a ground energy kept as written.
+        Files.writeString(p, """
+                {"format": "obverse.campaign/1", "seed": 3, "meta": {"note": "kept", "n": [1, 2]},
+                 "instances": [{"problem": "p.json", "name": "a", "ground_energy": -1.5}, {"name": "b", "problem": "p.json"}],
+                 "device": "dev.json", "chains": "ch.json", "chain_couplings": [-2],
+                 "schedules": [{"name": "s1", "file": "s1.json"}, {"file": "s2.json", "name": "s2"}],
+                 "gauges": {"count": 1}, "reads": 5,
+                 "sampler": {"kind": "sqa", "errors": "err.json", "energy_scales": "scales.csv", "temperature": 0.5,
+                             "slices": 8}}
+                """);
+        CampaignPlan plan = CampaignPlanCodec.read(p);
+        String text = CampaignPlanCodec.relocatedText(plan, new CampaignPlanCodec.FileNames(
+                List.of("in/a.json", "in/b.json"), "in/device.json", "in/chains.json", List.of("in/s1", "in/s2"),
+                "in/errors.json", "in/scales.csv"));
+        // Expected bytes written by hand: Jackson's default pretty printer, two-space indent, " : " between key
+        // and value (common practice, no source).
+        assertThat(text).isEqualTo("""
+                {
+                  "format" : "obverse.campaign/1",
+                  "seed" : 3,
+                  "meta" : {
+                    "note" : "kept",
+                    "n" : [ 1, 2 ]
+                  },
+                  "instances" : [ {
+                    "problem" : "in/a.json",
+                    "name" : "a",
+                    "ground_energy" : -1.5
+                  }, {
+                    "name" : "b",
+                    "problem" : "in/b.json"
+                  } ],
+                  "device" : "in/device.json",
+                  "chains" : "in/chains.json",
+                  "chain_couplings" : [ -2 ],
+                  "schedules" : [ {
+                    "name" : "s1",
+                    "file" : "in/s1"
+                  }, {
+                    "file" : "in/s2",
+                    "name" : "s2"
+                  } ],
+                  "gauges" : {
+                    "count" : 1
+                  },
+                  "reads" : 5,
+                  "sampler" : {
+                    "kind" : "sqa",
+                    "errors" : "in/errors.json",
+                    "energy_scales" : "in/scales.csv",
+                    "temperature" : 0.5,
+                    "slices" : 8
+                  }
+                }
+                """);
+        // The plan file changed under the reader: refused, naming the key, not written half-right.
+        Files.writeString(p, Files.readString(p).replace(", {\"name\": \"b\", \"problem\": \"p.json\"}", ""));
+        assertThatThrownBy(() -> CampaignPlanCodec.relocatedText(plan, new CampaignPlanCodec.FileNames(
+                List.of("in/a.json", "in/b.json"), "in/device.json", "in/chains.json", List.of("in/s1", "in/s2"),
+                "in/errors.json", "in/scales.csv"))).isInstanceOf(BadInputException.class)
+                .hasMessageContaining("plan.json: instances: no longer lists 2 instances");
     }
 }

@@ -13,6 +13,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.obverse.device.CellLattice;
 import org.obverse.device.DeviceLimits;
 import org.obverse.device.QubitGraph;
 import org.obverse.device.ValueRange;
@@ -131,5 +132,55 @@ class CodecTest extends QuietTest {
         AtomicOutput.writeDirectory(d, false, List.of(), tmp -> Files.writeString(tmp.resolve("x"), "x"));
         assertThat(java.nio.file.attribute.PosixFilePermissions.toString(Files.getPosixFilePermissions(d)))
                 .isEqualTo("rwxr-xr-x");
+    }
+
+    @Test
+    void aLatticeDeviceRecordsItsShapeUnderMetaAndReadsItBack() throws Exception {
+        // One K_{1,1} cell: qubits 0 (side 0) and 1 (side 1), one coupler; qubit 1 removed.
+        CellLattice l = CellLattice.of(1, 1, 1);
+        DeviceLimits d = DeviceLimits.builder(ValueRange.of(-2, 2), ValueRange.of(-1, 1))
+                .graph(l.graphWithout(new int[] {1}, new int[0][])).build();
+        Path f = dir.resolve("dev.json");
+        DeviceCodec.write(f, false, d, new DeviceCodec.LatticeMeta(l, 9L));
+        // Expected bytes written by hand from spec/chains.md (the device file and meta.lattice)
+        // (common practice, no source).
+        assertThat(Files.readString(f)).isEqualTo("""
+                {
+                  "format" : "obverse.device/1",
+                  "field" : [ -2.0, 2.0 ],
+                  "coupling" : [ -1.0, 1.0 ],
+                  "qubits" : [ 0 ],
+                  "couplers" : [ ],
+                  "meta" : {
+                    "lattice" : {
+                      "rows" : 1,
+                      "cols" : 1,
+                      "shore" : 1,
+                      "numbering" : "qubit = ((row*cols + col)*2 + side)*shore + k; side 0 vertical, side 1 horizontal"
+                    },
+                    "removed_qubits" : [ 1 ],
+                    "seed" : 9
+                  }
+                }
+                """);
+        assertThat(DeviceCodec.read(f).graph().orElseThrow().qubits().toArray()).containsExactly(0);
+        CellLattice back = DeviceCodec.lattice(f);
+        assertThat(List.of(back.rows(), back.cols(), back.shore())).containsExactly(1, 1, 1);
+        Seeds.forEachCase(30, 0x1a77L, (rng, seed) -> {
+            CellLattice m = CellLattice.of(1 + rng.nextInt(4), 1 + rng.nextInt(4), 1 + rng.nextInt(4));
+            Path g = dir.resolve("d" + seed + ".json");
+            DeviceCodec.write(g, false, DeviceLimits.builder(ValueRange.of(-1, 1), ValueRange.of(-1, 1))
+                    .graph(m.graph()).build(), new DeviceCodec.LatticeMeta(m, null));
+            assertThat(Files.readString(g)).contains("\"removed_qubits\" : [ ]").doesNotContain("seed");
+            CellLattice r = DeviceCodec.lattice(g);
+            assertThat(List.of(r.rows(), r.cols(), r.shore())).containsExactly(m.rows(), m.cols(), m.shore());
+        });
+        // Without a record there is no lattice; a record that makes no lattice is refused in one line.
+        assertThat(DeviceCodec.lattice(file("plain.json", "{\"format\": \"obverse.device/1\", \"field\": [-1, 1], "
+                + "\"coupling\": [-1, 1]}"))).isNull();
+        Path bad = file("bad.json", "{\"format\": \"obverse.device/1\", \"field\": [-1, 1], \"coupling\": [-1, 1], "
+                + "\"meta\": {\"lattice\": {\"rows\": 0, \"cols\": 2, \"shore\": 4}}}");
+        assertThatThrownBy(() -> DeviceCodec.lattice(bad)).isInstanceOf(BadInputException.class)
+                .hasMessageContaining("bad.json: \"meta\".\"lattice\": lattice 0 x 2");
     }
 }

@@ -32,7 +32,7 @@ class EnergyFrameTableTest extends QuietTest {
     }
 
     private Campaign read(Path results, Path ground) throws IOException {
-        return ResultsTable.read(results, ground == null ? null : ResultsTable.readGround(ground), ground,
+        return ResultsTable.read(results, ground == null ? null : GroundTable.readEnergies(ground),
                 SuccessRule.DEFAULT).campaign();
     }
 
@@ -41,7 +41,7 @@ class EnergyFrameTableTest extends QuietTest {
         Path g = write("g.csv", "instance,ground_energy\nx,-2\n");
         assertThat(read(write("old.csv", HEAD + "\nx,s,0,-2,3,0,1\n"), g).successes(0)).isEqualTo(3);
         Path withFrame = write("new.csv", HEAD + ",energy_frame,chain_coupling\nx,s,0,-2,3,0,1,logical,-1\n");
-        ResultsTable.Loaded l = ResultsTable.read(withFrame, ResultsTable.readGround(g), g, SuccessRule.DEFAULT);
+        ResultsTable.Loaded l = ResultsTable.read(withFrame, GroundTable.readEnergies(g), SuccessRule.DEFAULT);
         assertThat(l.campaign().successes(0)).isEqualTo(3);
         assertThat(l.extraColumns()).containsExactly("chain_coupling");
     }
@@ -61,7 +61,7 @@ class EnergyFrameTableTest extends QuietTest {
         assertThatThrownBy(() -> read(logicalRows, physicalGround)).isInstanceOf(BadInputException.class)
                 .hasMessageContaining("logical energies").hasMessageContaining("is physical");
         // Ground energies given in memory, without a file, are logical.
-        assertThatThrownBy(() -> ResultsTable.read(results, Map.of("x", -7.2), null, SuccessRule.DEFAULT))
+        assertThatThrownBy(() -> ResultsTable.read(results, GroundTable.Energies.logical(Map.of("x", -7.2)), SuccessRule.DEFAULT))
                 .isInstanceOf(BadInputException.class).hasMessageContaining("physical");
     }
 
