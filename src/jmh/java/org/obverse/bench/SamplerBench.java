@@ -46,7 +46,9 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * as this one: integer local fields, thresholds per β, raw random bits compared as integers
  * (same decisions as {@code exact}), rows padded to a fixed stride;</li>
  * <li>{@code exactIntegerRows}: the same on the compressed rows without padding;</li>
- * <li>{@code multiSpin} (1 and 2 threads): 64 reads a word (64 attempts per spin visit).</li>
+ * <li>{@code multiSpinBareState}, {@code multiSpinFourWordsBareState} (1 and 2 threads),
+ * {@code multiSpinLanes} (1 and 2 threads), {@code multiSpinLanesOne}, {@code multiSpinLanesFour}: the
+ * multi-spin kernels, 64 reads a word (64 attempts per spin visit) on one, four or 64 blocks.</li>
  * </ul>
  * Scores are attempts/ns of wall time (JMH sums the threads). The machine these run on is
  * shared, so each benchmark also counts the attempts and the thread CPU time it used
@@ -157,6 +159,11 @@ public class SamplerBench {
         double[] gaussLocalField;
         long[] laneWords;
         MultiSpinCoding.Lanes lanes;
+        // The lane kernel on one block and on four (the sampler's small cases).
+        long[] laneWords1;
+        MultiSpinCoding.Lanes lanes1;
+        long[] laneWords4;
+        MultiSpinCoding.Lanes lanes4;
         long[] state;
         long[] words4Fast;
         long[][] words4b;
@@ -205,6 +212,17 @@ public class SamplerBench {
             }
             for (int i = 0; i < LANES; i++) {
                 lanes.setState(i, rng.nextLong(), rng.nextLong());
+            }
+            laneWords1 = words.clone();
+            lanes1 = new MultiSpinCoding.Lanes(1);
+            lanes1.setState(0, rng.nextLong(), rng.nextLong());
+            laneWords4 = new long[N * 4];
+            lanes4 = new MultiSpinCoding.Lanes(4);
+            for (int w = 0; w < 4; w++) {
+                for (int k = 0; k < N; k++) {
+                    laneWords4[k * 4 + w] = words4[w][k];
+                }
+                lanes4.setState(w, rng.nextLong(), rng.nextLong());
             }
             state = new long[] {rng.nextLong(), rng.nextLong()};
             words4b = new long[4][];
@@ -373,30 +391,7 @@ public class SamplerBench {
         return exactInteger(p, r, c);
     }
 
-    @Benchmark
-    @OperationsPerInvocation(64 * N)
-    public long multiSpin(Problem p, Replica r, CpuCounters c) {
-        long t0 = c.now();
-        p.coding.sweep(r.words, p.thresholds[r.nextSweep(p.betas.length)], r.rng);
-        c.cpuNanos += c.now() - t0;
-        c.attempts += 64 * N;
-        return r.words[0];
-    }
-
-    /** Four blocks' sweeps together ({@link MultiSpinCoding#sweep4}): 4 × 64 attempts per spin visit. */
-    @Benchmark
-    @OperationsPerInvocation(4 * 64 * N)
-    public long multiSpinFourWords(Problem p, Replica r, CpuCounters c) {
-        long t0 = c.now();
-        long[][] w = r.words4;
-        p.coding.sweep4(w[0], w[1], w[2], w[3], p.thresholds[r.nextSweep(p.betas.length)], r.rng4[0], r.rng4[1],
-                r.rng4[2], r.rng4[3]);
-        c.cpuNanos += c.now() - t0;
-        c.attempts += 4 * 64 * N;
-        return w[0][0];
-    }
-
-    /** One word, the generator's state in local variables ({@link MultiSpinCoding#sweep(long[], long[], long[])}). */
+    /** One word, the generator's state in local variables ({@link MultiSpinCoding#sweep}). */
     @Benchmark
     @OperationsPerInvocation(64 * N)
     public long multiSpinBareState(Problem p, Replica r, CpuCounters c) {
@@ -430,6 +425,28 @@ public class SamplerBench {
         return r.laneWords[0];
     }
 
+    /** The lane kernel on one block: what the sampler runs for a last block of its own. */
+    @Benchmark
+    @OperationsPerInvocation(64 * N)
+    public long multiSpinLanesOne(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        p.coding.sweepLanes(r.laneWords1, p.thresholds[r.nextSweep(p.betas.length)], r.lanes1);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += 64 * N;
+        return r.laneWords1[0];
+    }
+
+    /** The lane kernel on four blocks: what the sampler runs for fewer than 16 blocks a thread. */
+    @Benchmark
+    @OperationsPerInvocation(4 * 64 * N)
+    public long multiSpinLanesFour(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        p.coding.sweepLanes(r.laneWords4, p.thresholds[r.nextSweep(p.betas.length)], r.lanes4);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += 4 * 64 * N;
+        return r.laneWords4[0];
+    }
+
     @Benchmark
     @Threads(2)
     @OperationsPerInvocation(LANES * 64 * N)
@@ -442,13 +459,6 @@ public class SamplerBench {
     @OperationsPerInvocation(4 * 64 * N)
     public long multiSpinFourWordsBareStateTwoThreads(Problem p, Replica r, CpuCounters c) {
         return multiSpinFourWordsBareState(p, r, c);
-    }
-
-    @Benchmark
-    @Threads(2)
-    @OperationsPerInvocation(64 * N)
-    public long multiSpinTwoThreads(Problem p, Replica r, CpuCounters c) {
-        return multiSpin(p, r, c);
     }
 
     /**
@@ -480,9 +490,9 @@ public class SamplerBench {
                 "x baseline");
         for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger", "exactIntegerRows",
                 "exactIntegerTwoThreads", "exactIntegerBranchFree", "exactIntegerBranchFreeTwoThreads",
-                "baselineGaussian", "exactGaussian", "multiSpin", "multiSpinFourWords", "multiSpinTwoThreads",
+                "baselineGaussian", "exactGaussian",
                 "multiSpinBareState", "multiSpinFourWordsBareState", "multiSpinFourWordsBareStateTwoThreads",
-                "multiSpinLanes", "multiSpinLanesTwoThreads"}) {
+                "multiSpinLanes", "multiSpinLanesTwoThreads", "multiSpinLanesOne", "multiSpinLanesFour"}) {
             if (!score.containsKey(k)) {
                 continue;
             }
@@ -493,10 +503,11 @@ public class SamplerBench {
             System.out.printf("%-38s %12.4f %10.2f %16.4f %10.2f%n", k, score.get(k), score.get(k) / b, perCpu.get(k),
                     perCpu.get(k) / bc);
         }
-        if (score.containsKey("multiSpin") && score.containsKey("multiSpinFourWords")) {
-            System.out.printf("multi-spin, four words / one: %.2f%n", score.get("multiSpinFourWords") / score.get("multiSpin"));
+        if (score.containsKey("multiSpinBareState") && score.containsKey("multiSpinFourWordsBareState")) {
+            System.out.printf("multi-spin, four words / one: %.2f%n",
+                    score.get("multiSpinFourWordsBareState") / score.get("multiSpinBareState"));
         }
-        for (String k : new String[] {"exact", "exactInteger", "multiSpin"}) {
+        for (String k : new String[] {"exact", "exactInteger", "multiSpinFourWordsBareState"}) {
             if (score.containsKey(k) && score.containsKey(k + "TwoThreads")) {
                 System.out.printf("wall-clock, two threads / one: %s %.2f%n", k, score.get(k + "TwoThreads") / score.get(k));
             }

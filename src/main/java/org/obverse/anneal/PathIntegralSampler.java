@@ -139,7 +139,7 @@ public final class PathIntegralSampler {
         SampleBlock block = SampleBlock.allDown(reads, problem.size());
         double[] energies = new double[reads];
         Task task = task(problem, block, energies, seed);
-        ReferenceSampler.runBlocks(task, block.blockCount(), settings.threads());
+        BlockWork.run(task, block.blockCount(), settings.threads());
         return new SampledReads(problem.variables(), block, energies, task.fieldWeight.length,
                 settings.schedule().runTimeMicros());
     }
@@ -166,22 +166,10 @@ public final class PathIntegralSampler {
     }
 
     /** All reads of one call: the problem's arrays, the per-sweep weights, the outputs. */
-    private static final class Task implements ReferenceSampler.Task {
-        private final IsingProblem nominal;
-        private final ControlErrors errors;
+    private static final class Task extends ReadByRead<Task.Workspace> {
         private final int slices;
         private final double[] fieldWeight;
         private final double[] chainWeight;
-        private final SampleBlock block;
-        private final double[] energies;
-        private final long seed;
-        private final int n;
-        private final int[] start;
-        private final int[] neighbour;
-        private final int[] edgeOf;
-        private final double[] fields;
-        private final double[] couplings;
-        private final double[] csrCoupling;
         // The integer kernel's data where it runs, else null: integer terms, the field bound,
         // one threshold table per run of equal weights and the table of each sweep.
         private final int[] intCoupling;
@@ -192,26 +180,11 @@ public final class PathIntegralSampler {
 
         Task(IsingProblem nominal, IsingProblem device, ControlErrors errors, int slices, double[] fieldWeight,
              double[] chainWeight, SampleBlock block, double[] energies, long seed, boolean integerAllowed) {
-            this.nominal = nominal;
-            this.errors = errors;
+            super(nominal, device, errors, block, energies, seed);
             this.slices = slices;
             this.fieldWeight = fieldWeight;
             this.chainWeight = chainWeight;
-            this.block = block;
-            this.energies = energies;
-            this.seed = seed;
-            this.n = device.size();
-            this.start = device.adjacencyStarts();
-            this.neighbour = device.adjacencyVariables();
-            this.edgeOf = device.adjacencyEdges();
-            this.fields = device.fields();
-            this.couplings = device.couplings();
-            this.csrCoupling = new double[neighbour.length];
-            for (int q = 0; q < neighbour.length; q++) {
-                csrCoupling[q] = couplings[edgeOf[q]];
-            }
-            int b = !integerAllowed || errors.hasReadNoise() ? -1
-                    : MetropolisKernels.integerFieldBound(n, start, csrCoupling, fields, INTEGER_FIELD_LIMIT);
+            int b = integerAllowed ? integerFieldBound(INTEGER_FIELD_LIMIT) : -1;
             int distinct = 0;
             int[] tableOf = new int[fieldWeight.length];
             for (int m = 0; m < fieldWeight.length; m++) {
@@ -223,14 +196,8 @@ public final class PathIntegralSampler {
             }
             if (b >= 0 && (long) distinct * PathIntegralKernels.thresholdLength(b) <= TABLE_ENTRY_LIMIT) {
                 bound = b;
-                intCoupling = new int[csrCoupling.length];
-                for (int q = 0; q < csrCoupling.length; q++) {
-                    intCoupling[q] = (int) csrCoupling[q];
-                }
-                intFields = new int[n];
-                for (int k = 0; k < n; k++) {
-                    intFields[k] = (int) fields[k];
-                }
+                intCoupling = integerCouplings();
+                intFields = integerFields();
                 tables = new long[distinct][PathIntegralKernels.thresholdLength(b)];
                 for (int m = 0; m < fieldWeight.length; m++) {
                     if (m == 0 || tableOf[m] != tableOf[m - 1]) {
@@ -250,48 +217,30 @@ public final class PathIntegralSampler {
         private static final class Workspace {
             final byte[] spins;
             final byte[] row;
+            final ReadTerms terms;
             final double[] localField;
             final int[] intLocalField;
-            final double[] fields;
-            final double[] couplings;
-            final double[] csr;
 
-            Workspace(int n, int slices, int e, int csr, boolean integer) {
-                spins = new byte[slices * n];
-                row = new byte[n];
-                localField = integer ? null : new double[slices * n];
-                intLocalField = integer ? new int[slices * n] : null;
-                fields = new double[n];
-                couplings = new double[e];
-                this.csr = new double[csr];
+            Workspace(Task task) {
+                boolean integer = task.tables != null;
+                spins = new byte[task.slices * task.n];
+                row = new byte[task.n];
+                terms = new ReadTerms(task);
+                localField = integer ? null : new double[task.slices * task.n];
+                intLocalField = integer ? new int[task.slices * task.n] : null;
             }
         }
 
         @Override
-        public Object workspace() {
-            return new Workspace(n, slices, couplings.length, neighbour.length, tables != null);
+        public Workspace workspace() {
+            return new Workspace(this);
         }
 
         @Override
-        public void block(int b, Object workspace) {
-            Workspace ws = (Workspace) workspace;
-            int first = b << 6;
-            int last = Math.min(block.reads(), first + 64);
-            for (int r = first; r < last; r++) {
-                read(r, ws);
-            }
-        }
-
-        private void read(int r, Workspace ws) {
+        void read(int r, Workspace ws) {
             UniformRandomProvider rng = RandomStreams.generator(seed, StreamPurpose.PATH_INTEGRAL_READS, r);
             byte[] s = ws.spins;
-            int size = s.length;
-            for (int q = 0; q < size; q += 64) {
-                long bits = rng.nextLong();
-                for (int i = q; i < Math.min(size, q + 64); i++) {
-                    s[i] = (byte) ((((bits >>> (i - q)) & 1L) << 1) - 1);
-                }
-            }
+            randomSpins(s, rng);
             if (tables != null) {
                 PathIntegralKernels.localFields(n, slices, start, neighbour, intCoupling, intFields, s, ws.intLocalField);
                 for (int m = 0; m < fieldWeight.length; m++) {
@@ -299,31 +248,16 @@ public final class PathIntegralSampler {
                             tables[tableOfSweep[m]], bound, fieldWeight[m], rng);
                 }
             } else {
-                double[] h = fields;
-                double[] csr = csrCoupling;
-                if (errors.hasReadNoise()) {
-                    System.arraycopy(fields, 0, ws.fields, 0, n);
-                    System.arraycopy(couplings, 0, ws.couplings, 0, couplings.length);
-                    errors.addReadNoise(rng, ws.fields, ws.couplings);
-                    for (int q = 0; q < csr.length; q++) {
-                        ws.csr[q] = ws.couplings[edgeOf[q]];
-                    }
-                    h = ws.fields;
-                    csr = ws.csr;
-                }
-                PathIntegralKernels.localFields(n, slices, start, neighbour, csr, h, s, ws.localField);
+                ReadTerms t = termsOf(rng, ws.terms);
+                PathIntegralKernels.localFields(n, slices, start, neighbour, t.csr, t.fields, s, ws.localField);
                 for (int m = 0; m < fieldWeight.length; m++) {
-                    PathIntegralKernels.sweep(n, slices, start, neighbour, csr, s, ws.localField, fieldWeight[m],
+                    PathIntegralKernels.sweep(n, slices, start, neighbour, t.csr, s, ws.localField, fieldWeight[m],
                             chainWeight[m], rng);
                 }
             }
             int slice = slices == 1 ? 0 : rng.nextInt(slices);
             System.arraycopy(s, slice * n, ws.row, 0, n);
-            // Each block is written by one thread only, so these bit writes never race.
-            for (int k = 0; k < n; k++) {
-                block.setSpin(r, k, ws.row[k]);
-            }
-            energies[r] = nominal.energy(ws.row);
+            finish(r, ws.row);
         }
     }
 }

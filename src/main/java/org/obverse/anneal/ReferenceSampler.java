@@ -1,7 +1,5 @@
 package org.obverse.anneal;
 
-import java.util.concurrent.atomic.AtomicInteger;
-import java.util.concurrent.atomic.AtomicReference;
 import org.apache.commons.rng.UniformRandomProvider;
 import org.obverse.model.BinaryProblem;
 import org.obverse.model.IsingProblem;
@@ -109,7 +107,7 @@ public final class ReferenceSampler {
         SampleBlock block = SampleBlock.allDown(reads, problem.size());
         double[] energies = new double[reads];
         IsingProblem device = settings.errors().applyStatic(problem);
-        Task task;
+        BlockWork.Task task;
         if (settings.kernel() == SamplerSettings.Kernel.MULTI_SPIN) {
             if (!settings.errors().isNone()) {
                 throw new IllegalArgumentException("the multi-spin kernel runs without control errors; "
@@ -120,81 +118,16 @@ public final class ReferenceSampler {
         } else {
             task = new ExactTask(problem, device, settings.errors(), betas, block, energies, seed);
         }
-        runBlocks(task, task.units(block.blockCount()), settings.threads());
+        BlockWork.run(task, task.units(block.blockCount()), settings.threads());
         return new SampledReads(problem.variables(), block, energies, betas.length, settings.schedule().runTimeMicros());
     }
 
-    /** Work on one 64-read block with a thread's own workspace. */
-    interface Task {
-        Object workspace();
-
-        /** Units of work for the blocks: one block a unit unless a task groups them. */
-        default int units(int blocks) {
-            return blocks;
-        }
-
-        void block(int unit, Object workspace);
-    }
-
-    /** Runs every block over at most {@code threads} workers; each block is done by one thread. */
-    static void runBlocks(Task task, int blocks, int threads) {
-        int workers = Math.min(threads, blocks);
-        if (workers <= 1) {
-            Object ws = task.workspace();
-            for (int b = 0; b < blocks; b++) {
-                task.block(b, ws);
-            }
-            return;
-        }
-        AtomicInteger next = new AtomicInteger();
-        AtomicReference<Throwable> failure = new AtomicReference<>();
-        Thread[] pool = new Thread[workers];
-        for (int w = 0; w < workers; w++) {
-            pool[w] = new Thread(() -> {
-                try {
-                    Object ws = task.workspace();
-                    for (int b = next.getAndIncrement(); b < blocks && failure.get() == null; b = next.getAndIncrement()) {
-                        task.block(b, ws);
-                    }
-                } catch (Throwable t) {
-                    failure.compareAndSet(null, t);
-                }
-            }, "obverse-sampler-" + w);
-            pool[w].setDaemon(true);
-            pool[w].start();
-        }
-        for (Thread t : pool) {
-            try {
-                t.join();
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-                throw new IllegalStateException("sampling was interrupted", e);
-            }
-        }
-        Throwable t = failure.get();
-        if (t instanceof RuntimeException) {
-            throw (RuntimeException) t;
-        }
-        if (t instanceof Error) {
-            throw (Error) t;
-        }
-    }
-
     /** The exact kernel: one read at a time. */
-    private static final class ExactTask implements Task {
-        private final IsingProblem nominal;
-        private final ControlErrors errors;
+    private static final class ExactTask extends ReadByRead<ExactTask.Workspace> {
+        /** Largest local field the integer kernel takes (its threshold table has one entry per value). */
+        private static final int INTEGER_FIELD_LIMIT = 1 << 12;
+
         private final double[] betas;
-        private final SampleBlock block;
-        private final double[] energies;
-        private final long seed;
-        private final int n;
-        private final int[] start;
-        private final int[] neighbour;
-        private final int[] edgeOf;
-        private final double[] fields;
-        private final double[] couplings;
-        private final double[] csrCoupling;
         // Where every field and coupling is a small integer and there is no per-read noise:
         // the integer kernel (same decisions, integer arithmetic), else null.
         private final int[] intCoupling;
@@ -208,38 +141,11 @@ public final class ReferenceSampler {
 
         ExactTask(IsingProblem nominal, IsingProblem device, ControlErrors errors, double[] betas, SampleBlock block,
                   double[] energies, long seed) {
-            this.nominal = nominal;
-            this.errors = errors;
+            super(nominal, device, errors, block, energies, seed);
             this.betas = betas;
-            this.block = block;
-            this.energies = energies;
-            this.seed = seed;
-            this.n = device.size();
-            this.start = device.adjacencyStarts();
-            this.neighbour = device.adjacencyVariables();
-            this.edgeOf = device.adjacencyEdges();
-            this.fields = device.fields();
-            this.couplings = device.couplings();
-            this.csrCoupling = new double[neighbour.length];
-            for (int q = 0; q < neighbour.length; q++) {
-                csrCoupling[q] = couplings[edgeOf[q]];
-            }
-            int bound = errors.hasReadNoise() ? -1
-                    : MetropolisKernels.integerFieldBound(n, start, csrCoupling, fields, INTEGER_FIELD_LIMIT);
-            this.fieldBound = bound;
-            if (bound >= 0) {
-                intCoupling = new int[csrCoupling.length];
-                for (int q = 0; q < csrCoupling.length; q++) {
-                    intCoupling[q] = (int) csrCoupling[q];
-                }
-                intFields = new int[n];
-                for (int k = 0; k < n; k++) {
-                    intFields[k] = (int) fields[k];
-                }
-            } else {
-                intCoupling = null;
-                intFields = null;
-            }
+            this.fieldBound = integerFieldBound(INTEGER_FIELD_LIMIT);
+            this.intCoupling = fieldBound >= 0 ? integerCouplings() : null;
+            this.intFields = fieldBound >= 0 ? integerFields() : null;
             int d = MetropolisKernels.maxDegree(n, start);
             if (intCoupling != null && d > 0 && (long) n * d <= 2L * neighbour.length) {
                 degree = d;
@@ -252,75 +158,43 @@ public final class ReferenceSampler {
             }
         }
 
-        /** Largest local field the integer kernel takes (its threshold table has one entry per value). */
-        private static final int INTEGER_FIELD_LIMIT = 1 << 12;
-
         private static final class Workspace {
             final byte[] spins;
             final double[] localField;
-            final double[] fields;
-            final double[] couplings;
-            final double[] csr;
+            final ReadTerms terms;
             final int[] intLocalField;
             final long[] thresholds;
 
-            Workspace(int n, int e, int csr, int fieldBound) {
-                intLocalField = fieldBound >= 0 ? new int[n] : null;
-                thresholds = fieldBound >= 0 ? new long[fieldBound + 1] : null;
-                spins = new byte[n];
-                localField = new double[n];
-                fields = new double[n];
-                couplings = new double[e];
-                this.csr = new double[csr];
+            Workspace(ExactTask task) {
+                intLocalField = task.fieldBound >= 0 ? new int[task.n] : null;
+                thresholds = task.fieldBound >= 0 ? new long[task.fieldBound + 1] : null;
+                spins = new byte[task.n];
+                localField = new double[task.n];
+                terms = new ReadTerms(task);
             }
         }
 
         @Override
-        public Object workspace() {
-            return new Workspace(n, couplings.length, neighbour.length, fieldBound);
+        public Workspace workspace() {
+            return new Workspace(this);
         }
 
         @Override
-        public void block(int b, Object workspace) {
-            Workspace ws = (Workspace) workspace;
-            int first = b << 6;
-            int last = Math.min(block.reads(), first + 64);
-            for (int r = first; r < last; r++) {
-                read(r, ws);
-            }
-        }
-
-        private void read(int r, Workspace ws) {
+        void read(int r, Workspace ws) {
             if (intCoupling != null) {
                 readInteger(r, ws);
                 return;
             }
             UniformRandomProvider rng = RandomStreams.generator(seed, StreamPurpose.READS, r);
             byte[] s = ws.spins;
-            for (int k = 0; k < n; k += 64) {
-                long bits = rng.nextLong();
-                for (int i = k; i < Math.min(n, k + 64); i++) {
-                    s[i] = (byte) ((((bits >>> (i - k)) & 1L) << 1) - 1);
-                }
-            }
+            randomSpins(s, rng);
             // Fields or couplings that are not small integers, or per-read noise: the double
             // kernel. (A branch-free form of it measured slower here: on Gaussian couplings few
             // moves are taken, so the branch is well predicted and skipping the updates pays.)
-            double[] h = fields;
-            double[] csr = csrCoupling;
-            if (errors.hasReadNoise()) {
-                System.arraycopy(fields, 0, ws.fields, 0, n);
-                System.arraycopy(couplings, 0, ws.couplings, 0, couplings.length);
-                errors.addReadNoise(rng, ws.fields, ws.couplings);
-                for (int q = 0; q < csr.length; q++) {
-                    ws.csr[q] = ws.couplings[edgeOf[q]];
-                }
-                h = ws.fields;
-                csr = ws.csr;
-            }
-            MetropolisKernels.localFields(n, start, neighbour, csr, h, s, ws.localField);
+            ReadTerms t = termsOf(rng, ws.terms);
+            MetropolisKernels.localFields(n, start, neighbour, t.csr, t.fields, s, ws.localField);
             for (double beta : betas) {
-                MetropolisKernels.sweep(n, start, neighbour, csr, s, ws.localField, beta, rng);
+                MetropolisKernels.sweep(n, start, neighbour, t.csr, s, ws.localField, beta, rng);
             }
             finish(r, s);
         }
@@ -333,12 +207,7 @@ public final class ReferenceSampler {
         private void readInteger(int r, Workspace ws) {
             long[] state = RandomStreams.state(seed, StreamPurpose.READS, r);
             byte[] s = ws.spins;
-            for (int k = 0; k < n; k += 64) {
-                long bits = XoroshiroState.next(state);
-                for (int i = k; i < Math.min(n, k + 64); i++) {
-                    s[i] = (byte) ((((bits >>> (i - k)) & 1L) << 1) - 1);
-                }
-            }
+            randomSpins(s, state);
             int[] rowNeighbour = degree > 0 ? paddedNeighbour : neighbour;
             int[] rowCoupling = degree > 0 ? paddedCoupling : intCoupling;
             MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, s, ws.intLocalField);
@@ -349,14 +218,6 @@ public final class ReferenceSampler {
             }
             finish(r, s);
         }
-
-        private void finish(int r, byte[] s) {
-            // Each block is written by one thread only, so these bit writes never race.
-            for (int k = 0; k < n; k++) {
-                block.setSpin(r, k, s[k]);
-            }
-            energies[r] = nominal.energy(s);
-        }
     }
 
     /**
@@ -366,7 +227,7 @@ public final class ReferenceSampler {
      * ({@link MultiSpinCoding#sweep4}). Every block draws from its own generator in the same
      * order either way, so the grouping never changes a bit of the output.
      */
-    private static final class MultiSpinTask implements Task {
+    private static final class MultiSpinTask implements BlockWork.Task {
         /** Lanes per unit at most: 4,096 reads. */
         static final int MAX_LANES = 64;
         /** Fewest lanes worth the lane kernel (its loops need this many to use vector instructions). */

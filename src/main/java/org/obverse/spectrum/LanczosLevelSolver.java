@@ -14,9 +14,10 @@ import org.obverse.random.LegacyStreams;
  * locking and deflation.
  *
  * <p>The basis grows from a block of p random vectors (p = 1 by default): H is applied by
- * {@link AnnealOperator#apply} to the next unapplied vector, and the result is orthogonalised
- * against the basis and the locked vectors by classical Gram–Schmidt, repeated where it
- * cancelled by more than 1/√2 (the Daniel–Gragg–Kaufman–Stewart test), its coefficients
+ * {@link AnnealOperator#apply} to the next unapplied vector, the components that T already
+ * gives by symmetry are taken off, and the rest is orthogonalised against the basis and the
+ * locked vectors by classical Gram–Schmidt, repeated where it cancelled by more than 1/√2
+ * (the Daniel–Gragg–Kaufman–Stewart test), its coefficients
  * recorded as a column of the projected matrix T = QᵀHQ. Ritz pairs of T (EJML) carry their
  * exact residual ‖Hy − θy‖, read from the coupling of the applied vectors to the unapplied
  * ones. A Ritz pair is converged when that residual is at most
@@ -61,17 +62,22 @@ public final class LanczosLevelSolver implements LevelSolver {
     private static final double REORTHOGONALISE_BELOW = 0.7071;
     private static final long SEED = 0x5EC7_2A11_0B5E_77E1L;
 
+    /** The fewest basis vectors by default (see {@link #basisVectors}). */
+    public static final int DEFAULT_MINIMUM_BASIS = 16;
+
     private final double tolerance;
     private final int blockSize;
+    private final int minimumBasis;
 
-    private LanczosLevelSolver(double tolerance, int blockSize) {
+    private LanczosLevelSolver(double tolerance, int blockSize, int minimumBasis) {
         this.tolerance = tolerance;
         this.blockSize = blockSize;
+        this.minimumBasis = minimumBasis;
     }
 
     /** The solver with the default tolerance and block size 1. */
     public static LanczosLevelSolver create() {
-        return new LanczosLevelSolver(DEFAULT_TOLERANCE, 1);
+        return new LanczosLevelSolver(DEFAULT_TOLERANCE, 1, DEFAULT_MINIMUM_BASIS);
     }
 
     /**
@@ -85,7 +91,19 @@ public final class LanczosLevelSolver implements LevelSolver {
         if (blockSize < 1 || blockSize > 8) {
             throw new IllegalArgumentException("Lanczos block size " + blockSize + " must lie in 1..8");
         }
-        return new LanczosLevelSolver(tolerance, blockSize);
+        return new LanczosLevelSolver(tolerance, blockSize, DEFAULT_MINIMUM_BASIS);
+    }
+
+    /**
+     * The same solver with at least this many basis vectors (6 to {@link #MAX_BASIS}; the
+     * default is {@link #DEFAULT_MINIMUM_BASIS}). For measuring the trade-off between products
+     * and orthogonalisation; the levels agree to the tolerance whatever the basis.
+     */
+    public LanczosLevelSolver withMinimumBasis(int vectors) {
+        if (vectors < 6 || vectors > MAX_BASIS) {
+            throw new IllegalArgumentException("Lanczos minimum basis " + vectors + " must lie in 6.." + MAX_BASIS);
+        }
+        return new LanczosLevelSolver(tolerance, blockSize, vectors);
     }
 
     @Override
@@ -111,13 +129,16 @@ public final class LanczosLevelSolver implements LevelSolver {
 
     /**
      * Basis vectors for a sector of dimension d, block size p and k wanted levels: a small
-     * basis (2k + 4, at least 12) restarted often is cheaper than a large one, because the
-     * thick restart keeps the progress and full reorthogonalisation costs grow with the basis
-     * (measured: 12 vectors solve 2^17 states about 3 times faster than 40).
+     * basis (2k + 4, at least 16 by default) restarted often is cheaper than a large one,
+     * because the thick restart keeps the progress and full reorthogonalisation costs grow
+     * with the basis (measured: 12 vectors solve 2^17 states about 3 times faster than 40).
+     * Along a 40-point scan of 16 spins, 12 vectors took 10,500 products and 151,000 vector
+     * passes of orthogonalisation, 16 took 8,100 and 117,000, 20 took 7,750 and 131,000 (a
+     * product costs about nine passes).
      */
-    static int basisVectors(long d, int p, int k) {
+    int basisVectors(long d, int p, int k) {
         long byBudget = BASIS_BYTES / (8L * d);
-        long wanted = Math.max(Math.max(12L, 2L * k + 4), 6L * p);
+        long wanted = Math.max(Math.max(minimumBasis, 2L * k + 4), 6L * p);
         long m = Math.max(Math.max(6L * p, k + 2L * p + 2), Math.min(Math.min(MAX_BASIS, wanted), byBudget));
         return (int) Math.min(d, m);
     }
@@ -140,9 +161,10 @@ public final class LanczosLevelSolver implements LevelSolver {
         int k = Math.min(count, op.dimension());
         // A cluster of near-degenerate levels that a block of p vectors cannot span makes the
         // run stall (no lock for many restarts): start again with a block twice as wide.
+        int[] spent = {0};
         for (int p = Math.max(1, Math.min(blockSize, k)); ; p *= 2) {
             boolean last = p >= MAX_BLOCK;
-            Solution solution = solve(op, k, p, last ? MAX_RESTARTS : STALL_RESTARTS, last, start);
+            Solution solution = solve(op, k, p, last ? MAX_RESTARTS : STALL_RESTARTS, last, start, spent);
             if (solution != null) {
                 return solution;
             }
@@ -151,14 +173,16 @@ public final class LanczosLevelSolver implements LevelSolver {
 
     /**
      * Levels ascending and their orthonormal eigenvectors ({@code vectors[i]} belongs to
-     * {@code values[i]}). The arrays are the caller's.
+     * {@code values[i]}), and the number of products H·x the solve took (for measuring). The
+     * arrays are the caller's.
      */
-    public record Solution(double[] values, double[][] vectors) {
+    public record Solution(double[] values, double[][] vectors, int products) {
     }
 
     // The lowest k levels with block size p, or null where no level was locked for stallLimit
     // restarts in a row and the caller may widen the block (when not last).
-    private Solution solve(AnnealOperator op, int k, int p, int stallLimit, boolean last, double[][] start) {
+    private Solution solve(AnnealOperator op, int k, int p, int stallLimit, boolean last, double[][] start,
+                           int[] spent) {
         int dim = op.dimension();
         double scale = Math.max(1.0, op.normBound());
         double tol = tolerance * scale;
@@ -219,6 +243,7 @@ public final class LanczosLevelSolver implements LevelSolver {
                     break;
                 }
                 op.apply(q[done], w);
+                spent[0]++;
                 freshSteps++;
                 double[] column = new double[size];
                 // The large component along q[done] first, then classical Gram–Schmidt against
@@ -227,6 +252,17 @@ public final class LanczosLevelSolver implements LevelSolver {
                 double own = Vectors.dot(q[done], w, dim);
                 Vectors.axpy(-own, q[done], w, dim);
                 column[done] += own;
+                // The components along earlier vectors are known from symmetry, q_j·Hq = q·Hq_j
+                // = T[done][j] (the coupling that made q[done]: the previous vector in a plain
+                // step, the kept Ritz vectors after a restart): taking them off first leaves the
+                // Gram–Schmidt pass only rounding to remove, so its repetition is rarely needed.
+                for (int j = 0; j < done; j++) {
+                    double known = t[done][j];
+                    if (known != 0.0) {
+                        Vectors.axpy(-known, q[j], w, dim);
+                        column[j] += known;
+                    }
+                }
                 double before = Vectors.norm(w, dim);
                 Vectors.projectOut(lockedArr, lockedArr.length, w, dim, null);
                 Vectors.projectOut(q, size, w, dim, column);
@@ -374,7 +410,7 @@ public final class LanczosLevelSolver implements LevelSolver {
             values[i] = lockedValues[order[i]];
             vectors[i] = locked.get(order[i]);
         }
-        return new Solution(values, vectors);
+        return new Solution(values, vectors, spent[0]);
     }
 
     // q[c] ← Σ_j S[j][from + c] q[j] for c < keep, row by row in place (q[keep..done) is left as scratch).

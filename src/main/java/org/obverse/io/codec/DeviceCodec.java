@@ -68,10 +68,7 @@ public final class DeviceCodec {
             b.couplingSum(ValueRange.of(s[0], s[1]));
         }
         if (root.has("coupler_ranges")) {
-            JsonNode cr = f.array(root.get("coupler_ranges"), "\"coupler_ranges\"");
-            for (int k = 0; k < cr.size(); k++) {
-                String place = "coupler_ranges[" + k + "]";
-                JsonNode t = f.tuple(cr.get(k), place, 4, "[i, j, lo, hi]");
+            f.eachTuple(root.get("coupler_ranges"), "coupler_ranges", 4, "[i, j, lo, hi]", (place, t) -> {
                 int i = f.id(t.get(0), place + "[0]");
                 int j = f.id(t.get(1), place + "[1]");
                 double lo = f.number(t.get(2), place + "[2]");
@@ -84,7 +81,7 @@ public final class DeviceCodec {
                 } catch (IllegalArgumentException e) {
                     throw f.bad(place, e.getMessage(), "fix or remove the entry");
                 }
-            }
+            });
         }
         if (root.has("qubits") != root.has("couplers")) {
             throw f.bad(root.has("qubits") ? "\"couplers\"" : "\"qubits\"", "is missing",

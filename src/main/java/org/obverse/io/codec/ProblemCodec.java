@@ -69,25 +69,14 @@ public final class ProblemCodec {
             IsingBuilder b = IsingProblem.builder();
             b.offset(offset);
             if (root.has("h")) {
-                JsonNode h = f.array(root.get("h"), "\"h\"");
-                for (int k = 0; k < h.size(); k++) {
-                    String place = "h[" + k + "]";
-                    JsonNode t = f.tuple(h.get(k), place, 2, "[i, h_i]");
+                f.eachTuple(root.get("h"), "h", 2, "[i, h_i]", (place, t) -> {
                     int id = f.id(t.get(0), place + "[0]");
                     double v = f.number(t.get(1), place + "[1]");
                     term(f, place, () -> b.field(id, v));
-                }
+                });
             }
             if (root.has("J")) {
-                JsonNode j = f.array(root.get("J"), "\"J\"");
-                for (int k = 0; k < j.size(); k++) {
-                    String place = "J[" + k + "]";
-                    JsonNode t = f.tuple(j.get(k), place, 3, "[i, j, J_ij]");
-                    int a = f.id(t.get(0), place + "[0]");
-                    int c = f.id(t.get(1), place + "[1]");
-                    double v = f.number(t.get(2), place + "[2]");
-                    term(f, place, () -> b.coupling(a, c, v));
-                }
+                f.eachTuple(root.get("J"), "J", 3, "[i, j, J_ij]", (place, t) -> pair(f, place, t, b::coupling));
             }
             variables(f, root, b::variable);
             return ProblemFile.of(b.build(), meta);
@@ -99,18 +88,24 @@ public final class ProblemCodec {
         BinaryBuilder b = BinaryProblem.builder();
         b.offset(offset);
         if (root.has("Q")) {
-            JsonNode q = f.array(root.get("Q"), "\"Q\"");
-            for (int k = 0; k < q.size(); k++) {
-                String place = "Q[" + k + "]";
-                JsonNode t = f.tuple(q.get(k), place, 3, "[i, j, Q_ij]");
-                int a = f.id(t.get(0), place + "[0]");
-                int c = f.id(t.get(1), place + "[1]");
-                double v = f.number(t.get(2), place + "[2]");
-                term(f, place, () -> b.term(a, c, v));
-            }
+            f.eachTuple(root.get("Q"), "Q", 3, "[i, j, Q_ij]", (place, t) -> pair(f, place, t, b::term));
         }
         variables(f, root, b::variable);
         return ProblemFile.of(b.build(), meta);
+    }
+
+    /** A term on a pair of variables (or on one, i = j, where the domain allows). */
+    @FunctionalInterface
+    private interface PairTerm {
+        void add(int i, int j, double value);
+    }
+
+    /** The pair term [i, j, v] at place. */
+    private static void pair(JsonFields f, String place, JsonNode t, PairTerm add) {
+        int a = f.id(t.get(0), place + "[0]");
+        int c = f.id(t.get(1), place + "[1]");
+        double v = f.number(t.get(2), place + "[2]");
+        term(f, place, () -> add.add(a, c, v));
     }
 
     private static void term(JsonFields f, String place, Runnable add) {

@@ -78,6 +78,24 @@ public final class JsonFields {
         return node;
     }
 
+    /** What to do with one entry of a list of tuples: its place ({@code key[k]}) and the tuple. */
+    @FunctionalInterface
+    public interface TupleReader {
+        void read(String place, JsonNode tuple);
+    }
+
+    /**
+     * Each entry of {@code list}, the value of {@code key}, checked to be a tuple of size
+     * entries ({@link #tuple}) and handed to reader with its place {@code key[k]}.
+     */
+    public void eachTuple(JsonNode list, String key, int size, String shape, TupleReader reader) {
+        JsonNode a = array(list, "\"" + key + "\"");
+        for (int k = 0; k < a.size(); k++) {
+            String place = key + "[" + k + "]";
+            reader.read(place, tuple(a.get(k), place, size, shape));
+        }
+    }
+
     public double[] range(JsonNode node, String place) {
         JsonNode t = tuple(node, place, 2, "[lo, hi]");
         double lo = number(t.get(0), place + "[0]");
