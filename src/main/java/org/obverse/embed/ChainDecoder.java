@@ -6,6 +6,7 @@ import org.obverse.bits.BitSlicedCounter;
 import org.obverse.model.IsingProblem;
 import org.obverse.model.VariableIndex;
 import org.obverse.random.LegacyStreams;
+import org.obverse.samples.EnergyKernel;
 import org.obverse.samples.SampleBlock;
 
 /**
@@ -51,6 +52,8 @@ public final class ChainDecoder {
     private final int countPlanes;
     private final int brokenPlanes;
     private final double descentMargin;
+    // IsingProblem.energy bit for bit (the bit counters where they give the same bits).
+    private final EnergyKernel energy;
 
     private ChainDecoder(IsingProblem logical, Chains chains, VariableIndex physical, ChainBreakRule rule, long seed) {
         this.logical = logical;
@@ -97,6 +100,7 @@ public final class ChainDecoder {
             bound = Math.max(bound, b);
         }
         descentMargin = 1e-12 * bound;
+        energy = EnergyKernel.exact(logical);
     }
 
     /**
@@ -155,8 +159,17 @@ public final class ChainDecoder {
         }
         range.forEach(t -> {
             Workspace w = new Workspace(n, countPlanes, brokenPlanes);
-            for (int b = t * BLOCKS_PER_TASK; b < Math.min(blocks, (t + 1) * BLOCKS_PER_TASK); b++) {
-                decodeBlock(physical, b, out, broken, anyBroken, energies, w);
+            int from = t * BLOCKS_PER_TASK;
+            int to = Math.min(blocks, (t + 1) * BLOCKS_PER_TASK);
+            for (int b = from; b < to; b++) {
+                decodeBlock(physical, b, out, broken, anyBroken, w);
+            }
+            if (withEnergies) {
+                // The task's decoded blocks, final now (ties settled, descent done).
+                int first = from << 6;
+                SampleBlock mine = SampleBlock.wrap(java.util.Arrays.copyOfRange(out, from * n, to * n),
+                        Math.min(reads, to << 6) - first, n);
+                energy.copy().energies(mine, energies, first);
             }
             perTaskBreaks[t] = w.breaksPerChain;
         });
@@ -223,7 +236,7 @@ public final class ChainDecoder {
         }
     }
 
-    private void decodeBlock(SampleBlock physical, int b, long[] out, int[] broken, long[] anyBroken, double[] energies,
+    private void decodeBlock(SampleBlock physical, int b, long[] out, int[] broken, long[] anyBroken,
                              Workspace w) {
         long[] in = physical.words();
         int base = b * physicalColumns;
@@ -284,9 +297,6 @@ public final class ChainDecoder {
             }
         }
         if (rule == ChainBreakRule.DISCARD) {
-            if (energies.length > 0) {
-                energiesOfBlock(out, outBase, live, energies, first);
-            }
             return;
         }
         if (anyTie != 0L) {
@@ -296,59 +306,6 @@ public final class ChainDecoder {
             for (int r = 0; r < live; r++) {
                 descendRead(out, outBase, r, w.spins, w.localField);
             }
-        }
-        if (energies.length > 0) {
-            energiesOfBlock(out, outBase, live, energies, first);
-        }
-    }
-
-    /**
-     * Energies of the block's live reads, four reads at a time so that their four sums overlap
-     * in the processor. Each read's sum runs in {@link IsingProblem#energy}'s order (fields by
-     * position, couplers by number, then the offset) with the same ±1 products, so every value
-     * equals it bit for bit.
-     */
-    private void energiesOfBlock(long[] out, int outBase, int live, double[] energies, int first) {
-        int n = fields.length;
-        int m = couplings.length;
-        double offset = logical.offset();
-        int r = 0;
-        for (; r + 4 <= live; r += 4) {
-            double s0 = 0.0;
-            double s1 = 0.0;
-            double s2 = 0.0;
-            double s3 = 0.0;
-            for (int k = 0; k < n; k++) {
-                long x = out[outBase + k] >>> r;
-                double h = fields[k];
-                s0 += h * (int) (((x & 1L) << 1) - 1);
-                s1 += h * (int) ((((x >>> 1) & 1L) << 1) - 1);
-                s2 += h * (int) ((((x >>> 2) & 1L) << 1) - 1);
-                s3 += h * (int) ((((x >>> 3) & 1L) << 1) - 1);
-            }
-            for (int e = 0; e < m; e++) {
-                long d = (out[outBase + edgeU[e]] ^ out[outBase + edgeV[e]]) >>> r;
-                double j = couplings[e];
-                s0 += j * (int) (1 - ((d & 1L) << 1));
-                s1 += j * (int) (1 - (((d >>> 1) & 1L) << 1));
-                s2 += j * (int) (1 - (((d >>> 2) & 1L) << 1));
-                s3 += j * (int) (1 - (((d >>> 3) & 1L) << 1));
-            }
-            energies[first + r] = s0 + offset;
-            energies[first + r + 1] = s1 + offset;
-            energies[first + r + 2] = s2 + offset;
-            energies[first + r + 3] = s3 + offset;
-        }
-        for (; r < live; r++) {
-            double s = 0.0;
-            for (int k = 0; k < n; k++) {
-                s += fields[k] * (int) ((((out[outBase + k] >>> r) & 1L) << 1) - 1);
-            }
-            for (int e = 0; e < m; e++) {
-                long d = (out[outBase + edgeU[e]] ^ out[outBase + edgeV[e]]) >>> r;
-                s += couplings[e] * (int) (1 - ((d & 1L) << 1));
-            }
-            energies[first + r] = s + offset;
         }
     }
 

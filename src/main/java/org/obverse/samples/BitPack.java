@@ -226,7 +226,17 @@ final class BitPack {
                 // Byte i = column k0 + i, bit j = read: bit j of every byte, moved to bit 0, is read j's row.
                 int p = row0 + k0;
                 for (int j = 0; j < 8; j++, p += n) {
-                    LONGS.set(out, p, downs ^ (((m >>> j) & ONES) * diff));
+                    // Eight byte stores, not one long through a VarHandle: the quick compiler (C1),
+                    // which short commands run under, calls the VarHandle instead of inlining it.
+                    long v = downs ^ (((m >>> j) & ONES) * diff);
+                    out[p] = (byte) v;
+                    out[p + 1] = (byte) (v >>> 8);
+                    out[p + 2] = (byte) (v >>> 16);
+                    out[p + 3] = (byte) (v >>> 24);
+                    out[p + 4] = (byte) (v >>> 32);
+                    out[p + 5] = (byte) (v >>> 40);
+                    out[p + 6] = (byte) (v >>> 48);
+                    out[p + 7] = (byte) (v >>> 56);
                 }
             }
             for (int k = n8; k < n; k++) {
