@@ -21,6 +21,7 @@ import org.apache.commons.rng.UniformRandomProvider;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.obverse.testsupport.Seeds;
+import org.obverse.testsupport.TrianglePlan;
 
 /**
  * {@code obverse campaign}: the judged properties of a whole campaign, checked from outside the
@@ -34,38 +35,13 @@ class CampaignCommandTest extends CommandTestSupport {
     @TempDir
     Path dir;
 
-    /** A frustrated triangle: on the example device's ring graph it needs a chain. Invented values. */
-    private static final String TRIANGLE = """
-            {"format": "obverse.problem/1", "domain": "spin",
-             "h": [[0, %s], [1, -0.2], [2, 0.1]], "J": [[0, 1, 0.8], [1, 2, -0.6], [0, 2, 0.5]], "offset": 0.1}
-            """;
-
-    private static final String PLAN = """
-            {"format": "obverse.campaign/1",
-             "instances": [{"name": "tri-a", "problem": "tri-a.json"}, {"name": "tri-b", "problem": "tri-b.json"}],
-             "device": "device.json",
-             "chain_couplings": [-1.2, -1.8],
-             "schedules": {"anneal_us": [1], "pause_s": [0.3, 0.6], "pause_us": [0.5], "baseline": true},
-             "gauges": {"count": 3, "design": "random", "ungauged_reference": true},
-             "reads": 40,
-             "decode": "majority",
-             "sampler": {"kind": "sa", "sweeps_per_us": 60, "errors": "errors.json"},
-             "seed": 11}
-            """;
-
     private Path plan(String text) throws IOException {
-        Files.writeString(dir.resolve("tri-a.json"), String.format(TRIANGLE, "0.3"));
-        Files.writeString(dir.resolve("tri-b.json"), String.format(TRIANGLE, "-0.45"));
-        Files.copy(Path.of("examples/device.json"), dir.resolve("device.json"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
-        Files.copy(Path.of("examples/errors.json"), dir.resolve("errors.json"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
-        Path p = dir.resolve("plan.json");
-        Files.writeString(p, text);
-        return p;
+        return TrianglePlan.write(dir, text);
     }
 
     @Test
     void aCampaignRunLeavesOneTableWithEveryReadOfEverySetting() throws IOException {
-        Path plan = plan(PLAN);
+        Path plan = plan(TrianglePlan.PLAN);
         Path out = dir.resolve("c");
         Run r = obverse("campaign", "run", plan.toString(), "--out", out.toString(), "--quiet");
         assertThat(r.code()).as(r.err()).isEqualTo(Main.DONE);
@@ -137,7 +113,7 @@ class CampaignCommandTest extends CommandTestSupport {
 
     @Test
     void theSameBytesOnOneOrTwoThreadsAndAfterAnInterruptedRun() throws IOException {
-        Path plan = plan(PLAN);
+        Path plan = plan(TrianglePlan.PLAN);
         Path one = dir.resolve("one");
         Path two = dir.resolve("two");
         assertThat(obverse("campaign", "run", plan.toString(), "--out", one.toString(), "--threads", "1", "--quiet").code())
@@ -172,7 +148,7 @@ class CampaignCommandTest extends CommandTestSupport {
 
     @Test
     void thePathIntegralSamplerRunsACampaignWithTheSameBytesOnAnyThreadCount() throws IOException {
-        Path plan = plan(PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
+        Path plan = plan(TrianglePlan.PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
                 "{\"kind\": \"sqa\", \"sweeps_per_us\": 40, \"temperature\": 0.1, \"slices\": 8}"));
         Path one = dir.resolve("sqa1");
         Path two = dir.resolve("sqa2");
@@ -183,7 +159,7 @@ class CampaignCommandTest extends CommandTestSupport {
         assertThat(Files.readAllBytes(two.resolve("results.csv"))).isEqualTo(Files.readAllBytes(one.resolve("results.csv")));
         long total = csv(one.resolve("results.csv")).stream().mapToLong(m -> Long.parseLong(m.get("count"))).sum();
         assertThat(total).isEqualTo(2L * 2 * 3 * (3 * 40 + 3 * 40));
-        Path bad = plan(PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
+        Path bad = plan(TrianglePlan.PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
                 "{\"kind\": \"sqa\", \"temperature\": 0, \"slices\": 8}"));
         Run refused = obverse("campaign", "prepare", bad.toString(), "--out", dir.resolve("no").toString());
         assertThat(refused.code()).isEqualTo(Main.BAD_INPUT);
@@ -192,7 +168,7 @@ class CampaignCommandTest extends CommandTestSupport {
 
     @Test
     void rawSamplesFromAnotherProgramAreCollectedAndATamperedJobIsListed() throws IOException {
-        Path plan = plan(PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
+        Path plan = plan(TrianglePlan.PLAN.replace("{\"kind\": \"sa\", \"sweeps_per_us\": 60, \"errors\": \"errors.json\"}",
                 "\"external\""));
         Path out = dir.resolve("ext");
         Run p = obverse("campaign", "prepare", plan.toString(), "--out", out.toString(), "--quiet");
@@ -245,7 +221,7 @@ class CampaignCommandTest extends CommandTestSupport {
             {"\"reads\": 40,", "\"reads\": 40, \"read\": 4,", "read: is not a key of a campaign plan"},
         };
         for (String[] c : cases) {
-            Path plan = plan(PLAN.replace(c[0], c[1]));
+            Path plan = plan(TrianglePlan.PLAN.replace(c[0], c[1]));
             Path out = dir.resolve("bad");
             for (String verb : new String[] {"prepare", "run"}) {
                 Run r = obverse("campaign", verb, plan.toString(), "--out", out.toString(), "--quiet");
@@ -256,10 +232,10 @@ class CampaignCommandTest extends CommandTestSupport {
             }
         }
         // A folder prepared from another plan is not resumed by this one.
-        Path plan = plan(PLAN);
+        Path plan = plan(TrianglePlan.PLAN);
         Path out = dir.resolve("prep");
         assertThat(obverse("campaign", "prepare", plan.toString(), "--out", out.toString(), "--quiet").code()).isEqualTo(0);
-        Path other = plan(PLAN.replace("\"reads\": 40", "\"reads\": 41"));
+        Path other = plan(TrianglePlan.PLAN.replace("\"reads\": 40", "\"reads\": 41"));
         Run r = obverse("campaign", "run", other.toString(), "--out", out.toString(), "--quiet");
         assertThat(r.code()).isEqualTo(Main.BAD_INPUT);
         assertThat(r.err()).contains("was prepared from another plan");

@@ -29,6 +29,7 @@ import org.obverse.campaign.CampaignRunStep;
 import org.obverse.campaign.StepProgress;
 import org.obverse.io.BadInputException;
 import org.obverse.testsupport.QuietTest;
+import org.obverse.testsupport.TrianglePlan;
 
 /**
  * The Spark engine against the local one, on one Spark session in this JVM ({@code local[2,2]}:
@@ -52,26 +53,6 @@ class SparkCampaignEngineTest extends QuietTest {
 
     @TempDir
     Path dir;
-
-    /** A frustrated triangle: on the example device's ring graph it needs a chain. Invented values. */
-    private static final String TRIANGLE = """
-            {"format": "obverse.problem/1", "domain": "spin",
-             "h": [[0, %s], [1, -0.2], [2, 0.1]], "J": [[0, 1, 0.8], [1, 2, -0.6], [0, 2, 0.5]], "offset": 0.1}
-            """;
-
-    /** 2 instances × 2 chain couplings × 3 schedules × (3 gauges + the ungauged reference) = 48 jobs. */
-    private static final String PLAN = """
-            {"format": "obverse.campaign/1",
-             "instances": [{"name": "tri-a", "problem": "tri-a.json"}, {"name": "tri-b", "problem": "tri-b.json"}],
-             "device": "device.json",
-             "chain_couplings": [-1.2, -1.8],
-             "schedules": {"anneal_us": [1], "pause_s": [0.3, 0.6], "pause_us": [0.5], "baseline": true},
-             "gauges": {"count": 3, "design": "random", "ungauged_reference": true},
-             "reads": 40,
-             "decode": "majority",
-             "sampler": {"kind": "sa", "sweeps_per_us": 60, "errors": "errors.json"},
-             "seed": 11}
-            """;
 
     private static final StepProgress SILENT = (phase, total, work) -> null;
 
@@ -105,13 +86,7 @@ class SparkCampaignEngineTest extends QuietTest {
     }
 
     private static Path plan(Path dir) throws IOException {
-        Files.writeString(dir.resolve("tri-a.json"), String.format(TRIANGLE, "0.3"));
-        Files.writeString(dir.resolve("tri-b.json"), String.format(TRIANGLE, "-0.45"));
-        Files.copy(Path.of("examples/device.json"), dir.resolve("device.json"), StandardCopyOption.REPLACE_EXISTING);
-        Files.copy(Path.of("examples/errors.json"), dir.resolve("errors.json"), StandardCopyOption.REPLACE_EXISTING);
-        Path p = dir.resolve("plan.json");
-        Files.writeString(p, PLAN);
-        return p;
+        return TrianglePlan.write(dir, TrianglePlan.PLAN);
     }
 
     /** Runs a fresh copy of the prepared folder. */
