@@ -1,7 +1,5 @@
 package org.obverse.bench;
 
-import java.lang.management.ManagementFactory;
-import java.lang.management.ThreadMXBean;
 import java.util.Collection;
 import java.util.HashMap;
 import java.util.Map;
@@ -15,7 +13,6 @@ import org.obverse.anneal.PathIntegralKernels;
 import org.obverse.anneal.PathIntegralSampler;
 import org.obverse.model.IsingProblem;
 import org.obverse.problems.SpinGlasses;
-import org.openjdk.jmh.annotations.AuxCounters;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Fork;
@@ -154,25 +151,6 @@ public class PathIntegralBench {
             int s = sweep;
             sweep = s + 1 == sweeps ? 0 : s + 1;
             return s;
-        }
-    }
-
-    /** Attempts made and thread CPU time used, summed over an iteration (secondary results). */
-    @State(Scope.Thread)
-    @AuxCounters(AuxCounters.Type.EVENTS)
-    public static class CpuCounters {
-        private static final ThreadMXBean BEAN = ManagementFactory.getThreadMXBean();
-        public long attempts;
-        public long cpuNanos;
-
-        @Setup(Level.Iteration)
-        public void clear() {
-            attempts = 0;
-            cpuNanos = 0;
-        }
-
-        long now() {
-            return BEAN.getCurrentThreadCpuTime();
         }
     }
 

@@ -33,6 +33,22 @@ public final class TestFileSystems {
      * file scheme.
      */
     abstract static class UnderScheme extends RawLocalFileSystem {
+        private final String scheme;
+
+        UnderScheme(String scheme) {
+            this.scheme = scheme;
+        }
+
+        @Override
+        public URI getUri() {
+            return URI.create(scheme + ":///");
+        }
+
+        @Override
+        public String getScheme() {
+            return scheme;
+        }
+
         @Override
         public FileStatus getFileStatus(Path f) throws IOException {
             return plain(super.getFileStatus(f));
@@ -62,14 +78,8 @@ public final class TestFileSystems {
         static final String SCHEME = "testfs";
         static final AtomicInteger RENAMES = new AtomicInteger();
 
-        @Override
-        public URI getUri() {
-            return URI.create(SCHEME + ":///");
-        }
-
-        @Override
-        public String getScheme() {
-            return SCHEME;
+        public AtomicRename() {
+            super(SCHEME);
         }
 
         @Override
@@ -104,14 +114,8 @@ public final class TestFileSystems {
         static final AtomicInteger RENAMES = new AtomicInteger();
         static final AtomicInteger CREATES = new AtomicInteger();
 
-        @Override
-        public URI getUri() {
-            return URI.create(SCHEME + ":///");
-        }
-
-        @Override
-        public String getScheme() {
-            return SCHEME;
+        public ObjectStore() {
+            super(SCHEME);
         }
 
         @Override
