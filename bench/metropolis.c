@@ -3,7 +3,7 @@
  * Metropolis sweep over compressed rows, as a practitioner would write it in C. Built and run
  * only by bench/run_sampler_c.sh (gcc -O3 -march=native), never in CI.
  *
- *   metropolis PROBLEM.txt table|exp SWEEPS
+ *   metropolis PROBLEM.txt table|table2|free|free2|exp|bracket SWEEPS
  *
  * PROBLEM.txt (written by org.obverse.bench.SamplerProblemFile): "n terms sweeps", then n + 1
  * row starts, then per term "neighbour coupling", then one beta per sweep of the anneal (hex
@@ -12,6 +12,13 @@
  * (top 53 bits of a xoroshiro128++ word: Blackman & Vigna, ACM TOMS 47(4), 2021) and is taken
  * when u < exp(-beta dE):
  *   table: dE = 2v for integer v (integer problems): exp(-beta 2v) tabulated once per sweep;
+ *   table2: the table loop on two reads at once, each with its own spins, local fields and
+ *          generator: spin k of the first read, then spin k of the second (the interleaving
+ *          obverse's sampler uses on integer problems; counts the attempts of both);
+ *   free, free2: obverse's own algorithm for integer problems in C, one read and two reads
+ *          interleaved: no branch on the decision, the generator advanced only on an uphill
+ *          move by masks, the draw's top 53 bits compared with ceil(exp(-beta 2v) 2^53), the
+ *          neighbours' fields changed by zero on a refused move;
  *   exp:   exp() from libm on every uphill attempt (any couplings);
  *   bracket: a table of exp(-k/32); u below the bracket's lower end accepts, at or above its
  *          upper end refuses, exp() only in between (any couplings).
@@ -40,6 +47,20 @@ static inline uint64_t next(void) {
 
 static inline double uniform(void) { return (double) (next() >> 11) * 0x1p-53; }
 
+/* The second read's generator (table2). */
+static uint64_t t0 = 0xA4093822299F31D0ULL, t1 = 0x082EFA98EC4E6C89ULL;
+
+static inline uint64_t next2(void) {
+    uint64_t a = t0, b = t1;
+    uint64_t r = rotl(a + b, 17) + a;
+    b ^= a;
+    t0 = rotl(a, 49) ^ b ^ (b << 21);
+    t1 = rotl(b, 28);
+    return r;
+}
+
+static inline double uniform2(void) { return (double) (next2() >> 11) * 0x1p-53; }
+
 static double now(clockid_t c) {
     struct timespec t;
     clock_gettime(c, &t);
@@ -48,12 +69,16 @@ static double now(clockid_t c) {
 
 int main(int argc, char **argv) {
     if (argc != 4) {
-        fprintf(stderr, "usage: metropolis PROBLEM.txt table|exp SWEEPS\n");
+        fprintf(stderr, "usage: metropolis PROBLEM.txt table|table2|free|free2|exp|bracket SWEEPS\n");
         return 2;
     }
     FILE *f = fopen(argv[1], "r");
     if (!f) { perror(argv[1]); return 2; }
     int table = strcmp(argv[2], "table") == 0;
+    int table2 = strcmp(argv[2], "table2") == 0;
+    int free1 = strcmp(argv[2], "free") == 0;
+    int free2 = strcmp(argv[2], "free2") == 0;
+    if (free2) table2 = 0;
     int bracket = strcmp(argv[2], "bracket") == 0;
     double ex[1027];
     for (int k = 0; k <= 1024; k++) ex[k] = exp(-k / 32.0);
@@ -96,6 +121,15 @@ int main(int argc, char **argv) {
         lf[k] = h; ilf[k] = ih;
     }
     double *p = malloc((bound + 1) * sizeof(double));
+    uint64_t *th = malloc((bound + 1) * sizeof(uint64_t));
+    signed char *s2 = malloc(n);
+    int *ilf2 = calloc(n, sizeof(int));
+    for (int k = 0; k < n; k++) s2[k] = (next2() >> 63) ? 1 : -1;
+    for (int k = 0; k < n; k++) {
+        int ih = 0;
+        for (int q = start[k]; q < start[k + 1]; q++) ih += iJ[q] * s2[nbr[q]];
+        ilf2[k] = ih;
+    }
 
     double c0 = now(CLOCK_THREAD_CPUTIME_ID), w0 = now(CLOCK_MONOTONIC);
     for (long t = 0; t < sweeps; t++) {
@@ -108,6 +142,51 @@ int main(int argc, char **argv) {
                 int d = -2 * s[k];
                 s[k] = (signed char) -s[k];
                 for (int q = start[k]; q < start[k + 1]; q++) ilf[nbr[q]] += d * iJ[q];
+            }
+        } else if (free1 || free2) {
+            th[0] = 1ULL << 53;
+            for (int v = 1; v <= bound; v++) th[v] = (uint64_t) ceil(exp(-beta * 2.0 * v) * 0x1p53);
+            uint64_t a0 = s0, a1 = s1, b0 = t0, b1 = t1;
+            for (int k = 0; k < n; k++) {
+                int sa = s[k], va = sa * ilf[k], ua = va >> 31;
+                uint64_t ka = (uint64_t) (int64_t) ua;
+                uint64_t ra = rotl(a0 + a1, 17) + a0, ta = a1 ^ a0;
+                a0 = ((rotl(a0, 49) ^ ta ^ (ta << 21)) & ka) | (a0 & ~ka);
+                a1 = (rotl(ta, 28) & ka) | (a1 & ~ka);
+                int da = -2 * sa & (int) ((int64_t) ((ra >> 11) - th[-va & ua]) >> 63);
+                s[k] = (signed char) (sa + da);
+                if (free2) {
+                    int sb = s2[k], vb = sb * ilf2[k], ub = vb >> 31;
+                    uint64_t kb = (uint64_t) (int64_t) ub;
+                    uint64_t rb = rotl(b0 + b1, 17) + b0, tb = b1 ^ b0;
+                    b0 = ((rotl(b0, 49) ^ tb ^ (tb << 21)) & kb) | (b0 & ~kb);
+                    b1 = (rotl(tb, 28) & kb) | (b1 & ~kb);
+                    int db = -2 * sb & (int) ((int64_t) ((rb >> 11) - th[-vb & ub]) >> 63);
+                    s2[k] = (signed char) (sb + db);
+                    for (int q = start[k]; q < start[k + 1]; q++) {
+                        ilf[nbr[q]] += da * iJ[q];
+                        ilf2[nbr[q]] += db * iJ[q];
+                    }
+                } else {
+                    for (int q = start[k]; q < start[k + 1]; q++) ilf[nbr[q]] += da * iJ[q];
+                }
+            }
+            s0 = a0; s1 = a1; t0 = b0; t1 = b1;
+        } else if (table2) {
+            for (int v = 0; v <= bound; v++) p[v] = exp(-beta * 2.0 * v);
+            for (int k = 0; k < n; k++) {
+                int v = s[k] * ilf[k];
+                if (v >= 0 || uniform() < p[-v]) {
+                    int d = -2 * s[k];
+                    s[k] = (signed char) -s[k];
+                    for (int q = start[k]; q < start[k + 1]; q++) ilf[nbr[q]] += d * iJ[q];
+                }
+                int w = s2[k] * ilf2[k];
+                if (w >= 0 || uniform2() < p[-w]) {
+                    int d = -2 * s2[k];
+                    s2[k] = (signed char) -s2[k];
+                    for (int q = start[k]; q < start[k + 1]; q++) ilf2[nbr[q]] += d * iJ[q];
+                }
             }
         } else if (bracket) {
             for (int k = 0; k < n; k++) {
@@ -134,7 +213,8 @@ int main(int argc, char **argv) {
     double c1 = now(CLOCK_THREAD_CPUTIME_ID), w1 = now(CLOCK_MONOTONIC);
     long sum = 0;
     for (int k = 0; k < n; k++) sum = sum * 31 + s[k];
-    double attempts = (double) sweeps * n;
+    if (table2 || free2) for (int k = 0; k < n; k++) sum = sum * 31 + s2[k];
+    double attempts = (double) sweeps * n * (table2 || free2 ? 2 : 1);
     printf("%s attempts/cpu-ns %.4f attempts/ns %.4f (checksum %ld)\n", argv[2], attempts / (c1 - c0),
            attempts / (w1 - w0), sum);
     return 0;

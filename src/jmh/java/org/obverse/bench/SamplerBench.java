@@ -43,6 +43,12 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * as this one: integer local fields, thresholds per β, raw random bits compared as integers
  * (same decisions as {@code exact}), rows padded to a fixed stride;</li>
  * <li>{@code exactIntegerRows}: the same on the compressed rows without padding;</li>
+ * <li>{@code exactIntegerBranchFree} (1 and 2 threads): the integer kernel without a branch on
+ * the decision, on the generator's bare state; {@code exactIntegerPair} (1 and 2 threads): the
+ * same on two reads swept together, what the sampler runs on integer problems;</li>
+ * <li>{@code baselineGaussian}, {@code exactGaussian}, {@code exactGaussianSigned}: the
+ * baseline, the double kernel with the generator object, and the signed-field kernel on the
+ * bare state that the sampler runs, on the Gaussian glass of the same cells;</li>
  * <li>{@code multiSpinBareState}, {@code multiSpinFourWordsBareState} (1 and 2 threads),
  * {@code multiSpinLanes} (1 and 2 threads), {@code multiSpinLanesOne}, {@code multiSpinLanesFour}: the
  * multi-spin kernels, 64 reads a word (64 attempts per spin visit) on one, four or 64 blocks.</li>
@@ -154,6 +160,14 @@ public class SamplerBench {
         int[] fastLocalField;
         byte[] gaussSpins;
         double[] gaussLocalField;
+        // The second read of the paired integer kernel, and its generator state.
+        byte[] pairSpins;
+        int[] pairLocalField;
+        long[] pairState;
+        // The signed-field double kernel: spins as ±1.0, signed fields, bare state.
+        double[] signedSpin;
+        double[] signedField;
+        long[] signedState;
         long[] laneWords;
         MultiSpinCoding.Lanes lanes;
         // The lane kernel on one block and on four (the sampler's small cases).
@@ -198,10 +212,21 @@ public class SamplerBench {
             scratchThresholds = new long[p.intThresholds[0].length];
             fastSpins = spins.clone();
             fastLocalField = intLocalField.clone();
+            pairSpins = new byte[N];
+            for (int k = 0; k < N; k++) {
+                pairSpins[k] = (byte) (rng.nextBoolean() ? 1 : -1);
+            }
+            pairLocalField = new int[N];
+            MetropolisKernels.localFields(N, p.start, p.neighbour, p.intCoupling, p.intFields, pairSpins, pairLocalField);
+            pairState = new long[] {rng.nextLong(), rng.nextLong()};
             gaussSpins = spins.clone();
             gaussLocalField = new double[N];
             MetropolisKernels.localFields(N, p.start, p.neighbour, p.gaussCoupling, p.gaussFields, gaussSpins,
                     gaussLocalField);
+            signedSpin = new double[N];
+            signedField = gaussLocalField.clone();
+            MetropolisKernels.signedFields(N, gaussSpins, signedSpin, signedField);
+            signedState = new long[] {rng.nextLong(), rng.nextLong()};
             lanes = new MultiSpinCoding.Lanes(LANES);
             laneWords = new long[N * LANES];
             for (int i = 0; i < laneWords.length; i++) {
@@ -302,6 +327,45 @@ public class SamplerBench {
         c.cpuNanos += c.now() - t0;
         c.attempts += SWEEPS * N;
         return r.fastSpins[0];
+    }
+
+    /** What {@code sample} runs on the ±1 glass: two reads swept together, each as {@code exactIntegerBranchFree}. */
+    @Benchmark
+    @OperationsPerInvocation(2 * SWEEPS * N)
+    public byte exactIntegerPair(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.betas[r.nextSweep(p.betas.length)];
+            MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
+            MetropolisKernels.sweepIntegerBranchFreePair(N, p.degree, p.start, p.padNeighbour, p.padCoupling,
+                    r.scratchThresholds, r.fastSpins, r.fastLocalField, r.state, r.pairSpins, r.pairLocalField,
+                    r.pairState);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += 2 * SWEEPS * N;
+        return r.fastSpins[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(2 * SWEEPS * N)
+    public byte exactIntegerPairTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return exactIntegerPair(p, r, c);
+    }
+
+    /** What {@code sample} runs on the Gaussian glass: signed fields, bare state, bracket on raw bits. */
+    @Benchmark
+    @OperationsPerInvocation(SWEEPS * N)
+    public double exactGaussianSigned(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        for (int i = 0; i < SWEEPS; i++) {
+            double beta = p.gaussBetas[r.nextGaussSweep(p.gaussBetas.length)];
+            MetropolisKernels.sweepSigned(N, p.start, p.neighbour, p.gaussCoupling, r.signedSpin, r.signedField, beta,
+                    r.signedState);
+        }
+        c.cpuNanos += c.now() - t0;
+        c.attempts += SWEEPS * N;
+        return r.signedSpin[0];
     }
 
     @Benchmark
@@ -468,7 +532,8 @@ public class SamplerBench {
                 "x baseline");
         for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger", "exactIntegerRows",
                 "exactIntegerTwoThreads", "exactIntegerBranchFree", "exactIntegerBranchFreeTwoThreads",
-                "baselineGaussian", "exactGaussian",
+                "exactIntegerPair", "exactIntegerPairTwoThreads", "baselineGaussian", "exactGaussian",
+                "exactGaussianSigned",
                 "multiSpinBareState", "multiSpinFourWordsBareState", "multiSpinFourWordsBareStateTwoThreads",
                 "multiSpinLanes", "multiSpinLanesTwoThreads", "multiSpinLanesOne", "multiSpinLanesFour"}) {
             if (!score.containsKey(k)) {
@@ -485,7 +550,7 @@ public class SamplerBench {
             System.out.printf("multi-spin, four words / one: %.2f%n",
                     score.get("multiSpinFourWordsBareState") / score.get("multiSpinBareState"));
         }
-        for (String k : new String[] {"exact", "exactInteger", "multiSpinFourWordsBareState"}) {
+        for (String k : new String[] {"exact", "exactInteger", "exactIntegerPair", "multiSpinFourWordsBareState"}) {
             if (score.containsKey(k) && score.containsKey(k + "TwoThreads")) {
                 System.out.printf("wall-clock, two threads / one: %s %.2f%n", k, score.get(k + "TwoThreads") / score.get(k));
             }

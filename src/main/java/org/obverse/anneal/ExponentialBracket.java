@@ -19,12 +19,18 @@ public final class ExponentialBracket {
     private static final int SIZE = (int) (LIMIT * INVERSE_STEP) + 1;
     // TABLE[k] = exp(-k δ) for k <= SIZE; one more entry, 0, closes the overflow bracket.
     private static final double[] TABLE = new double[SIZE + 2];
+    // BITS[k] = ⌈TABLE[k]·2⁵³⌉: for a 53-bit integer m, m·2⁻⁵³ < TABLE[k] exactly when
+    // m < BITS[k] (the scaling by a power of two is exact).
+    private static final long[] BITS = new long[SIZE + 2];
 
     static {
         for (int k = 0; k <= SIZE; k++) {
             TABLE[k] = StrictMath.exp(-k * STEP);
         }
         TABLE[SIZE + 1] = 0.0;
+        for (int k = 0; k < BITS.length; k++) {
+            BITS[k] = (long) Math.ceil(TABLE[k] * 0x1p53);
+        }
     }
 
     private ExponentialBracket() {
@@ -47,5 +53,25 @@ public final class ExponentialBracket {
             return false;
         }
         return u < StrictMath.exp(-x);
+    }
+
+    /**
+     * {@link #accepts} for u = bits·2⁻⁵³ given as its 53-bit integer bits (0 ≤ bits &lt; 2⁵³,
+     * the top 53 bits of a random word, as nextDouble() makes u): the same answer for every
+     * input, with integer compares in place of the conversion to a double.
+     */
+    public static boolean acceptsBits(double x, long bits) {
+        if (x < LIMIT) {
+            int k = (int) (x * INVERSE_STEP);
+            if (bits < BITS[k + 1]) {
+                return true;
+            }
+            if (bits >= BITS[k]) {
+                return false;
+            }
+        } else if (bits >= BITS[SIZE - 1]) {
+            return false;
+        }
+        return bits * 0x1p-53 < StrictMath.exp(-x);
     }
 }

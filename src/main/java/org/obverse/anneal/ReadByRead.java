@@ -145,6 +145,11 @@ abstract class ReadByRead<W> implements BlockWork.Task {
         W ws = (W) workspace;
         int first = b << 6;
         int last = Math.min(block.reads(), first + 64);
+        reads(first, last, ws);
+    }
+
+    /** Runs reads first … last − 1 with this thread's workspace: one at a time unless a subclass pairs them. */
+    void reads(int first, int last, W ws) {
         for (int r = first; r < last; r++) {
             read(r, ws);
         }

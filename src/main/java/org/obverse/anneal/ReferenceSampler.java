@@ -23,13 +23,15 @@ import org.obverse.samples.SampleBlock;
  *
  * <p>The exact kernel runs problems with small integer fields and couplings (and no per-read
  * noise) in integer arithmetic without a branch on the decision, drawing on the generator's
- * bare state ({@link MetropolisKernels#sweepIntegerBranchFree}): the same decisions from the
- * same random numbers, so the same reads, in less time. The multi-spin kernel sweeps its
+ * bare state, two reads of a block swept together
+ * ({@link MetropolisKernels#sweepIntegerBranchFreePair}); other problems without per-read
+ * noise on signed fields and the bare state ({@link MetropolisKernels#sweepSigned}): the same
+ * decisions from the same random numbers, so the same reads, in less time. The multi-spin kernel sweeps its
  * blocks four at a time or as vector lanes ({@link MultiSpinCoding#sweepLanes}), again with
  * each block's own draws in their own order.
  *
  * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
- * problem's arrays per thread.
+ * problem's arrays per thread (spins and local fields twice for integer problems: a pair).
  *
  * <p>Settings that choose the path-integral method ({@link SamplerSettings#withPathIntegral})
  * are run by {@link PathIntegralSampler} instead, so callers pass settings through and never
@@ -161,15 +163,23 @@ public final class ReferenceSampler {
         private static final class Workspace {
             final byte[] spins;
             final double[] localField;
+            final double[] spinValue;
             final ReadTerms terms;
             final int[] intLocalField;
             final long[] thresholds;
+            // The second read of a pair (integer kernel).
+            final byte[] spinsB;
+            final int[] intLocalFieldB;
 
             Workspace(ExactTask task) {
-                intLocalField = task.fieldBound >= 0 ? new int[task.n] : null;
-                thresholds = task.fieldBound >= 0 ? new long[task.fieldBound + 1] : null;
+                boolean integer = task.fieldBound >= 0;
+                intLocalField = integer ? new int[task.n] : null;
+                thresholds = integer ? new long[task.fieldBound + 1] : null;
+                spinsB = integer ? new byte[task.n] : null;
+                intLocalFieldB = integer ? new int[task.n] : null;
                 spins = new byte[task.n];
                 localField = new double[task.n];
+                spinValue = integer ? null : new double[task.n];
                 terms = new ReadTerms(task);
             }
         }
@@ -179,24 +189,89 @@ public final class ReferenceSampler {
             return new Workspace(this);
         }
 
+        /** Integer problems: reads in pairs, each pair swept together; an odd last read alone. */
+        @Override
+        void reads(int first, int last, Workspace ws) {
+            if (intCoupling == null) {
+                super.reads(first, last, ws);
+                return;
+            }
+            int r = first;
+            for (; r + 1 < last; r += 2) {
+                readIntegerPair(r, ws);
+            }
+            if (r < last) {
+                readInteger(r, ws);
+            }
+        }
+
         @Override
         void read(int r, Workspace ws) {
             if (intCoupling != null) {
                 readInteger(r, ws);
                 return;
             }
+            if (!errors.hasReadNoise()) {
+                readSigned(r, ws);
+                return;
+            }
             UniformRandomProvider rng = RandomStreams.generator(seed, StreamPurpose.READS, r);
             byte[] s = ws.spins;
             randomSpins(s, rng);
-            // Fields or couplings that are not small integers, or per-read noise: the double
-            // kernel. (A branch-free form of it measured slower here: on Gaussian couplings few
-            // moves are taken, so the branch is well predicted and skipping the updates pays.)
+            // Per-read noise: the double kernel on the generator, which drew the noise too.
             ReadTerms t = termsOf(rng, ws.terms);
             MetropolisKernels.localFields(n, start, neighbour, t.csr, t.fields, s, ws.localField);
             for (double beta : betas) {
                 MetropolisKernels.sweep(n, start, neighbour, t.csr, s, ws.localField, beta, rng);
             }
             finish(r, s);
+        }
+
+        /**
+         * A read of a problem whose fields or couplings are not small integers, without per-read
+         * noise: signed fields on the generator's bare state ({@link MetropolisKernels#sweepSigned}),
+         * the same draws and decisions as {@link MetropolisKernels#sweep} with the generator. (A
+         * branch-free form measured slower here: on Gaussian couplings few moves are taken, so
+         * the branch is well predicted and skipping the updates pays.)
+         */
+        private void readSigned(int r, Workspace ws) {
+            long[] state = RandomStreams.state(seed, StreamPurpose.READS, r);
+            byte[] s = ws.spins;
+            randomSpins(s, state);
+            MetropolisKernels.localFields(n, start, neighbour, csrCoupling, fields, s, ws.localField);
+            MetropolisKernels.signedFields(n, s, ws.spinValue, ws.localField);
+            for (double beta : betas) {
+                MetropolisKernels.sweepSigned(n, start, neighbour, csrCoupling, ws.spinValue, ws.localField, beta, state);
+            }
+            for (int k = 0; k < n; k++) {
+                s[k] = (byte) ws.spinValue[k];
+            }
+            finish(r, s);
+        }
+
+        /**
+         * Reads r and r + 1 of an integer problem, swept together
+         * ({@link MetropolisKernels#sweepIntegerBranchFreePair}): each from its own generator
+         * state, so each the same as {@link #readInteger} alone.
+         */
+        private void readIntegerPair(int r, Workspace ws) {
+            long[] stateA = RandomStreams.state(seed, StreamPurpose.READS, r);
+            long[] stateB = RandomStreams.state(seed, StreamPurpose.READS, r + 1);
+            byte[] a = ws.spins;
+            byte[] b = ws.spinsB;
+            randomSpins(a, stateA);
+            randomSpins(b, stateB);
+            int[] rowNeighbour = degree > 0 ? paddedNeighbour : neighbour;
+            int[] rowCoupling = degree > 0 ? paddedCoupling : intCoupling;
+            MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, a, ws.intLocalField);
+            MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, b, ws.intLocalFieldB);
+            for (double beta : betas) {
+                MetropolisKernels.integerThresholds(beta, ws.thresholds);
+                MetropolisKernels.sweepIntegerBranchFreePair(n, degree, start, rowNeighbour, rowCoupling, ws.thresholds,
+                        a, ws.intLocalField, stateA, b, ws.intLocalFieldB, stateB);
+            }
+            finish(r, a);
+            finish(r + 1, b);
         }
 
         /**

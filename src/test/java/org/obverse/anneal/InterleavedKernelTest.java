@@ -1,0 +1,197 @@
+package org.obverse.anneal;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import org.apache.commons.rng.UniformRandomProvider;
+import org.apache.commons.rng.simple.RandomSource;
+import org.junit.jupiter.api.Test;
+import org.obverse.model.IsingProblem;
+import org.obverse.problems.SpinGlasses;
+import org.obverse.random.RandomStreams;
+import org.obverse.random.StreamPurpose;
+import org.obverse.testsupport.QuietTest;
+import org.obverse.testsupport.Seeds;
+
+/**
+ * The paired integer kernel and the signed-field double kernel against the kernels they stand
+ * in for (common practice, no source: an optimisation must not change a single decision). The
+ * oracle behind all of them is Metropolis as written (Metropolis et al., J. Chem. Phys. 21,
+ * 1087 (1953)): u = nextDouble() of Commons RNG's XO_RO_SHI_RO_128_PP against
+ * StrictMath.exp(−β ΔE) on every uphill move ({@link MetropolisKernels#sweepExactExponential}).
+ */
+class InterleavedKernelTest extends QuietTest {
+
+    @Test
+    void pairedIntegerKernelEqualsEachReadSweptAlone() {
+        Seeds.forEachCase(16, 10100, (rng, seed) -> {
+            IsingProblem p = SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3),
+                    SpinGlasses.Couplings.PLUS_MINUS_ONE, rng);
+            int n = p.size();
+            int[] start = p.adjacencyStarts();
+            int[] neighbour = p.adjacencyVariables();
+            int[] edge = p.adjacencyEdges();
+            int[] perEdge = new int[p.edgeCount()];
+            for (int e = 0; e < perEdge.length; e++) {
+                perEdge[e] = rng.nextInt(7) - 3;
+            }
+            int[] intCoupling = new int[edge.length];
+            double[] coupling = new double[edge.length];
+            for (int q = 0; q < edge.length; q++) {
+                intCoupling[q] = perEdge[edge[q]];
+                coupling[q] = intCoupling[q];
+            }
+            int[] intFields = new int[n];
+            double[] fields = new double[n];
+            for (int k = 0; k < n; k++) {
+                intFields[k] = rng.nextInt(3) == 0 ? rng.nextInt(5) - 2 : 0;
+                fields[k] = intFields[k];
+            }
+            int bound = MetropolisKernels.integerFieldBound(n, start, coupling, fields, 1 << 12);
+            int degree = MetropolisKernels.maxDegree(n, start);
+            int[] padNeighbour = MetropolisKernels.padded(n, start, neighbour, degree, true);
+            int[] padCoupling = MetropolisKernels.padded(n, start, intCoupling, degree, false);
+            boolean padded = rng.nextBoolean();
+            int d = padded ? degree : 0;
+            int[] rowNeighbour = padded ? padNeighbour : neighbour;
+            int[] rowCoupling = padded ? padCoupling : intCoupling;
+
+            // Reads A and B: the exact reference (generator object) and the paired kernel.
+            byte[][] ref = {ExponentialBracketTest.randomSpins(n, rng), ExponentialBracketTest.randomSpins(n, rng)};
+            byte[][] pair = {ref[0].clone(), ref[1].clone()};
+            double[][] refField = new double[2][n];
+            int[][] pairField = new int[2][n];
+            long[][] state = new long[2][];
+            UniformRandomProvider[] g = new UniformRandomProvider[2];
+            for (int i = 0; i < 2; i++) {
+                MetropolisKernels.localFields(n, start, neighbour, coupling, fields, ref[i], refField[i]);
+                MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, pair[i], pairField[i]);
+                long[] raw = {rng.nextLong(), rng.nextLong()};
+                g[i] = RandomSource.XO_RO_SHI_RO_128_PP.create(raw.clone());
+                state[i] = raw;
+            }
+            long[] thresholds = new long[bound + 1];
+            for (int sweep = 0; sweep < 200; sweep++) {
+                double beta = sweep == 0 ? 0.0 : 0.04 * sweep * rng.nextDouble();
+                MetropolisKernels.integerThresholds(beta, thresholds);
+                for (int i = 0; i < 2; i++) {
+                    MetropolisKernels.sweepExactExponential(n, start, neighbour, coupling, ref[i], refField[i], beta, g[i]);
+                }
+                MetropolisKernels.sweepIntegerBranchFreePair(n, d, start, rowNeighbour, rowCoupling, thresholds,
+                        pair[0], pairField[0], state[0], pair[1], pairField[1], state[1]);
+                for (int i = 0; i < 2; i++) {
+                    assertThat(pair[i]).as("read %d, sweep %d, padded %s", i, sweep, padded).isEqualTo(ref[i]);
+                }
+            }
+            for (int i = 0; i < 2; i++) {
+                for (int k = 0; k < n; k++) {
+                    assertThat((double) pairField[i][k]).as("field %d of read %d", k, i).isEqualTo(refField[i][k]);
+                }
+                // The same number of draws: each state agrees with its own generator's.
+                assertThat(XoroshiroState.next(state[i])).as("state of read %d", i).isEqualTo(g[i].nextLong());
+            }
+        });
+    }
+
+    @Test
+    void bitsBracketDecidesAsTheExactComparison() {
+        // u = m·2⁻⁵³ against StrictMath.exp(−x), with m on and next to the scaled exponential.
+        Seeds.forEachCase(5, 10200, (rng, seed) -> {
+            for (int t = 0; t < 200_000; t++) {
+                double x = rng.nextInt(4) == 0 ? rng.nextInt(1100) * ExponentialBracket.STEP : 40.0 * rng.nextDouble();
+                if (x == 0.0) {
+                    continue;
+                }
+                double exact = StrictMath.exp(-x);
+                long near = (long) Math.floor(exact * 0x1p53) + rng.nextInt(5) - 2;
+                long m = rng.nextBoolean() ? rng.nextLong() >>> 11 : Math.max(0, Math.min((1L << 53) - 1, near));
+                double u = m * 0x1p-53;
+                assertThat(ExponentialBracket.acceptsBits(x, m)).as("x %s, m %d", x, m).isEqualTo(u < exact);
+                assertThat(ExponentialBracket.acceptsBits(x, m)).as("x %s, m %d", x, m)
+                        .isEqualTo(ExponentialBracket.accepts(x, u));
+            }
+        });
+    }
+
+    @Test
+    void signedKernelTakesTheDecisionsOfTheDoubleKernel() {
+        // Gaussian couplings and fields (inexact sums, where rounding could part the two forms),
+        // β from 0 (every move taken) to hot enough that few uphill moves are.
+        Seeds.forEachCase(16, 10300, (rng, seed) -> {
+            IsingProblem p = SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3),
+                    SpinGlasses.Couplings.GAUSSIAN, rng);
+            int n = p.size();
+            ExponentialBracketTest.Csr csr = ExponentialBracketTest.Csr.of(p);
+            double[] fields = new double[n];
+            for (int k = 0; k < n; k++) {
+                fields[k] = rng.nextBoolean() ? 0.0 : rng.nextDouble() * 2 - 1;
+            }
+            byte[] ref = ExponentialBracketTest.randomSpins(n, rng);
+            byte[] spins = ref.clone();
+            double[] refField = new double[n];
+            double[] field = new double[n];
+            double[] spin = new double[n];
+            MetropolisKernels.localFields(n, csr.start, csr.neighbour, csr.coupling, fields, ref, refField);
+            MetropolisKernels.localFields(n, csr.start, csr.neighbour, csr.coupling, fields, spins, field);
+            MetropolisKernels.signedFields(n, spins, spin, field);
+            long[] raw = {rng.nextLong(), rng.nextLong()};
+            UniformRandomProvider g = RandomSource.XO_RO_SHI_RO_128_PP.create(raw.clone());
+            long[] state = raw;
+            for (int sweep = 0; sweep < 200; sweep++) {
+                double beta = sweep == 0 ? 0.0 : 0.05 * sweep * rng.nextDouble();
+                MetropolisKernels.sweepExactExponential(n, csr.start, csr.neighbour, csr.coupling, ref, refField, beta, g);
+                MetropolisKernels.sweepSigned(n, csr.start, csr.neighbour, csr.coupling, spin, field, beta, state);
+                for (int k = 0; k < n; k++) {
+                    assertThat(spin[k]).as("spin %d, sweep %d", k, sweep).isEqualTo((double) ref[k]);
+                    // g = s·f exactly (a zero may carry either sign).
+                    assertThat(field[k] == ref[k] * refField[k]).as("field %d, sweep %d: %s against %s", k, sweep,
+                            field[k], ref[k] * refField[k]).isTrue();
+                }
+            }
+            assertThat(XoroshiroState.next(state)).isEqualTo(g.nextLong());
+        });
+    }
+
+    @Test
+    void samplerReadsEqualMetropolisAsWrittenReadByRead() {
+        // The whole exact path (pairs of integer reads, an odd read alone, signed fields for
+        // the rest, both thread counts) against each read run alone on its own generator with
+        // the reference kernel.
+        Seeds.forEachCase(8, 10400, (rng, seed) -> {
+            boolean gaussian = rng.nextBoolean();
+            IsingProblem base = SpinGlasses.cellGrid(1 + rng.nextInt(2), 1 + rng.nextInt(2),
+                    gaussian ? SpinGlasses.Couplings.GAUSSIAN : SpinGlasses.Couplings.PLUS_MINUS_ONE, rng);
+            int n = base.size();
+            double[] fields = new double[n];
+            double[] couplings = base.couplings().clone();
+            for (int k = 0; k < n; k++) {
+                fields[k] = gaussian ? rng.nextDouble() - 0.5 : rng.nextInt(5) - 2;
+            }
+            for (int e = 0; e < couplings.length; e++) {
+                couplings[e] *= gaussian ? 1.0 : 1 + rng.nextInt(3);
+            }
+            IsingProblem p = IsingProblem.of(base.variables(), fields, base.edgeUs(), base.edgeVs(), couplings, 0.0);
+            int reads = 1 + rng.nextInt(140);
+            long sampleSeed = rng.nextLong();
+            SamplerSettings settings = SamplerSettings.defaults().withThreads(1 + rng.nextInt(2));
+            SampledReads got = ReferenceSampler.of(settings).sample(p, reads, sampleSeed);
+            double[] range = BetaRange.automatic(p);
+            double[] betas = BetaRange.perSweep(settings, range[0], range[1]);
+            ExponentialBracketTest.Csr csr = ExponentialBracketTest.Csr.of(p);
+            byte[] s = new byte[n];
+            double[] f = new double[n];
+            for (int r = 0; r < reads; r++) {
+                UniformRandomProvider g = RandomStreams.generator(sampleSeed, StreamPurpose.READS, r);
+                ReadByRead.randomSpins(s, g);
+                MetropolisKernels.localFields(n, csr.start, csr.neighbour, csr.coupling, fields, s, f);
+                for (double beta : betas) {
+                    MetropolisKernels.sweepExactExponential(n, csr.start, csr.neighbour, csr.coupling, s, f, beta, g);
+                }
+                for (int k = 0; k < n; k++) {
+                    assertThat(got.samples().spin(r, k)).as("read %d of %d, spin %d, gaussian %s", r, reads, k, gaussian)
+                            .isEqualTo(s[k]);
+                }
+                assertThat(got.energies()[r]).as("energy of read %d", r).isEqualTo(p.energy(s));
+            }
+        });
+    }
+}
