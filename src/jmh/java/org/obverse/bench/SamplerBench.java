@@ -44,8 +44,8 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * (same decisions as {@code exact}), rows padded to a fixed stride;</li>
  * <li>{@code exactIntegerRows}: the same on the compressed rows without padding;</li>
  * <li>{@code exactIntegerBranchFree} (1 and 2 threads): the integer kernel without a branch on
- * the decision, on the generator's bare state; {@code exactIntegerPair} (1 and 2 threads): the
- * same on two reads swept together, what the sampler runs on integer problems;</li>
+ * the decision, on the generator's bare state; {@code exactIntegerFour} (1 and 2 threads): the
+ * same on four reads swept together, what the sampler runs on integer problems;</li>
  * <li>{@code baselineGaussian}, {@code exactGaussian}, {@code exactGaussianSigned}: the
  * baseline, the double kernel with the generator object, and the signed-field kernel on the
  * bare state that the sampler runs, on the Gaussian glass of the same cells;</li>
@@ -160,10 +160,10 @@ public class SamplerBench {
         int[] fastLocalField;
         byte[] gaussSpins;
         double[] gaussLocalField;
-        // The second read of the paired integer kernel, and its generator state.
-        byte[] pairSpins;
-        int[] pairLocalField;
-        long[] pairState;
+        // Four reads of the four-read integer kernel: spins interleaved, packed fields, states.
+        byte[] fourSpins;
+        long[] fourField;
+        long[] fourStates;
         // The signed-field double kernel: spins as ±1.0, signed fields, bare state.
         double[] signedSpin;
         double[] signedField;
@@ -212,13 +212,16 @@ public class SamplerBench {
             scratchThresholds = new long[p.intThresholds[0].length];
             fastSpins = spins.clone();
             fastLocalField = intLocalField.clone();
-            pairSpins = new byte[N];
-            for (int k = 0; k < N; k++) {
-                pairSpins[k] = (byte) (rng.nextBoolean() ? 1 : -1);
+            fourSpins = new byte[4 * N];
+            for (int k = 0; k < 4 * N; k++) {
+                fourSpins[k] = (byte) (rng.nextBoolean() ? 1 : -1);
             }
-            pairLocalField = new int[N];
-            MetropolisKernels.localFields(N, p.start, p.neighbour, p.intCoupling, p.intFields, pairSpins, pairLocalField);
-            pairState = new long[] {rng.nextLong(), rng.nextLong()};
+            fourField = new long[N];
+            MetropolisKernels.packedLocalFields(N, p.start, p.neighbour, p.intCoupling, p.intFields, fourSpins, fourField);
+            fourStates = new long[8];
+            for (int i = 0; i < 8; i++) {
+                fourStates[i] = rng.nextLong();
+            }
             gaussSpins = spins.clone();
             gaussLocalField = new double[N];
             MetropolisKernels.localFields(N, p.start, p.neighbour, p.gaussCoupling, p.gaussFields, gaussSpins,
@@ -329,28 +332,27 @@ public class SamplerBench {
         return r.fastSpins[0];
     }
 
-    /** What {@code sample} runs on the ±1 glass: two reads swept together, each as {@code exactIntegerBranchFree}. */
+    /** What {@code sample} runs on the ±1 glass: four reads swept together, each as {@code exactIntegerBranchFree}. */
     @Benchmark
-    @OperationsPerInvocation(2 * SWEEPS * N)
-    public byte exactIntegerPair(Problem p, Replica r, CpuCounters c) {
+    @OperationsPerInvocation(4 * SWEEPS * N)
+    public byte exactIntegerFour(Problem p, Replica r, CpuCounters c) {
         long t0 = c.now();
         for (int i = 0; i < SWEEPS; i++) {
             double beta = p.betas[r.nextSweep(p.betas.length)];
             MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
-            MetropolisKernels.sweepIntegerBranchFreePair(N, p.degree, p.start, p.padNeighbour, p.padCoupling,
-                    r.scratchThresholds, r.fastSpins, r.fastLocalField, r.state, r.pairSpins, r.pairLocalField,
-                    r.pairState);
+            MetropolisKernels.sweepIntegerFour(N, p.degree, p.start, p.padNeighbour, p.padCoupling, r.fourSpins,
+                    r.fourField, r.fourStates, r.scratchThresholds);
         }
         c.cpuNanos += c.now() - t0;
-        c.attempts += 2 * SWEEPS * N;
-        return r.fastSpins[0];
+        c.attempts += 4 * SWEEPS * N;
+        return r.fourSpins[0];
     }
 
     @Benchmark
     @Threads(2)
-    @OperationsPerInvocation(2 * SWEEPS * N)
-    public byte exactIntegerPairTwoThreads(Problem p, Replica r, CpuCounters c) {
-        return exactIntegerPair(p, r, c);
+    @OperationsPerInvocation(4 * SWEEPS * N)
+    public byte exactIntegerFourTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return exactIntegerFour(p, r, c);
     }
 
     /** What {@code sample} runs on the Gaussian glass: signed fields, bare state, bracket on raw bits. */
@@ -532,7 +534,7 @@ public class SamplerBench {
                 "x baseline");
         for (String k : new String[] {"baseline", "exact", "exactTwoThreads", "exactInteger", "exactIntegerRows",
                 "exactIntegerTwoThreads", "exactIntegerBranchFree", "exactIntegerBranchFreeTwoThreads",
-                "exactIntegerPair", "exactIntegerPairTwoThreads", "baselineGaussian", "exactGaussian",
+                "exactIntegerFour", "exactIntegerFourTwoThreads", "baselineGaussian", "exactGaussian",
                 "exactGaussianSigned",
                 "multiSpinBareState", "multiSpinFourWordsBareState", "multiSpinFourWordsBareStateTwoThreads",
                 "multiSpinLanes", "multiSpinLanesTwoThreads", "multiSpinLanesOne", "multiSpinLanesFour"}) {
@@ -550,7 +552,7 @@ public class SamplerBench {
             System.out.printf("multi-spin, four words / one: %.2f%n",
                     score.get("multiSpinFourWordsBareState") / score.get("multiSpinBareState"));
         }
-        for (String k : new String[] {"exact", "exactInteger", "exactIntegerPair", "multiSpinFourWordsBareState"}) {
+        for (String k : new String[] {"exact", "exactInteger", "exactIntegerFour", "multiSpinFourWordsBareState"}) {
             if (score.containsKey(k) && score.containsKey(k + "TwoThreads")) {
                 System.out.printf("wall-clock, two threads / one: %s %.2f%n", k, score.get(k + "TwoThreads") / score.get(k));
             }

@@ -148,7 +148,7 @@ abstract class ReadByRead<W> implements BlockWork.Task {
         reads(first, last, ws);
     }
 
-    /** Runs reads first … last − 1 with this thread's workspace: one at a time unless a subclass pairs them. */
+    /** Runs reads first … last − 1 with this thread's workspace: one at a time unless a subclass groups them. */
     void reads(int first, int last, W ws) {
         for (int r = first; r < last; r++) {
             read(r, ws);

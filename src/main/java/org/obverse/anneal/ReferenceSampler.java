@@ -23,15 +23,15 @@ import org.obverse.samples.SampleBlock;
  *
  * <p>The exact kernel runs problems with small integer fields and couplings (and no per-read
  * noise) in integer arithmetic without a branch on the decision, drawing on the generator's
- * bare state, two reads of a block swept together
- * ({@link MetropolisKernels#sweepIntegerBranchFreePair}); other problems without per-read
+ * bare state, four reads of a block swept together
+ * ({@link MetropolisKernels#sweepIntegerFour}); other problems without per-read
  * noise on signed fields and the bare state ({@link MetropolisKernels#sweepSigned}): the same
  * decisions from the same random numbers, so the same reads, in less time. The multi-spin kernel sweeps its
  * blocks four at a time or as vector lanes ({@link MultiSpinCoding#sweepLanes}), again with
  * each block's own draws in their own order.
  *
  * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
- * problem's arrays per thread (spins and local fields twice for integer problems: a pair).
+ * problem's arrays per thread (spins and local fields four times over for integer problems).
  *
  * <p>Settings that choose the path-integral method ({@link SamplerSettings#withPathIntegral})
  * are run by {@link PathIntegralSampler} instead, so callers pass settings through and never
@@ -124,10 +124,10 @@ public final class ReferenceSampler {
         return new SampledReads(problem.variables(), block, energies, betas.length, settings.schedule().runTimeMicros());
     }
 
-    /** The exact kernel: one read at a time. */
+    /** The exact kernel: one read at a time, or four at once on integer problems. */
     private static final class ExactTask extends ReadByRead<ExactTask.Workspace> {
         /** Largest local field the integer kernel takes (its threshold table has one entry per value). */
-        private static final int INTEGER_FIELD_LIMIT = 1 << 12;
+        private static final int INTEGER_FIELD_LIMIT = 1 << 12; // within MetropolisKernels.FOUR_FIELD_LIMIT
 
         private final double[] betas;
         // Where every field and coupling is a small integer and there is no per-read noise:
@@ -167,16 +167,17 @@ public final class ReferenceSampler {
             final ReadTerms terms;
             final int[] intLocalField;
             final long[] thresholds;
-            // The second read of a pair (integer kernel).
-            final byte[] spinsB;
-            final int[] intLocalFieldB;
+            // Four reads at once (integer kernel): spins interleaved, packed fields, states.
+            final byte[] spins4;
+            final long[] packedField;
+            final long[] states4 = new long[2 * MetropolisKernels.FOUR];
 
             Workspace(ExactTask task) {
                 boolean integer = task.fieldBound >= 0;
                 intLocalField = integer ? new int[task.n] : null;
                 thresholds = integer ? new long[task.fieldBound + 1] : null;
-                spinsB = integer ? new byte[task.n] : null;
-                intLocalFieldB = integer ? new int[task.n] : null;
+                spins4 = integer ? new byte[MetropolisKernels.FOUR * task.n] : null;
+                packedField = integer ? new long[task.n] : null;
                 spins = new byte[task.n];
                 localField = new double[task.n];
                 spinValue = integer ? null : new double[task.n];
@@ -189,7 +190,7 @@ public final class ReferenceSampler {
             return new Workspace(this);
         }
 
-        /** Integer problems: reads in pairs, each pair swept together; an odd last read alone. */
+        /** Integer problems: reads in fours, each four swept together; a last one to three alone. */
         @Override
         void reads(int first, int last, Workspace ws) {
             if (intCoupling == null) {
@@ -197,10 +198,10 @@ public final class ReferenceSampler {
                 return;
             }
             int r = first;
-            for (; r + 1 < last; r += 2) {
-                readIntegerPair(r, ws);
+            for (; r + MetropolisKernels.FOUR <= last; r += MetropolisKernels.FOUR) {
+                readIntegerFour(r, ws);
             }
-            if (r < last) {
+            for (; r < last; r++) {
                 readInteger(r, ws);
             }
         }
@@ -250,28 +251,38 @@ public final class ReferenceSampler {
         }
 
         /**
-         * Reads r and r + 1 of an integer problem, swept together
-         * ({@link MetropolisKernels#sweepIntegerBranchFreePair}): each from its own generator
-         * state, so each the same as {@link #readInteger} alone.
+         * Reads r … r + 3 of an integer problem, swept together
+         * ({@link MetropolisKernels#sweepIntegerFour}): each from its own generator state, so
+         * each the same as {@link #readInteger} alone.
          */
-        private void readIntegerPair(int r, Workspace ws) {
-            long[] stateA = RandomStreams.state(seed, StreamPurpose.READS, r);
-            long[] stateB = RandomStreams.state(seed, StreamPurpose.READS, r + 1);
-            byte[] a = ws.spins;
-            byte[] b = ws.spinsB;
-            randomSpins(a, stateA);
-            randomSpins(b, stateB);
+        private void readIntegerFour(int r, Workspace ws) {
+            int four = MetropolisKernels.FOUR;
+            byte[] s = ws.spins;
+            byte[] s4 = ws.spins4;
+            long[] states = ws.states4;
+            for (int i = 0; i < four; i++) {
+                long[] state = RandomStreams.state(seed, StreamPurpose.READS, r + i);
+                randomSpins(s, state);
+                for (int k = 0; k < n; k++) {
+                    s4[four * k + i] = s[k];
+                }
+                states[2 * i] = state[0];
+                states[2 * i + 1] = state[1];
+            }
             int[] rowNeighbour = degree > 0 ? paddedNeighbour : neighbour;
             int[] rowCoupling = degree > 0 ? paddedCoupling : intCoupling;
-            MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, a, ws.intLocalField);
-            MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, b, ws.intLocalFieldB);
+            MetropolisKernels.packedLocalFields(n, start, neighbour, intCoupling, intFields, s4, ws.packedField);
             for (double beta : betas) {
                 MetropolisKernels.integerThresholds(beta, ws.thresholds);
-                MetropolisKernels.sweepIntegerBranchFreePair(n, degree, start, rowNeighbour, rowCoupling, ws.thresholds,
-                        a, ws.intLocalField, stateA, b, ws.intLocalFieldB, stateB);
+                MetropolisKernels.sweepIntegerFour(n, degree, start, rowNeighbour, rowCoupling, s4, ws.packedField,
+                        states, ws.thresholds);
             }
-            finish(r, a);
-            finish(r + 1, b);
+            for (int i = 0; i < four; i++) {
+                for (int k = 0; k < n; k++) {
+                    s[k] = s4[four * k + i];
+                }
+                finish(r + i, s);
+            }
         }
 
         /**

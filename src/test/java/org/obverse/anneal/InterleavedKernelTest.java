@@ -13,7 +13,7 @@ import org.obverse.testsupport.QuietTest;
 import org.obverse.testsupport.Seeds;
 
 /**
- * The paired integer kernel and the signed-field double kernel against the kernels they stand
+ * The four-read integer kernel and the signed-field double kernel against the kernels they stand
  * in for (common practice, no source: an optimisation must not change a single decision). The
  * oracle behind all of them is Metropolis as written (Metropolis et al., J. Chem. Phys. 21,
  * 1087 (1953)): u = nextDouble() of Commons RNG's XO_RO_SHI_RO_128_PP against
@@ -22,7 +22,7 @@ import org.obverse.testsupport.Seeds;
 class InterleavedKernelTest extends QuietTest {
 
     @Test
-    void pairedIntegerKernelEqualsEachReadSweptAlone() {
+    void fourReadKernelEqualsEachReadSweptAlone() {
         Seeds.forEachCase(16, 10100, (rng, seed) -> {
             IsingProblem p = SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3),
                     SpinGlasses.Couplings.PLUS_MINUS_ONE, rng);
@@ -30,9 +30,11 @@ class InterleavedKernelTest extends QuietTest {
             int[] start = p.adjacencyStarts();
             int[] neighbour = p.adjacencyVariables();
             int[] edge = p.adjacencyEdges();
+            // Couplings up to ±40 in some cases: fields beyond a byte, negative lanes.
+            int scale = rng.nextBoolean() ? 3 : 40;
             int[] perEdge = new int[p.edgeCount()];
             for (int e = 0; e < perEdge.length; e++) {
-                perEdge[e] = rng.nextInt(7) - 3;
+                perEdge[e] = rng.nextInt(2 * scale + 1) - scale;
             }
             int[] intCoupling = new int[edge.length];
             double[] coupling = new double[edge.length];
@@ -43,51 +45,89 @@ class InterleavedKernelTest extends QuietTest {
             int[] intFields = new int[n];
             double[] fields = new double[n];
             for (int k = 0; k < n; k++) {
-                intFields[k] = rng.nextInt(3) == 0 ? rng.nextInt(5) - 2 : 0;
+                intFields[k] = rng.nextInt(3) == 0 ? rng.nextInt(2 * scale + 1) - scale : 0;
                 fields[k] = intFields[k];
             }
             int bound = MetropolisKernels.integerFieldBound(n, start, coupling, fields, 1 << 12);
+            assertThat(bound).isBetween(0, MetropolisKernels.FOUR_FIELD_LIMIT);
             int degree = MetropolisKernels.maxDegree(n, start);
-            int[] padNeighbour = MetropolisKernels.padded(n, start, neighbour, degree, true);
-            int[] padCoupling = MetropolisKernels.padded(n, start, intCoupling, degree, false);
             boolean padded = rng.nextBoolean();
             int d = padded ? degree : 0;
-            int[] rowNeighbour = padded ? padNeighbour : neighbour;
-            int[] rowCoupling = padded ? padCoupling : intCoupling;
+            int[] rowNeighbour = padded ? MetropolisKernels.padded(n, start, neighbour, degree, true) : neighbour;
+            int[] rowCoupling = padded ? MetropolisKernels.padded(n, start, intCoupling, degree, false) : intCoupling;
+            int four = MetropolisKernels.FOUR;
 
-            // Reads A and B: the exact reference (generator object) and the paired kernel.
-            byte[][] ref = {ExponentialBracketTest.randomSpins(n, rng), ExponentialBracketTest.randomSpins(n, rng)};
-            byte[][] pair = {ref[0].clone(), ref[1].clone()};
-            double[][] refField = new double[2][n];
-            int[][] pairField = new int[2][n];
-            long[][] state = new long[2][];
-            UniformRandomProvider[] g = new UniformRandomProvider[2];
-            for (int i = 0; i < 2; i++) {
+            // Each read: the exact reference (generator object) beside the four-read kernel.
+            byte[][] ref = new byte[four][];
+            double[][] refField = new double[four][n];
+            UniformRandomProvider[] g = new UniformRandomProvider[four];
+            byte[] spins = new byte[four * n];
+            long[] states = new long[2 * four];
+            for (int i = 0; i < four; i++) {
+                ref[i] = ExponentialBracketTest.randomSpins(n, rng);
+                for (int k = 0; k < n; k++) {
+                    spins[four * k + i] = ref[i][k];
+                }
                 MetropolisKernels.localFields(n, start, neighbour, coupling, fields, ref[i], refField[i]);
-                MetropolisKernels.localFields(n, start, neighbour, intCoupling, intFields, pair[i], pairField[i]);
                 long[] raw = {rng.nextLong(), rng.nextLong()};
                 g[i] = RandomSource.XO_RO_SHI_RO_128_PP.create(raw.clone());
-                state[i] = raw;
+                states[2 * i] = raw[0];
+                states[2 * i + 1] = raw[1];
             }
+            long[] field = new long[n];
+            MetropolisKernels.packedLocalFields(n, start, neighbour, intCoupling, intFields, spins, field);
             long[] thresholds = new long[bound + 1];
             for (int sweep = 0; sweep < 200; sweep++) {
-                double beta = sweep == 0 ? 0.0 : 0.04 * sweep * rng.nextDouble();
+                double beta = sweep == 0 ? 0.0 : 0.04 * sweep * rng.nextDouble() / Math.max(1, scale / 3);
                 MetropolisKernels.integerThresholds(beta, thresholds);
-                for (int i = 0; i < 2; i++) {
+                for (int i = 0; i < four; i++) {
                     MetropolisKernels.sweepExactExponential(n, start, neighbour, coupling, ref[i], refField[i], beta, g[i]);
                 }
-                MetropolisKernels.sweepIntegerBranchFreePair(n, d, start, rowNeighbour, rowCoupling, thresholds,
-                        pair[0], pairField[0], state[0], pair[1], pairField[1], state[1]);
-                for (int i = 0; i < 2; i++) {
-                    assertThat(pair[i]).as("read %d, sweep %d, padded %s", i, sweep, padded).isEqualTo(ref[i]);
+                MetropolisKernels.sweepIntegerFour(n, d, start, rowNeighbour, rowCoupling, spins, field, states,
+                        thresholds);
+                for (int i = 0; i < four; i++) {
+                    for (int k = 0; k < n; k++) {
+                        assertThat(spins[four * k + i]).as("read %d, spin %d, sweep %d, padded %s", i, k, sweep, padded)
+                                .isEqualTo(ref[i][k]);
+                    }
                 }
             }
-            for (int i = 0; i < 2; i++) {
+            for (int i = 0; i < four; i++) {
                 for (int k = 0; k < n; k++) {
-                    assertThat((double) pairField[i][k]).as("field %d of read %d", k, i).isEqualTo(refField[i][k]);
+                    assertThat((double) MetropolisKernels.fieldLane(field[k], i)).as("field %d of read %d", k, i)
+                            .isEqualTo(refField[i][k]);
                 }
                 // The same number of draws: each state agrees with its own generator's.
-                assertThat(XoroshiroState.next(state[i])).as("state of read %d", i).isEqualTo(g[i].nextLong());
+                long[] state = {states[2 * i], states[2 * i + 1]};
+                assertThat(XoroshiroState.next(state)).as("state of read %d", i).isEqualTo(g[i].nextLong());
+            }
+        });
+    }
+
+    @Test
+    void packedFieldsKeepEveryLane() {
+        // The packed form against plain ints: packing, lane by lane reading, and linearity
+        // (adding packed changes adds lane by lane) up to the limit, negative lanes included.
+        Seeds.forEachCase(20, 10150, (rng, seed) -> {
+            int lim = MetropolisKernels.FOUR_FIELD_LIMIT;
+            int[] f = new int[4];
+            int[] d = new int[4];
+            for (int i = 0; i < 4; i++) {
+                f[i] = rng.nextInt(2 * lim + 1) - lim;
+            }
+            for (int t = 0; t < 2000; t++) {
+                for (int i = 0; i < 4; i++) {
+                    d[i] = rng.nextInt(2 * lim + 1) - lim - f[i];
+                    d[i] = Math.max(-lim - f[i], Math.min(lim - f[i], d[i]));
+                }
+                long packed = MetropolisKernels.packFields(f[0], f[1], f[2], f[3]);
+                long delta = (long) d[0] + ((long) d[1] << 16) + ((long) d[2] << 32) + ((long) d[3] << 48);
+                long sum = packed + delta;
+                for (int i = 0; i < 4; i++) {
+                    assertThat(MetropolisKernels.fieldLane(packed, i)).as("lane %d", i).isEqualTo(f[i]);
+                    assertThat(MetropolisKernels.fieldLane(sum, i)).as("lane %d after adding", i).isEqualTo(f[i] + d[i]);
+                    f[i] += d[i];
+                }
             }
         });
     }
@@ -153,7 +193,7 @@ class InterleavedKernelTest extends QuietTest {
 
     @Test
     void samplerReadsEqualMetropolisAsWrittenReadByRead() {
-        // The whole exact path (pairs of integer reads, an odd read alone, signed fields for
+        // The whole exact path (integer reads in fours, the last one to three alone, signed fields for
         // the rest, both thread counts) against each read run alone on its own generator with
         // the reference kernel.
         Seeds.forEachCase(8, 10400, (rng, seed) -> {
