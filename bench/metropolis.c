@@ -3,7 +3,7 @@
  * Metropolis sweep over compressed rows, as a practitioner would write it in C. Built and run
  * only by bench/run_sampler_c.sh (gcc -O3 -march=native), never in CI.
  *
- *   metropolis PROBLEM.txt table|table2|free|free2|exp|bracket SWEEPS
+ *   metropolis PROBLEM.txt table|table2|table4|free|free2|free4|exp|bracket SWEEPS
  *
  * PROBLEM.txt (written by org.obverse.bench.SamplerProblemFile): "n terms sweeps", then n + 1
  * row starts, then per term "neighbour coupling", then one beta per sweep of the anneal (hex
@@ -19,6 +19,11 @@
  *          interleaved: no branch on the decision, the generator advanced only on an uphill
  *          move by masks, the draw's top 53 bits compared with ceil(exp(-beta 2v) 2^53), the
  *          neighbours' fields changed by zero on a refused move;
+ *   table4, free4: four reads interleaved (own spins, fields, generators; the first three
+ *          generators are the ones above): table4 the plain table loop, free4 obverse's
+ *          four-read kernel: the branch-free step per read and the four local fields of a
+ *          spin as 16-bit lanes of one 64-bit word, so one multiply-add per neighbour
+ *          updates all four (the lanes are linear: lanes 0-2 stored plus 2^15);
  *   exp:   exp() from libm on every uphill attempt (any couplings);
  *   bracket: a table of exp(-k/32); u below the bracket's lower end accepts, at or above its
  *          upper end refuses, exp() only in between (any couplings).
@@ -69,7 +74,7 @@ static double now(clockid_t c) {
 
 int main(int argc, char **argv) {
     if (argc != 4) {
-        fprintf(stderr, "usage: metropolis PROBLEM.txt table|table2|free|free2|exp|bracket SWEEPS\n");
+        fprintf(stderr, "usage: metropolis PROBLEM.txt table|table2|table4|free|free2|free4|exp|bracket SWEEPS\n");
         return 2;
     }
     FILE *f = fopen(argv[1], "r");
@@ -78,7 +83,9 @@ int main(int argc, char **argv) {
     int table2 = strcmp(argv[2], "table2") == 0;
     int free1 = strcmp(argv[2], "free") == 0;
     int free2 = strcmp(argv[2], "free2") == 0;
-    if (free2) table2 = 0;
+    int table4 = strcmp(argv[2], "table4") == 0;
+    int free4 = strcmp(argv[2], "free4") == 0;
+    int reads = table2 || free2 ? 2 : table4 || free4 ? 4 : 1;
     int bracket = strcmp(argv[2], "bracket") == 0;
     double ex[1027];
     for (int k = 0; k <= 1024; k++) ex[k] = exp(-k / 32.0);
@@ -122,6 +129,30 @@ int main(int argc, char **argv) {
     }
     double *p = malloc((bound + 1) * sizeof(double));
     uint64_t *th = malloc((bound + 1) * sizeof(uint64_t));
+    /* Four reads (table4, free4): spins s4[4k + i], int fields ilf4[4k + i], packed fields pf. */
+    uint64_t g4[8] = {s0, s1, t0, t1, 0x452821E638D01377ULL, 0xBE5466CF34E90C6CULL,
+                      0xC0AC29B7C97C50DDULL, 0x3F84D5B5B5470917ULL};
+    signed char *s4 = malloc(4 * n);
+    int *ilf4 = calloc(4 * n, sizeof(int));
+    int64_t *pf = calloc(n, sizeof(int64_t));
+    for (int i = 0; i < 4; i++) {
+        uint64_t a = g4[2 * i], b = g4[2 * i + 1];
+        for (int k = 0; k < n; k++) {
+            uint64_t r = rotl(a + b, 17) + a;
+            b ^= a; a = rotl(a, 49) ^ b ^ (b << 21); b = rotl(b, 28);
+            s4[4 * k + i] = (r >> 63) ? 1 : -1;
+        }
+        g4[2 * i] = a; g4[2 * i + 1] = b;
+    }
+    for (int k = 0; k < n; k++) {
+        for (int i = 0; i < 4; i++) {
+            int ih = 0;
+            for (int q = start[k]; q < start[k + 1]; q++) ih += iJ[q] * s4[4 * nbr[q] + i];
+            ilf4[4 * k + i] = ih;
+        }
+        pf[k] = (int64_t) ilf4[4 * k] + ((int64_t) ilf4[4 * k + 1] << 16) + ((int64_t) ilf4[4 * k + 2] << 32)
+                + ((int64_t) ilf4[4 * k + 3] << 48) + 0x0000800080008000LL;
+    }
     signed char *s2 = malloc(n);
     int *ilf2 = calloc(n, sizeof(int));
     for (int k = 0; k < n; k++) s2[k] = (next2() >> 63) ? 1 : -1;
@@ -172,6 +203,44 @@ int main(int argc, char **argv) {
                 }
             }
             s0 = a0; s1 = a1; t0 = b0; t1 = b1;
+        } else if (table4) {
+            for (int v = 0; v <= bound; v++) p[v] = exp(-beta * 2.0 * v);
+            for (int k = 0; k < n; k++) {
+                for (int i = 0; i < 4; i++) {
+                    int v = s4[4 * k + i] * ilf4[4 * k + i];
+                    if (v < 0) {
+                        uint64_t a = g4[2 * i], b = g4[2 * i + 1];
+                        uint64_t r = rotl(a + b, 17) + a;
+                        b ^= a; g4[2 * i] = rotl(a, 49) ^ b ^ (b << 21); g4[2 * i + 1] = rotl(b, 28);
+                        if (!((double) (r >> 11) * 0x1p-53 < p[-v])) continue;
+                    }
+                    int d = -2 * s4[4 * k + i];
+                    s4[4 * k + i] = (signed char) -s4[4 * k + i];
+                    for (int q = start[k]; q < start[k + 1]; q++) ilf4[4 * nbr[q] + i] += d * iJ[q];
+                }
+            }
+        } else if (free4) {
+            th[0] = 1ULL << 53;
+            for (int v = 1; v <= bound; v++) th[v] = (uint64_t) ceil(exp(-beta * 2.0 * v) * 0x1p53);
+            uint64_t a0 = g4[0], a1 = g4[1], b0 = g4[2], b1 = g4[3], c0 = g4[4], c1 = g4[5], e0 = g4[6], e1 = g4[7];
+#define STEP(I, X0, X1, F) \
+            int s##I = s4[4 * k + I], v##I = s##I * (F), u##I = v##I >> 31; \
+            uint64_t m##I = (uint64_t) (int64_t) u##I, r##I = rotl(X0 + X1, 17) + X0, t##I = X1 ^ X0; \
+            X0 = ((rotl(X0, 49) ^ t##I ^ (t##I << 21)) & m##I) | (X0 & ~m##I); \
+            X1 = (rotl(t##I, 28) & m##I) | (X1 & ~m##I); \
+            int d##I = -2 * s##I & (int) ((int64_t) ((r##I >> 11) - th[-v##I & u##I]) >> 63); \
+            s4[4 * k + I] = (signed char) (s##I + d##I);
+            for (int k = 0; k < n; k++) {
+                uint64_t f = (uint64_t) pf[k];
+                STEP(0, a0, a1, (int) (f & 0xffff) - 0x8000)
+                STEP(1, b0, b1, (int) ((f >> 16) & 0xffff) - 0x8000)
+                STEP(2, c0, c1, (int) ((f >> 32) & 0xffff) - 0x8000)
+                STEP(3, e0, e1, (int) ((int64_t) f >> 48))
+                int64_t step = (int64_t) d0 + ((int64_t) d1 << 16) + ((int64_t) d2 << 32) + ((int64_t) d3 << 48);
+                for (int q = start[k]; q < start[k + 1]; q++) pf[nbr[q]] += iJ[q] * step;
+            }
+#undef STEP
+            g4[0] = a0; g4[1] = a1; g4[2] = b0; g4[3] = b1; g4[4] = c0; g4[5] = c1; g4[6] = e0; g4[7] = e1;
         } else if (table2) {
             for (int v = 0; v <= bound; v++) p[v] = exp(-beta * 2.0 * v);
             for (int k = 0; k < n; k++) {
@@ -214,7 +283,8 @@ int main(int argc, char **argv) {
     long sum = 0;
     for (int k = 0; k < n; k++) sum = sum * 31 + s[k];
     if (table2 || free2) for (int k = 0; k < n; k++) sum = sum * 31 + s2[k];
-    double attempts = (double) sweeps * n * (table2 || free2 ? 2 : 1);
+    if (table4 || free4) for (int k = 0; k < 4 * n; k++) sum = sum * 31 + s4[k];
+    double attempts = (double) sweeps * n * reads;
     printf("%s attempts/cpu-ns %.4f attempts/ns %.4f (checksum %ld)\n", argv[2], attempts / (c1 - c0),
            attempts / (w1 - w0), sum);
     return 0;

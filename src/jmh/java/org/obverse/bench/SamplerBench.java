@@ -86,6 +86,7 @@ public class SamplerBench {
         int degree;
         int[] padNeighbour;
         int[] padCoupling;
+        int[] fourTerms;
         double[] betas;
         MultiSpinCoding coding;
         long[][] thresholds;
@@ -129,6 +130,7 @@ public class SamplerBench {
             degree = MetropolisKernels.maxDegree(N, start);
             padNeighbour = MetropolisKernels.padded(N, start, neighbour, degree, true);
             padCoupling = MetropolisKernels.padded(N, start, intCoupling, degree, false);
+            fourTerms = MetropolisKernels.interleavedTerms(padNeighbour, padCoupling);
             coding = MultiSpinCoding.of(problem);
             thresholds = new long[betas.length][MultiSpinCoding.thresholdLength()];
             for (int k = 0; k < betas.length; k++) {
@@ -340,8 +342,8 @@ public class SamplerBench {
         for (int i = 0; i < SWEEPS; i++) {
             double beta = p.betas[r.nextSweep(p.betas.length)];
             MetropolisKernels.integerThresholds(beta, r.scratchThresholds);
-            MetropolisKernels.sweepIntegerFour(N, p.degree, p.start, p.padNeighbour, p.padCoupling, r.fourSpins,
-                    r.fourField, r.fourStates, r.scratchThresholds);
+            MetropolisKernels.sweepIntegerFour(N, p.degree, p.start, p.fourTerms, r.fourSpins, r.fourField, r.fourStates,
+                    r.scratchThresholds);
         }
         c.cpuNanos += c.now() - t0;
         c.attempts += 4 * SWEEPS * N;

@@ -294,7 +294,9 @@ public final class MetropolisKernels {
     /**
      * {@link #sweepIntegerBranchFree} on four reads at once, each with its own spins, local
      * fields and generator state, on the same problem and thresholds (field bound at most
-     * {@link #FOUR_FIELD_LIMIT}). Spin k of read i is {@code spins[4k + i]}; the four local
+     * {@link #FOUR_FIELD_LIMIT}), the terms as {@link #interleavedTerms} of the compressed rows
+     * ({@code degree = 0}) or of the padded layout (stride degree). Spin k of read i is
+     * {@code spins[4k + i]}; the four local
      * fields of spin k are one long {@code field[k]} of {@link #packFields}; read i's generator
      * state is {@code states[2i], states[2i + 1]}. Spin k of read 0, 1, 2, 3 is visited in turn,
      * each read drawing only from its own state and deciding on its own field, so each ends
@@ -304,15 +306,29 @@ public final class MetropolisKernels {
      * the four packed steps (the packed form is linear), so the rows are walked once for all
      * four. Input and output: spins, field and states in place.
      */
-    public static void sweepIntegerFour(int n, int degree, int[] start, int[] neighbour, int[] coupling, byte[] spins,
-                                        long[] field, long[] states, long[] thresholds) {
+    public static void sweepIntegerFour(int n, int degree, int[] start, int[] terms, byte[] spins, long[] field,
+                                        long[] states, long[] thresholds) {
         // One loop per layout (one loop holding both measured slower), with the thresholds
         // last: an order of arguments that measured faster under C2 (register assignment).
         if (degree > 0) {
-            fourPadded(n, degree, neighbour, coupling, spins, field, states, thresholds);
+            fourPadded(n, degree, terms, spins, field, states, thresholds);
         } else {
-            fourRows(n, start, neighbour, coupling, spins, field, states, thresholds);
+            fourRows(n, start, terms, spins, field, states, thresholds);
         }
+    }
+
+    /**
+     * Neighbours and couplings interleaved, term q as {@code out[2q], out[2q + 1]}: the layout
+     * of {@link #sweepIntegerFour} (one array walked, one base register fewer: 13 % faster
+     * than two arrays there), from rows or from the padded layout alike.
+     */
+    public static int[] interleavedTerms(int[] neighbour, int[] coupling) {
+        int[] out = new int[2 * neighbour.length];
+        for (int q = 0; q < neighbour.length; q++) {
+            out[2 * q] = neighbour[q];
+            out[2 * q + 1] = coupling[q];
+        }
+        return out;
     }
 
     /**
@@ -334,8 +350,8 @@ public final class MetropolisKernels {
     }
 
     /** {@link #sweepIntegerFour} on the padded layout (stride degree). */
-    private static void fourPadded(int n, int degree, int[] neighbour, int[] coupling, byte[] spins, long[] field,
-                                   long[] states, long[] thresholds) {
+    private static void fourPadded(int n, int degree, int[] terms, byte[] spins, long[] field, long[] states,
+                                   long[] thresholds) {
         long a0 = states[0];
         long a1 = states[1];
         long b0 = states[2];
@@ -392,9 +408,9 @@ public final class MetropolisKernels {
             int step3 = -2 * s3 & (int) (((r3 >>> 11) - thresholds[-v3 & up3]) >> 63);
             spins[at + 3] = (byte) (s3 + step3);
             long step = (long) step0 + ((long) step1 << 16) + ((long) step2 << 32) + ((long) step3 << 48);
-            int base = k * degree;
-            for (int i = 0; i < degree; i++) {
-                field[neighbour[base + i]] += coupling[base + i] * step;
+            int base = 2 * k * degree;
+            for (int i = 0; i < 2 * degree; i += 2) {
+                field[terms[base + i]] += terms[base + i + 1] * step;
             }
         }
         states[0] = a0;
@@ -408,8 +424,8 @@ public final class MetropolisKernels {
     }
 
     /** {@link #sweepIntegerFour} on compressed rows. */
-    private static void fourRows(int n, int[] start, int[] neighbour, int[] coupling, byte[] spins, long[] field,
-                                   long[] states, long[] thresholds) {
+    private static void fourRows(int n, int[] start, int[] terms, byte[] spins, long[] field, long[] states,
+                                 long[] thresholds) {
         long a0 = states[0];
         long a1 = states[1];
         long b0 = states[2];
@@ -466,8 +482,8 @@ public final class MetropolisKernels {
             int step3 = -2 * s3 & (int) (((r3 >>> 11) - thresholds[-v3 & up3]) >> 63);
             spins[at + 3] = (byte) (s3 + step3);
             long step = (long) step0 + ((long) step1 << 16) + ((long) step2 << 32) + ((long) step3 << 48);
-            for (int p = start[k]; p < start[k + 1]; p++) {
-                field[neighbour[p]] += coupling[p] * step;
+            for (int p = 2 * start[k]; p < 2 * start[k + 1]; p += 2) {
+                field[terms[p]] += terms[p + 1] * step;
             }
         }
         states[0] = a0;

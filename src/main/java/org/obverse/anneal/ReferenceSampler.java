@@ -140,6 +140,8 @@ public final class ReferenceSampler {
         private final int degree;
         private final int[] paddedNeighbour;
         private final int[] paddedCoupling;
+        // The same terms interleaved for the four-read kernel (padded where degree > 0).
+        private final int[] fourTerms;
 
         ExactTask(IsingProblem nominal, IsingProblem device, ControlErrors errors, double[] betas, SampleBlock block,
                   double[] energies, long seed) {
@@ -158,6 +160,9 @@ public final class ReferenceSampler {
                 paddedNeighbour = null;
                 paddedCoupling = null;
             }
+            fourTerms = intCoupling == null ? null : degree > 0
+                    ? MetropolisKernels.interleavedTerms(paddedNeighbour, paddedCoupling)
+                    : MetropolisKernels.interleavedTerms(neighbour, intCoupling);
         }
 
         private static final class Workspace {
@@ -269,13 +274,11 @@ public final class ReferenceSampler {
                 states[2 * i] = state[0];
                 states[2 * i + 1] = state[1];
             }
-            int[] rowNeighbour = degree > 0 ? paddedNeighbour : neighbour;
-            int[] rowCoupling = degree > 0 ? paddedCoupling : intCoupling;
             MetropolisKernels.packedLocalFields(n, start, neighbour, intCoupling, intFields, s4, ws.packedField);
             for (double beta : betas) {
                 MetropolisKernels.integerThresholds(beta, ws.thresholds);
-                MetropolisKernels.sweepIntegerFour(n, degree, start, rowNeighbour, rowCoupling, s4, ws.packedField,
-                        states, ws.thresholds);
+                MetropolisKernels.sweepIntegerFour(n, degree, start, fourTerms, s4, ws.packedField, states,
+                        ws.thresholds);
             }
             for (int i = 0; i < four; i++) {
                 for (int k = 0; k < n; k++) {

@@ -55,6 +55,7 @@ class InterleavedKernelTest extends QuietTest {
             int d = padded ? degree : 0;
             int[] rowNeighbour = padded ? MetropolisKernels.padded(n, start, neighbour, degree, true) : neighbour;
             int[] rowCoupling = padded ? MetropolisKernels.padded(n, start, intCoupling, degree, false) : intCoupling;
+            int[] terms = MetropolisKernels.interleavedTerms(rowNeighbour, rowCoupling);
             int four = MetropolisKernels.FOUR;
 
             // Each read: the exact reference (generator object) beside the four-read kernel.
@@ -83,8 +84,7 @@ class InterleavedKernelTest extends QuietTest {
                 for (int i = 0; i < four; i++) {
                     MetropolisKernels.sweepExactExponential(n, start, neighbour, coupling, ref[i], refField[i], beta, g[i]);
                 }
-                MetropolisKernels.sweepIntegerFour(n, d, start, rowNeighbour, rowCoupling, spins, field, states,
-                        thresholds);
+                MetropolisKernels.sweepIntegerFour(n, d, start, terms, spins, field, states, thresholds);
                 for (int i = 0; i < four; i++) {
                     for (int k = 0; k < n; k++) {
                         assertThat(spins[four * k + i]).as("read %d, spin %d, sweep %d, padded %s", i, k, sweep, padded)
