@@ -61,8 +61,19 @@ public final class ExponentialBracket {
      * input, with integer compares in place of the conversion to a double.
      */
     public static boolean acceptsBits(double x, long bits) {
-        if (x < LIMIT) {
-            int k = (int) (x * INVERSE_STEP);
+        return acceptsBits(x, x * INVERSE_STEP, bits);
+    }
+
+    /**
+     * {@link #acceptsBits(double, long)} given also {@code scaled} = x·2⁵ (x / {@link #STEP});
+     * a caller with x = c·g can compute it as (c·2⁵)·g beside x rather than after it, which
+     * shortens the chain from g to the decision. Scaling by a power of two is exact, except
+     * for overflow (only past the table, where either form is beyond it) and subnormal
+     * products (where either form gives index 0), so the answer is the same.
+     */
+    public static boolean acceptsBits(double x, double scaled, long bits) {
+        if (scaled < LIMIT * INVERSE_STEP) {
+            int k = (int) scaled;
             if (bits < BITS[k + 1]) {
                 return true;
             }

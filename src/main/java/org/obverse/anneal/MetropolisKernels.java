@@ -523,6 +523,11 @@ public final class MetropolisKernels {
                                    double[] field, double beta, long[] state) {
         long s0 = state[0];
         long s1 = state[1];
+        // x = β·(−2g) is the real number (−2β)·g, so the same double; its table index x·2⁵
+        // comes from g in one multiply too (exact scaling), not from x: a shorter chain from
+        // the field to the decision, which is what a mispredicted decision waits for.
+        double minusTwoBeta = -2.0 * beta;
+        double scaledBeta = minusTwoBeta / ExponentialBracket.STEP;
         for (int k = 0; k < n; k++) {
             double g = field[k];
             if (g < 0.0) {
@@ -530,7 +535,7 @@ public final class MetropolisKernels {
                 long t = s1 ^ s0;
                 s0 = Long.rotateLeft(s0, 49) ^ t ^ (t << 21);
                 s1 = Long.rotateLeft(t, 28);
-                if (!ExponentialBracket.acceptsBits(beta * (-2.0 * g), r >>> 11)) {
+                if (!ExponentialBracket.acceptsBits(minusTwoBeta * g, scaledBeta * g, r >>> 11)) {
                     continue;
                 }
             }

@@ -153,6 +153,24 @@ class InterleavedKernelTest extends QuietTest {
     }
 
     @Test
+    void scaledBracketDecidesAsTheExactComparison() {
+        // x = c·g and its table index from (32c)·g, as the signed kernel computes them, against
+        // u < StrictMath.exp(−x); c and g over many magnitudes, subnormal products included.
+        Seeds.forEachCase(5, 10250, (rng, seed) -> {
+            for (int t = 0; t < 200_000; t++) {
+                double c = Math.scalb(rng.nextDouble() + 0.5, rng.nextInt(20) - 10);
+                double g = rng.nextInt(20) == 0 ? Math.scalb(rng.nextDouble(), -1060) : Math.scalb(rng.nextDouble(), rng.nextInt(16) - 8);
+                double x = c * g;
+                double exact = StrictMath.exp(-x);
+                long near = (long) Math.floor(exact * 0x1p53) + rng.nextInt(5) - 2;
+                long m = rng.nextBoolean() ? rng.nextLong() >>> 11 : Math.max(0, Math.min((1L << 53) - 1, near));
+                assertThat(ExponentialBracket.acceptsBits(x, (c / ExponentialBracket.STEP) * g, m))
+                        .as("c %s, g %s, m %d", c, g, m).isEqualTo(m * 0x1p-53 < exact);
+            }
+        });
+    }
+
+    @Test
     void signedKernelTakesTheDecisionsOfTheDoubleKernel() {
         // Gaussian couplings and fields (inexact sums, where rounding could part the two forms),
         // β from 0 (every move taken) to hot enough that few uphill moves are.
