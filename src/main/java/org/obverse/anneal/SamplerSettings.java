@@ -21,7 +21,12 @@ public final class SamplerSettings {
         /** One read at a time, maintained local fields, bracketing exponential table. */
         EXACT,
         /** 64 reads a word; only for problems with one coupling magnitude (see {@link MultiSpinCoding}). */
-        MULTI_SPIN
+        MULTI_SPIN,
+        /**
+         * 64 reads a word on the same problems, with twelve random words drawn at every spin
+         * visit (see {@link SteadyMultiSpin}): faster in vector lanes, other reads for a seed.
+         */
+        MULTI_SPIN_STEADY
     }
 
     /** Which sampling method runs the reads. */
