@@ -17,7 +17,7 @@ import org.obverse.samples.SampleBlock;
  *
  * <p>Reproducible: read r (exact kernel) draws its start state, its noise and every
  * Metropolis number from its own generator {@code RandomStreams.generator(seed, READS, r)}; with
- * the multi-spin kernel, 64-read word w uses {@code generator(seed, WORDS, w)}. Work is split
+ * either multi-spin kernel, 64-read word w uses {@code generator(seed, WORDS, w)}. Work is split
  * into 64-read blocks over the worker threads, so the output never depends on the thread
  * count. Reads start from uniformly random spins.
  *
@@ -26,7 +26,8 @@ import org.obverse.samples.SampleBlock;
  * bare state ({@link MetropolisKernels#sweepIntegerBranchFree}): the same decisions from the
  * same random numbers, so the same reads, in less time. The multi-spin kernel sweeps its
  * blocks four at a time or as vector lanes ({@link MultiSpinCoding#sweepLanes}), again with
- * each block's own draws in their own order.
+ * each block's own draws in their own order; the steady multi-spin kernel
+ * ({@link SteadyMultiSpin}) sweeps its blocks as lanes, with its own per-block draw rule.
  *
  * <p>Cost: sweeps × (spins + 2 × couplers) per read; the exact kernel keeps one copy of the
  * problem's arrays per thread.

@@ -21,9 +21,9 @@ import org.obverse.model.IsingProblem;
  * <p>Why a second rule: {@link MultiSpinCoding} draws its ten fixed words only where a block
  * has an uphill read and leaves about three blocks in 64 to a one-block finish after them;
  * both need per-block branches or masks in the lane loops. Here every lane draws the same
- * number of words, so the lane loops have none, and after twelve words a block is left
- * undecided at a visit about once in 22 (measured: about 1.2 × the old rule's lane kernel per
- * CPU-ns on the 16 × 16 K4,4 glass, spec/sampling.md). The rule is per block, so the reads
+ * number of words, so the lane loops have none, and after twelve words about one block in 80
+ * is left undecided at a visit (45 uphill reads · 2⁻¹²) (measured: 1.3 × the old rule's lane kernel per CPU-ns on the
+ * 16 × 16 K4,4 glass, spec/sampling.md). The rule is per block, so the reads
  * do not depend on how blocks are grouped into lanes or threads; they differ from
  * {@link MultiSpinCoding}'s reads for the same seed (other draws), with the same distribution.
  *
