@@ -128,26 +128,28 @@ public final class DecodeCommand implements Callable<Integer> {
             for (DecodeStep.GaugeDone g : res.done()) {
                 reads += g.decoded().reads();
                 kept += g.decoded().keptReads();
-                w.printf("%s: %d reads, %d kept; %.6f of reads have a broken chain%n", g.folder().getFileName(),
-                        g.decoded().reads(), g.decoded().keptReads(), g.decoded().brokenReadFraction());
+                w.println(g.folder().getFileName() + ": " + g.decoded().reads() + " reads, " + g.decoded().keptReads()
+                        + " kept; " + Decimals.fixed(g.decoded().brokenReadFraction(), 6) + " of reads have a broken chain");
             }
-            w.printf("decoded %d gauges (%s): %d reads, %d kept%s%n", res.done().size(), r.label(), reads, kept,
-                    res.missing().isEmpty() ? "" : "; skipped gauges without reads: " + res.missing());
-            w.printf("wrote %s%n", output.path());
+            w.println("decoded " + res.done().size() + " gauges (" + r.label() + "): " + reads + " reads, " + kept + " kept"
+                    + (res.missing().isEmpty() ? "" : "; skipped gauges without reads: " + res.missing()));
+            w.println("wrote " + output.path());
             return Main.DONE;
         }
         DecodeStep.Result res = DecodeStep.run(new DecodeStep.Request(problem, logical, chains, samples, r, seed, coding,
                 output.path(), labels == null ? null : labels.withGauge(gauge == null ? -1 : gauge), force.on()));
         DecodedSamples d = res.decoded();
-        w.printf("%d reads, %d kept (%s); broken chains: %.6f of all chain readings, %.6f of reads have one%n", d.reads(),
-                d.keptReads(), r.label(), d.brokenFraction(), d.brokenReadFraction());
+        // Plain concatenation, not printf: see Decimals.
+        w.println(d.reads() + " reads, " + d.keptReads() + " kept (" + r.label() + "); broken chains: "
+                + Decimals.fixed(d.brokenFraction(), 6) + " of all chain readings, "
+                + Decimals.fixed(d.brokenReadFraction(), 6) + " of reads have one");
         int worst = res.mostBroken();
         if (worst >= 0) {
             int id = res.logical().id(worst);
-            w.printf("most broken: chain of logical %d (length %d), broken in %d reads%n",
-                    id, res.chains().chainOf(id).length, d.breaksPerChain()[worst]);
+            w.println("most broken: chain of logical " + id + " (length " + res.chains().chainOf(id).length
+                    + "), broken in " + d.breaksPerChain()[worst] + " reads");
         }
-        w.printf("wrote %s%n", output.path());
+        w.println("wrote " + output.path());
         return Main.DONE;
     }
 

@@ -9,8 +9,6 @@ import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.List;
-import java.util.Map;
-import java.util.function.Supplier;
 import org.obverse.anneal.InvalidEnergyScalesException;
 import org.obverse.embed.EmbeddingNotFoundException;
 import org.obverse.io.BadInputException;
@@ -31,23 +29,32 @@ public final class Main implements Runnable {
     /**
      * The verbs in the order the usage lists them. Added by hand rather than through the
      * annotation so that a run builds only the verb it runs: picocli reflects over every
-     * registered command when it is added, a tenth of a second of every short command.
+     * registered command when it is added, a tenth of a second of every short command. Made by
+     * {@link #verb} (a plain switch: a constructor reference per verb would load every
+     * command's class).
      */
-    private static final List<Map.Entry<String, Supplier<Object>>> VERBS = List.of(
-            Map.entry("help", CommandLine.HelpCommand::new),
-            Map.entry("gauge", GaugeCommand::new),
-            Map.entry("ungauge", UngaugeCommand::new),
-            Map.entry("audit", AuditCommand::new),
-            Map.entry("energy", EnergyCommand::new),
-            Map.entry("device", DeviceCommand::new),
-            Map.entry("embed", EmbedCommand::new),
-            Map.entry("decode", DecodeCommand::new),
-            Map.entry("score", ScoreCommand::new),
-            Map.entry("report", ReportCommand::new),
-            Map.entry("sample", SampleCommand::new),
-            Map.entry("spectrum", SpectrumCommand::new),
-            Map.entry("campaign", CampaignCommand::new),
-            Map.entry("demo", DemoCommand::new));
+    private static final List<String> VERBS = List.of("help", "gauge", "ungauge", "audit", "energy", "device", "embed",
+            "decode", "score", "report", "sample", "spectrum", "campaign", "demo");
+
+    private static Object verb(String name) {
+        switch (name) {
+            case "help": return new CommandLine.HelpCommand();
+            case "gauge": return new GaugeCommand();
+            case "ungauge": return new UngaugeCommand();
+            case "audit": return new AuditCommand();
+            case "energy": return new EnergyCommand();
+            case "device": return new DeviceCommand();
+            case "embed": return new EmbedCommand();
+            case "decode": return new DecodeCommand();
+            case "score": return new ScoreCommand();
+            case "report": return new ReportCommand();
+            case "sample": return new SampleCommand();
+            case "spectrum": return new SpectrumCommand();
+            case "campaign": return new CampaignCommand();
+            case "demo": return new DemoCommand();
+            default: throw new IllegalArgumentException("no verb " + name);
+        }
+    }
 
     public static final int DONE = 0;
     public static final int CHECK_FAILED = 1;
@@ -97,10 +104,10 @@ public final class Main implements Runnable {
      */
     static CommandLine commandLine(String first) {
         CommandLine cl = new CommandLine(new Main());
-        boolean one = first != null && !first.equals("help") && VERBS.stream().anyMatch(v -> v.getKey().equals(first));
-        for (Map.Entry<String, Supplier<Object>> v : VERBS) {
-            if (!one || v.getKey().equals(first)) {
-                cl.addSubcommand(v.getKey(), v.getValue().get());
+        boolean one = first != null && !first.equals("help") && VERBS.contains(first);
+        for (String v : VERBS) {
+            if (!one || v.equals(first)) {
+                cl.addSubcommand(v, verb(v));
             }
         }
         cl.setParameterExceptionHandler((ex, args) -> {

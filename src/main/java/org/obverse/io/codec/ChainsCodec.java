@@ -59,7 +59,7 @@ public final class ChainsCodec {
     }
 
     public static ObjectNode toJson(ChainList c) {
-        ObjectNode root = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode root = JsonFiles.newObject();
         root.put("format", "obverse." + KIND + "/1");
         ArrayNode a = root.putArray("chains");
         int[] ids = c.logicalIds();

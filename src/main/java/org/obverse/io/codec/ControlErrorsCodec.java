@@ -62,7 +62,7 @@ public final class ControlErrorsCodec {
 
     /** The JSON object of a model. */
     public static ObjectNode toJson(ControlErrors e) {
-        ObjectNode root = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode root = JsonFiles.newObject();
         root.put("format", "obverse." + KIND + "/1");
         root.put("seed", e.deviceSeed());
         root.put("field_sigma", e.fieldSigma());

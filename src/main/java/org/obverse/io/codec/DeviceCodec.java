@@ -110,7 +110,7 @@ public final class DeviceCodec {
     }
 
     public static ObjectNode toJson(DeviceLimits d) {
-        ObjectNode root = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode root = JsonFiles.newObject();
         root.put("format", "obverse." + KIND + "/1");
         range(root.putArray("field"), d.fieldRange());
         range(root.putArray("coupling"), d.couplingRange());

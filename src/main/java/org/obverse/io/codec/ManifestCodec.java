@@ -146,7 +146,7 @@ public final class ManifestCodec {
     }
 
     public static ObjectNode toJson(GaugeManifest m) {
-        ObjectNode root = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode root = JsonFiles.newObject();
         root.put("format", "obverse." + KIND + "/1");
         ObjectNode src = root.putObject("source");
         putSource(src, "problem", m.problem());

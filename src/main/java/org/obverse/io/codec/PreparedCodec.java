@@ -18,7 +18,7 @@ public final class PreparedCodec {
 
     /** The document's text. */
     public static String text(String inputsSha256, int jobs) {
-        ObjectNode prepared = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode prepared = JsonFiles.newObject();
         prepared.put("format", FORMAT);
         prepared.put("inputs_sha256", inputsSha256);
         prepared.put("jobs", jobs);

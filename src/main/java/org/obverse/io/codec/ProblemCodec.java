@@ -127,7 +127,7 @@ public final class ProblemCodec {
 
     /** The JSON object of a spin problem. */
     public static ObjectNode toJson(IsingProblem p, ObjectNode meta) {
-        ObjectNode root = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode root = JsonFiles.newObject();
         root.put("format", "obverse." + KIND + "/1");
         root.put("domain", "spin");
         VariableIndex ids = p.variables();
@@ -151,7 +151,7 @@ public final class ProblemCodec {
 
     /** The JSON object of a binary problem. */
     public static ObjectNode toJson(BinaryProblem p, ObjectNode meta) {
-        ObjectNode root = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode root = JsonFiles.newObject();
         root.put("format", "obverse." + KIND + "/1");
         root.put("domain", "binary");
         VariableIndex ids = p.variables();
@@ -204,7 +204,7 @@ public final class ProblemCodec {
 
     /** The physical problem file of an embedding: the problem with the embedding block as its meta. */
     public static ProblemFile embedded(IsingProblem physical, EmbeddingMeta m) {
-        ObjectNode meta = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode meta = JsonFiles.newObject();
         meta.put("scale", m.scale());
         meta.put("chain_coupling", m.chainCoupling());
         meta.put("chain_coupling_mode", m.chainCouplingMode());
@@ -221,7 +221,7 @@ public final class ProblemCodec {
      * added as {@code meta.gauge} (replacing one the source had, in its place).
      */
     public static ProblemFile gauged(ProblemFile source, IsingProblem gauged, GaugeMeta g) {
-        ObjectNode meta = source.meta() == null ? JsonFiles.MAPPER.createObjectNode() : source.meta().deepCopy();
+        ObjectNode meta = source.meta() == null ? JsonFiles.newObject() : source.meta().deepCopy();
         ObjectNode gm = meta.putObject(GAUGE);
         gm.put("index", g.index());
         gm.put("source_sha256", g.sourceSha256());

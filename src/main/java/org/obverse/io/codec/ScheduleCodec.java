@@ -56,7 +56,7 @@ public final class ScheduleCodec {
 
     /** The JSON object of a schedule (default slope limit, so it is left out). */
     public static ObjectNode toJson(AnnealSchedule schedule) {
-        ObjectNode root = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode root = JsonFiles.newObject();
         root.put("format", "obverse." + KIND + "/1");
         ArrayNode points = root.putArray("points");
         for (int k = 0; k < schedule.pointCount(); k++) {

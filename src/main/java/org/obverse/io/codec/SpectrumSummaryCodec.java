@@ -92,7 +92,7 @@ public final class SpectrumSummaryCodec {
     }
 
     private static ObjectNode base(EnergyScales sched, ScanSettings scan) {
-        ObjectNode s = JsonFiles.MAPPER.createObjectNode();
+        ObjectNode s = JsonFiles.newObject();
         s.put("format", FORMAT);
         s.put("hamiltonian", "H(s) = -(A(s)/2) sum_i X_i + (B(s)/2) H_P(Z)");
         s.put("schedule", sched.name());

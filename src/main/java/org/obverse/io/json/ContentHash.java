@@ -40,14 +40,14 @@ public final class ContentHash {
             List<String> keys = new ArrayList<>();
             n.fieldNames().forEachRemaining(keys::add);
             Collections.sort(keys);
-            ObjectNode out = JsonFiles.MAPPER.createObjectNode();
+            ObjectNode out = JsonFiles.newObject();
             for (String k : keys) {
                 out.set(k, sorted(n.get(k)));
             }
             return out;
         }
         if (n.isArray()) {
-            ArrayNode out = JsonFiles.MAPPER.createArrayNode();
+            ArrayNode out = JsonFiles.newArray();
             for (JsonNode c : n) {
                 out.add(sorted(c));
             }

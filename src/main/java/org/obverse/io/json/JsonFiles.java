@@ -11,6 +11,8 @@ import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.json.JsonMapper;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Path;
@@ -22,15 +24,35 @@ import java.nio.file.Path;
  * numbers, no NaN).
  */
 public final class JsonFiles {
-    /** The shared mapper: duplicate keys refused, doubles written in shortest round-trip form. */
-    public static final ObjectMapper MAPPER = JsonMapper.builder()
-            .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
-            .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
-            .disable(JsonParser.Feature.ALLOW_NON_NUMERIC_NUMBERS)
-            .disable(SerializationFeature.FAIL_ON_EMPTY_BEANS)
-            .build();
-
     private JsonFiles() {
+    }
+
+    /**
+     * The shared mapper, for writing (doubles in shortest round-trip form); reading goes through
+     * {@link JsonTreeReader}. Made on first use: a command that only reads JSON never pays for
+     * setting it up.
+     */
+    public static ObjectMapper mapper() {
+        return Mapper.INSTANCE;
+    }
+
+    private static final class Mapper {
+        static final ObjectMapper INSTANCE = JsonMapper.builder()
+                .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+                .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+                .disable(JsonParser.Feature.ALLOW_NON_NUMERIC_NUMBERS)
+                .disable(SerializationFeature.FAIL_ON_EMPTY_BEANS)
+                .build();
+    }
+
+    /** A new empty JSON object (the node factory every reader and writer here uses). */
+    public static ObjectNode newObject() {
+        return JsonNodeFactory.instance.objectNode();
+    }
+
+    /** A new empty JSON array. */
+    public static ArrayNode newArray() {
+        return JsonNodeFactory.instance.arrayNode();
     }
 
     /**
@@ -52,9 +74,11 @@ public final class JsonFiles {
     public static ObjectNode parse(Path file, String text, String kind) {
         JsonNode root;
         try {
-            root = MAPPER.readTree(text);
+            root = JsonTreeReader.read(text);
         } catch (JsonProcessingException e) {
             throw syntax(file, e);
+        } catch (IOException e) {
+            throw BadInputException.at(file, "", "cannot be parsed (" + e.getMessage() + ")", "fix the file");
         }
         return checkFormat(file, root, kind);
     }
@@ -63,7 +87,7 @@ public final class JsonFiles {
     public static ObjectNode parse(Path file, byte[] bytes, String kind) {
         JsonNode root;
         try {
-            root = MAPPER.readTree(bytes);
+            root = JsonTreeReader.read(bytes);
         } catch (JsonProcessingException e) {
             throw syntax(file, e);
         } catch (IOException e) {
@@ -99,7 +123,7 @@ public final class JsonFiles {
     /** Pretty JSON text, with a final newline. */
     public static String text(JsonNode node) {
         try {
-            return MAPPER.writerWithDefaultPrettyPrinter().writeValueAsString(node) + "\n";
+            return mapper().writerWithDefaultPrettyPrinter().writeValueAsString(node) + "\n";
         } catch (JsonProcessingException e) {
             throw new IllegalStateException("cannot serialise JSON", e);
         }
@@ -108,7 +132,7 @@ public final class JsonFiles {
     /** Compact JSON text, used for canonical hashing. */
     public static String compact(JsonNode node) {
         try {
-            return MAPPER.writeValueAsString(node);
+            return mapper().writeValueAsString(node);
         } catch (JsonProcessingException e) {
             throw new IllegalStateException("cannot serialise JSON", e);
         }

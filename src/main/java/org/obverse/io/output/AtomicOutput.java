@@ -341,7 +341,7 @@ public final class AtomicOutput {
                 if (!force && Files.exists(abs, LinkOption.NOFOLLOW_LINKS)) {
                     throw exists(target);
                 }
-                Path tmp = Files.createTempDirectory(parent, "." + name + TMP_TAG);
+                Path tmp = TemporaryNames.folder(parent, "." + name + TMP_TAG);
                 // Registered at once, so that SIGTERM or Ctrl-C from here on removes it.
                 Publication p = new Publication(abs, tmp, force, lockFile, ch, lock);
                 register(p);

@@ -40,7 +40,7 @@ public final class PendingFile implements Closeable {
             if (!force && Files.exists(abs, LinkOption.NOFOLLOW_LINKS)) {
                 throw BadInputException.at(target, "", "already exists", "choose another output or pass --force to replace it");
             }
-            Path tmp = Files.createTempFile(abs.getParent(), "." + abs.getFileName() + ".", ".part");
+            Path tmp = TemporaryNames.file(abs.getParent(), "." + abs.getFileName() + ".", ".part");
             try {
                 return new PendingFile(abs, tmp, FileChannel.open(tmp, StandardOpenOption.WRITE), null);
             } catch (IOException | RuntimeException e) {

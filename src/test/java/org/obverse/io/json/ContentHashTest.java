@@ -40,7 +40,7 @@ class ContentHashTest extends QuietTest {
                 canonical.append(v instanceof String ? "\"" + v + "\"" : v.toString());
             });
             canonical.append('}');
-            JsonNode shuffled = JsonFiles.MAPPER.valueToTree(shuffledCopy(values, rng));
+            JsonNode shuffled = JsonFiles.mapper().valueToTree(shuffledCopy(values, rng));
             assertThat(ContentHash.of(shuffled))
                     .as("seed %d", seed)
                     .isEqualTo(ContentHash.sha256(canonical.toString().getBytes(StandardCharsets.UTF_8)));
@@ -51,11 +51,11 @@ class ContentHashTest extends QuietTest {
     void layoutAndKeyOrderNeverChangeTheHashAndAnyValueDoes() throws Exception {
         Seeds.forEachCase(200, 0x6a5b_12L, (rng, seed) -> {
             TreeMap<String, Object> values = randomFlatObject(rng);
-            String pretty = JsonFiles.MAPPER.writerWithDefaultPrettyPrinter()
+            String pretty = JsonFiles.mapper().writerWithDefaultPrettyPrinter()
                     .writeValueAsString(shuffledCopy(values, rng));
-            String compact = JsonFiles.MAPPER.writeValueAsString(values);
-            String base = ContentHash.of(JsonFiles.MAPPER.readTree(compact));
-            assertThat(ContentHash.of(JsonFiles.MAPPER.readTree(pretty))).as("seed %d", seed).isEqualTo(base);
+            String compact = JsonFiles.mapper().writeValueAsString(values);
+            String base = ContentHash.of(JsonFiles.mapper().readTree(compact));
+            assertThat(ContentHash.of(JsonFiles.mapper().readTree(pretty))).as("seed %d", seed).isEqualTo(base);
 
             // Change one value by one unit: the hash must change.
             List<String> keys = new ArrayList<>(values.keySet());
@@ -63,7 +63,7 @@ class ContentHashTest extends QuietTest {
             TreeMap<String, Object> changed = new TreeMap<>(values);
             Object v = changed.get(key);
             changed.put(key, v instanceof String ? v + "x" : ((Integer) v) + 1);
-            assertThat(ContentHash.of(JsonFiles.MAPPER.valueToTree(changed))).as("seed %d", seed).isNotEqualTo(base);
+            assertThat(ContentHash.of(JsonFiles.mapper().valueToTree(changed))).as("seed %d", seed).isNotEqualTo(base);
         });
     }
 
@@ -72,9 +72,9 @@ class ContentHashTest extends QuietTest {
         String a = "{\"b\": {\"y\": 1, \"x\": [3, 2]}, \"a\": 0}";
         String b = "{\"a\": 0, \"b\": {\"x\": [3, 2], \"y\": 1}}";
         String swapped = "{\"a\": 0, \"b\": {\"x\": [2, 3], \"y\": 1}}";
-        assertThat(ContentHash.of(JsonFiles.MAPPER.readTree(a))).isEqualTo(ContentHash.of(JsonFiles.MAPPER.readTree(b)));
-        assertThat(ContentHash.of(JsonFiles.MAPPER.readTree(a))).isNotEqualTo(ContentHash.of(JsonFiles.MAPPER.readTree(swapped)));
-        assertThat(ContentHash.of(JsonFiles.MAPPER.readTree(a))).isEqualTo(ContentHash.sha256(
+        assertThat(ContentHash.of(JsonFiles.mapper().readTree(a))).isEqualTo(ContentHash.of(JsonFiles.mapper().readTree(b)));
+        assertThat(ContentHash.of(JsonFiles.mapper().readTree(a))).isNotEqualTo(ContentHash.of(JsonFiles.mapper().readTree(swapped)));
+        assertThat(ContentHash.of(JsonFiles.mapper().readTree(a))).isEqualTo(ContentHash.sha256(
                 "{\"a\":0,\"b\":{\"x\":[3,2],\"y\":1}}".getBytes(StandardCharsets.UTF_8)));
     }
 
