@@ -13,8 +13,9 @@ import org.obverse.model.IsingProblem;
  * <p>Each uphill read compares its own uniform U, one bit per word from the most significant
  * end, with the threshold P(d, m) = ⌊exp(−β ΔE)·2⁶³⌋·2 of {@link MultiSpinCoding#thresholds},
  * and flips where U &lt; P: the Metropolis acceptance min(1, exp(−β ΔE)) (Metropolis et al.,
- * J. Chem. Phys. 21, 1087, 1953) with a probability off by less than 2⁻⁶² (the threshold's
- * rounding; a read still undecided after all 64 bits has U = P and is refused). Reads at a
+ * J. Chem. Phys. 21, 1087, 1953) with a probability off by less than 2⁻⁶³ (the threshold's
+ * truncation) plus the error of {@code StrictMath.exp} (below 1 ulp); a read still undecided
+ * after all 64 bits has U = P and is refused. Reads at a
  * level or downhill move flip without a draw. The bits of a word that no undecided read looks
  * at are not used again.
  *
