@@ -63,8 +63,10 @@ public final class MultiSpinCoding {
         this.padSame = new long[PADDED * n];
         for (int k = 0; k < n; k++) {
             sixPadded[k] = !hasGhost[k] && start[k + 1] - start[k] <= PADDED;
+            // Padded wherever there are at most six neighbours, field or not (SteadyMultiSpin
+            // counts the field as a seventh term).
             int j = 0;
-            for (int q = start[k]; sixPadded[k] && q < start[k + 1]; q++, j++) {
+            for (int q = start[k]; start[k + 1] - start[k] <= PADDED && q < start[k + 1]; q++, j++) {
                 padNeighbour[PADDED * k + j] = neighbour[q];
                 padSame[PADDED * k + j] = sameIsUnsatisfied[q];
             }

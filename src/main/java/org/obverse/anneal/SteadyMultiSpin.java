@@ -196,17 +196,17 @@ public final class SteadyMultiSpin {
      * {@link #sweep} for {@code lanes.count()} blocks at once, each with its own generator state
      * in {@code lanes}: every block ends exactly as {@link #sweep} leaves it (the same draws in
      * the same order). {@code bits} holds the blocks interleaved: spin k of lane i at
-     * {@code bits[k·lanes + i]}. A spin without a field and with at most six neighbours (the
-     * K4,4 cell grid) is one lane loop that counts, twelve lane loops that draw and decide, and
-     * a one-lane finish for the blocks still undecided; any other spin takes the one-lane step
-     * of {@link #sweep} lane by lane.
+     * {@code bits[k·lanes + i]}. A spin with at most six neighbours (the K4,4 cell grid), with
+     * or without a field, is one lane loop that counts, twelve lane loops that draw and decide,
+     * and a one-lane finish for the blocks still undecided; a spin with more neighbours takes
+     * the one-lane step of {@link #sweep} lane by lane.
      */
     public void sweepLanes(long[] bits, long[] thresholds, Lanes lanes) {
         MultiSpinCoding c = coding;
         int m = lanes.count;
         for (int k = 0; k < c.n; k++) {
-            if (c.sixPadded[k]) {
-                sixTermVisit(bits, k, thresholds, lanes);
+            if (c.start[k + 1] - c.start[k] <= MultiSpinCoding.PADDED) {
+                paddedVisit(bits, k, thresholds, lanes);
             } else {
                 int row = k * m;
                 for (int i = 0; i < m; i++) {
@@ -217,13 +217,15 @@ public final class SteadyMultiSpin {
     }
 
     /**
-     * Spin k (no field, at most six neighbours, padded to six) of every lane. An uphill read
-     * has count m = 0, 1 or 2: m = 1 where plane a0 is set, m = 2 where a1 is, so the threshold
-     * bit of its level is h0 ^ (a0 &amp; (h0 ^ h1)) ^ (a1 &amp; (h0 ^ h2)), two planes instead of
-     * three level masks. The flips start as the reads that are not uphill and gain every read
-     * decided below its threshold.
+     * Spin k (at most six neighbours, padded to six, and its field if it has one: at most seven
+     * terms) of every lane. The count of unsatisfied terms, a0 + 2·a1 + 4·a2, comes from three
+     * full adders; an uphill read has count m &lt; 4, so a2 = 0 and the threshold bit of its
+     * level is the choice h0 ^ (a0 &amp; (h0 ^ h1)) ^ (a1 &amp; (h0 ^ h2)) ^ (a0 &amp; a1 &amp;
+     * (h0 ^ h1 ^ h2 ^ h3)) by its planes a0, a1: two planes in place of four level masks. The
+     * flips start as the reads that are not uphill and gain every read decided below its
+     * threshold.
      */
-    private void sixTermVisit(long[] bits, int k, long[] thresholds, Lanes lanes) {
+    private void paddedVisit(long[] bits, int k, long[] thresholds, Lanes lanes) {
         MultiSpinCoding c = coding;
         int m = lanes.count;
         long[] s0 = lanes.s0;
@@ -248,9 +250,13 @@ public final class SteadyMultiSpin {
         long u3 = c.padSame[o + 3];
         long u4 = c.padSame[o + 4];
         long u5 = c.padSame[o + 5];
+        // The field's term b ^ g where there is one, else 0 (never unsatisfied).
+        long fieldOn = c.hasGhost[k] ? -1L : 0L;
+        long g = c.ghostMask[k];
         long on0 = uphillLevels > 0 ? -1L : 0L;
         long on1 = uphillLevels > 1 ? -1L : 0L;
         long on2 = uphillLevels > 2 ? -1L : 0L;
+        long on3 = uphillLevels > 3 ? -1L : 0L;
         for (int i = 0; i < m; i++) {
             long b = bits[row + i];
             long x0 = b ^ bits[r0 + i] ^ u0;
@@ -259,19 +265,22 @@ public final class SteadyMultiSpin {
             long x3 = b ^ bits[r3 + i] ^ u3;
             long x4 = b ^ bits[r4 + i] ^ u4;
             long x5 = b ^ bits[r5 + i] ^ u5;
-            // Two full adders, then the count a0 + 2·a1 + 4·a2 of unsatisfied terms.
+            long x6 = (b ^ g) & fieldOn;
             long y01 = x0 ^ x1;
             long sa = y01 ^ x2;
             long ca = (x0 & x1) | (x2 & y01);
             long y34 = x3 ^ x4;
             long sb = y34 ^ x5;
             long cb = (x3 & x4) | (x5 & y34);
-            long a0 = sa ^ sb;
-            long k0 = sa & sb;
+            long yab = sa ^ sb;
+            long a0 = yab ^ x6;
+            long k0 = (sa & sb) | (x6 & yab);
             long z = ca ^ cb;
             long a1 = z ^ k0;
             long a2 = (ca & cb) | (k0 & z);
-            long up = (~(a0 | a1 | a2) & on0) | (a0 & ~(a1 | a2) & on1) | (a1 & ~(a0 | a2) & on2);
+            long na0 = ~a0;
+            long na1 = ~a1;
+            long up = ~a2 & ((na1 & na0 & on0) | (na1 & a0 & on1) | (a1 & na0 & on2) | (a1 & a0 & on3));
             one[i] = a0;
             two[i] = a1;
             und[i] = up;
@@ -281,19 +290,28 @@ public final class SteadyMultiSpin {
         long p0 = uphillLevels > 0 ? thresholds[base] : 0;
         long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
         long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
+        long p3 = uphillLevels > 3 ? thresholds[base + 3] : 0;
+        // A level that is not uphill has no reads: its bit counts as set for "every bit set".
+        long offMask1 = ~on1;
+        long offMask2 = ~on2;
+        long offMask3 = ~on3;
         for (int bit = 0; bit < FIXED_WORDS; bit++) {
             long h0 = p0 >> 63;
             long h1 = p1 >> 63;
             long h2 = p2 >> 63;
+            long h3 = p3 >> 63;
             p0 <<= 1;
             p1 <<= 1;
             p2 <<= 1;
-            if ((h0 | h1 | h2) == 0) {
+            p3 <<= 1;
+            if ((h0 | h1 | h2 | h3) == 0) {
                 drawAndRefuse(m, s0, s1, und);
-            } else if ((h0 & h1 & h2) == -1L) {
+            } else if ((h0 & (h1 | offMask1) & (h2 | offMask2) & (h3 | offMask3)) == -1L) {
                 drawAndTake(m, s0, s1, und, flip);
-            } else {
+            } else if (on3 == 0) {
                 drawAndDecide(m, s0, s1, und, flip, one, two, h0, h0 ^ h1, h0 ^ h2);
+            } else {
+                drawAndDecide4(m, s0, s1, und, flip, one, two, h0, h0 ^ h1, h0 ^ h2, h0 ^ h1 ^ h2 ^ h3);
             }
         }
         long left = 0;
@@ -301,10 +319,29 @@ public final class SteadyMultiSpin {
             left |= und[i];
         }
         if (left != 0) {
-            finish(m, s0, s1, und, flip, one, two, p0, p1, p2);
+            finish(m, s0, s1, und, flip, one, two, p0, p1, p2, p3);
         }
         for (int i = 0; i < m; i++) {
             bits[row + i] ^= flip[i];
+        }
+    }
+
+    /** {@link #drawAndDecide} with a fourth level (count 3, both planes set). */
+    private static void drawAndDecide4(int m, long[] s0, long[] s1, long[] und, long[] flip, long[] one, long[] two,
+                                       long h0, long g1, long g2, long g3) {
+        for (int i = 0; i < m; i++) {
+            long x = s0[i];
+            long y = s1[i];
+            long r = Long.rotateLeft(x + y, 17) + x;
+            long t = y ^ x;
+            s0[i] = Long.rotateLeft(x, 49) ^ t ^ (t << 21);
+            s1[i] = Long.rotateLeft(t, 28);
+            long a0 = one[i];
+            long a1 = two[i];
+            long pb = h0 ^ (a0 & g1) ^ (a1 & g2) ^ (a0 & a1 & g3);
+            long un = und[i];
+            flip[i] |= un & ~r & pb;
+            und[i] = un & ~(r ^ pb);
         }
     }
 
@@ -361,7 +398,7 @@ public final class SteadyMultiSpin {
      * them): one word per bit, lane by lane, until decided or the 64 bits are used.
      */
     private static void finish(int m, long[] s0, long[] s1, long[] und, long[] flip, long[] one, long[] two, long p0,
-                               long p1, long p2) {
+                               long p1, long p2, long p3) {
         for (int i = 0; i < m; i++) {
             long undecided = und[i];
             if (undecided == 0) {
@@ -372,15 +409,19 @@ public final class SteadyMultiSpin {
             long q0 = p0;
             long q1 = p1;
             long q2 = p2;
+            long q3 = p3;
             long a = s0[i];
             long y = s1[i];
             long taken = 0;
             for (int bit = FIXED_WORDS; bit < 64 && undecided != 0; bit++) {
                 long h0 = q0 >> 63;
-                long pb = h0 ^ (a0 & (h0 ^ (q1 >> 63))) ^ (a1 & (h0 ^ (q2 >> 63)));
+                long h1 = q1 >> 63;
+                long h2 = q2 >> 63;
+                long pb = h0 ^ (a0 & (h0 ^ h1)) ^ (a1 & (h0 ^ h2)) ^ (a0 & a1 & (h0 ^ h1 ^ h2 ^ (q3 >> 63)));
                 q0 <<= 1;
                 q1 <<= 1;
                 q2 <<= 1;
+                q3 <<= 1;
                 long r = Long.rotateLeft(a + y, 17) + a;
                 long t = y ^ a;
                 a = Long.rotateLeft(a, 49) ^ t ^ (t << 21);

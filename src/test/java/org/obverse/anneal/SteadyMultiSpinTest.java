@@ -25,12 +25,22 @@ class SteadyMultiSpinTest extends QuietTest {
 
     @Test
     void laneSweepEqualsOneBlockSweepsBitForBit() {
-        // Lanes 1 to 70, spins with up to 15 terms and fields (the one-lane path), the cell grid
-        // (the six-term lane path), beta 0 (every uphill move taken) to 20 (nearly none).
+        // Lanes 1 to 70, spins with more than six neighbours (the one-lane path), the cell grid
+        // and spins with at most six neighbours, with and without fields (the padded lane path,
+        // three and four uphill levels), beta 0 (every uphill move taken) to 20 (nearly none).
         Seeds.forEachCase(60, 12_500, (rng, seed) -> {
             IsingProblem p = rng.nextInt(3) == 0
                     ? SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3), SpinGlasses.Couplings.PLUS_MINUS_ONE, rng)
                     : MultiSpinFourWordTest.randomPlusMinus(rng);
+            if (rng.nextBoolean() && p.edgeCount() > 0) {
+                // Fields ±c on some spins: seven terms at a grid spin (four uphill levels).
+                double c = Math.abs(p.coupling(0));
+                double[] h = new double[p.size()];
+                for (int k = 0; k < h.length; k++) {
+                    h[k] = p.degree(k) <= 6 && rng.nextInt(3) > 0 ? (rng.nextBoolean() ? c : -c) : 0;
+                }
+                p = IsingProblem.of(p.variables(), h, p.edgeUs(), p.edgeVs(), p.couplings(), 0.0);
+            }
             SteadyMultiSpin kernel = SteadyMultiSpin.of(p);
             int n = p.size();
             int m = rng.nextInt(4) == 0 ? 1 + rng.nextInt(70) : 1 + rng.nextInt(20);
