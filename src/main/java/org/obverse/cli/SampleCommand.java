@@ -163,19 +163,11 @@ public final class SampleCommand implements Callable<Integer> {
             ControlErrors e = ControlErrorsCodec.read(errors);
             s = s.withErrors(e);
         }
-        switch (kernel) {
-            case "exact":
-                break;
-            case "multi-spin":
-                s = s.withKernel(SamplerSettings.Kernel.MULTI_SPIN);
-                break;
-            case "multi-spin-steady":
-                s = s.withKernel(SamplerSettings.Kernel.MULTI_SPIN_STEADY);
-                break;
-            default:
-                throw new BadInputException("--kernel " + kernel + ": unknown kernel; use exact, multi-spin or "
-                        + "multi-spin-steady");
+        SamplerSettings.Kernel k = SamplerSettings.Kernel.byLabel(kernel);
+        if (k == null) {
+            throw new BadInputException("--kernel " + kernel + ": unknown kernel; use " + SamplerSettings.Kernel.labels());
         }
+        s = s.withKernel(k);
         if (!(sweepsPerMicrosecond > 0) || !Double.isFinite(sweepsPerMicrosecond)) {
             throw new BadInputException("--sweeps-per-us " + sweepsPerMicrosecond + ": need a finite number > 0");
         }
