@@ -10,6 +10,7 @@ import org.obverse.anneal.BetaRange;
 import org.obverse.anneal.MetropolisKernels;
 import org.obverse.anneal.MultiSpinCoding;
 import org.obverse.anneal.SamplerSettings;
+import org.obverse.anneal.SteadyMultiSpin;
 import org.obverse.model.IsingProblem;
 import org.obverse.problems.SpinGlasses;
 import org.openjdk.jmh.annotations.Benchmark;
@@ -51,7 +52,11 @@ import org.openjdk.jmh.runner.options.OptionsBuilder;
  * bare state that the sampler runs, on the Gaussian glass of the same cells;</li>
  * <li>{@code multiSpinBareState}, {@code multiSpinFourWordsBareState} (1 and 2 threads),
  * {@code multiSpinLanes} (1 and 2 threads), {@code multiSpinLanesOne}, {@code multiSpinLanesFour}: the
- * multi-spin kernels, 64 reads a word (64 attempts per spin visit) on one, four or 64 blocks.</li>
+ * multi-spin kernels, 64 reads a word (64 attempts per spin visit) on one, four or 64 blocks;</li>
+ * <li>{@code multiSpinSteadyLanes} (1 and 2 threads), {@code multiSpinSteadyLanesWide} (1 and 2
+ * threads): the steady multi-spin kernel ({@link SteadyMultiSpin}, twelve words every visit) on
+ * 64 and 128 blocks as lanes, and {@code multiSpinLanesWide}, the first one on 128: the
+ * samplers' units from 8,192 reads a thread are 128 blocks.</li>
  * </ul>
  * Scores are attempts/ns of wall time (JMH sums the threads). The machine these run on is
  * shared, so each benchmark also counts the attempts and the thread CPU time it used
@@ -71,6 +76,8 @@ public class SamplerBench {
     static final int SWEEPS = 8;
     /** Blocks swept together by the lane kernel, as the sampler does for 4,096 reads a thread or more. */
     static final int LANES = 64;
+    /** Blocks swept together where a thread gets 8,192 reads or more (both multi-spin kernels). */
+    static final int WIDE_LANES = 128;
 
     /** The problem, shared read-only. */
     @State(Scope.Benchmark)
@@ -89,6 +96,7 @@ public class SamplerBench {
         int[] fourTerms;
         double[] betas;
         MultiSpinCoding coding;
+        SteadyMultiSpin steady;
         long[][] thresholds;
         // The Gaussian glass on the same cells: its couplings (rows and padded) and anneal.
         double[] gaussCoupling;
@@ -132,6 +140,7 @@ public class SamplerBench {
             padCoupling = MetropolisKernels.padded(N, start, intCoupling, degree, false);
             fourTerms = MetropolisKernels.interleavedTerms(padNeighbour, padCoupling);
             coding = MultiSpinCoding.of(problem);
+            steady = SteadyMultiSpin.of(problem);
             thresholds = new long[betas.length][MultiSpinCoding.thresholdLength()];
             for (int k = 0; k < betas.length; k++) {
                 coding.thresholds(betas[k], thresholds[k]);
@@ -172,6 +181,12 @@ public class SamplerBench {
         long[] signedState;
         long[] laneWords;
         MultiSpinCoding.Lanes lanes;
+        long[] steadyWords;
+        SteadyMultiSpin.Lanes steadyLanes;
+        long[] wideWords;
+        MultiSpinCoding.Lanes wideLanes;
+        long[] steadyWideWords;
+        SteadyMultiSpin.Lanes steadyWideLanes;
         // The lane kernel on one block and on four (the sampler's small cases).
         long[] laneWords1;
         MultiSpinCoding.Lanes lanes1;
@@ -239,6 +254,24 @@ public class SamplerBench {
             }
             for (int i = 0; i < LANES; i++) {
                 lanes.setState(i, rng.nextLong(), rng.nextLong());
+            }
+            steadyLanes = new SteadyMultiSpin.Lanes(LANES);
+            steadyWords = laneWords.clone();
+            for (int i = 0; i < LANES; i++) {
+                steadyLanes.setState(i, rng.nextLong(), rng.nextLong());
+            }
+            wideWords = new long[N * WIDE_LANES];
+            for (int i = 0; i < wideWords.length; i++) {
+                wideWords[i] = rng.nextLong();
+            }
+            steadyWideWords = wideWords.clone();
+            wideLanes = new MultiSpinCoding.Lanes(WIDE_LANES);
+            steadyWideLanes = new SteadyMultiSpin.Lanes(WIDE_LANES);
+            for (int i = 0; i < WIDE_LANES; i++) {
+                long a = rng.nextLong();
+                long b = rng.nextLong();
+                wideLanes.setState(i, a, b);
+                steadyWideLanes.setState(i, a, b);
             }
             laneWords1 = words.clone();
             lanes1 = new MultiSpinCoding.Lanes(1);
@@ -471,6 +504,53 @@ public class SamplerBench {
         return r.laneWords[0];
     }
 
+    /** The first multi-spin kernel on 128 blocks as lanes (the sampler's units from 8,192 reads a thread). */
+    @Benchmark
+    @OperationsPerInvocation(WIDE_LANES * 64 * N)
+    public long multiSpinLanesWide(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        p.coding.sweepLanes(r.wideWords, p.thresholds[r.nextSweep(p.betas.length)], r.wideLanes);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += WIDE_LANES * 64 * N;
+        return r.wideWords[0];
+    }
+
+    /** The steady kernel on 128 blocks as lanes: what {@code sample --kernel multi-spin-steady} runs from 8,192 reads a thread. */
+    @Benchmark
+    @OperationsPerInvocation(WIDE_LANES * 64 * N)
+    public long multiSpinSteadyLanesWide(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        p.steady.sweepLanes(r.steadyWideWords, p.thresholds[r.nextSweep(p.betas.length)], r.steadyWideLanes);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += WIDE_LANES * 64 * N;
+        return r.steadyWideWords[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(WIDE_LANES * 64 * N)
+    public long multiSpinSteadyLanesWideTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return multiSpinSteadyLanesWide(p, r, c);
+    }
+
+    /** The steady kernel on 64 blocks as lanes (like for like with {@code multiSpinLanes}). */
+    @Benchmark
+    @OperationsPerInvocation(LANES * 64 * N)
+    public long multiSpinSteadyLanes(Problem p, Replica r, CpuCounters c) {
+        long t0 = c.now();
+        p.steady.sweepLanes(r.steadyWords, p.thresholds[r.nextSweep(p.betas.length)], r.steadyLanes);
+        c.cpuNanos += c.now() - t0;
+        c.attempts += LANES * 64 * N;
+        return r.steadyWords[0];
+    }
+
+    @Benchmark
+    @Threads(2)
+    @OperationsPerInvocation(LANES * 64 * N)
+    public long multiSpinSteadyLanesTwoThreads(Problem p, Replica r, CpuCounters c) {
+        return multiSpinSteadyLanes(p, r, c);
+    }
+
     /** The lane kernel on one block: what the sampler runs for a last block of its own. */
     @Benchmark
     @OperationsPerInvocation(64 * N)
@@ -539,7 +619,9 @@ public class SamplerBench {
                 "exactIntegerFour", "exactIntegerFourTwoThreads", "baselineGaussian", "exactGaussian",
                 "exactGaussianSigned",
                 "multiSpinBareState", "multiSpinFourWordsBareState", "multiSpinFourWordsBareStateTwoThreads",
-                "multiSpinLanes", "multiSpinLanesTwoThreads", "multiSpinLanesOne", "multiSpinLanesFour"}) {
+                "multiSpinLanes", "multiSpinLanesTwoThreads", "multiSpinLanesOne", "multiSpinLanesFour",
+                "multiSpinLanesWide", "multiSpinSteadyLanes", "multiSpinSteadyLanesTwoThreads", "multiSpinSteadyLanesWide",
+                "multiSpinSteadyLanesWideTwoThreads"}) {
             if (!score.containsKey(k)) {
                 continue;
             }
@@ -554,7 +636,16 @@ public class SamplerBench {
             System.out.printf("multi-spin, four words / one: %.2f%n",
                     score.get("multiSpinFourWordsBareState") / score.get("multiSpinBareState"));
         }
-        for (String k : new String[] {"exact", "exactInteger", "exactIntegerFour", "multiSpinFourWordsBareState"}) {
+        if (perCpu.containsKey("multiSpinLanes") && perCpu.containsKey("multiSpinSteadyLanes")) {
+            System.out.printf("multi-spin per CPU-ns, steady lanes / lanes (64): %.2f%n",
+                    perCpu.get("multiSpinSteadyLanes") / perCpu.get("multiSpinLanes"));
+        }
+        if (perCpu.containsKey("multiSpinLanesWide") && perCpu.containsKey("multiSpinSteadyLanesWide")) {
+            System.out.printf("multi-spin per CPU-ns, steady lanes / lanes (128): %.2f%n",
+                    perCpu.get("multiSpinSteadyLanesWide") / perCpu.get("multiSpinLanesWide"));
+        }
+        for (String k : new String[] {"exact", "exactInteger", "exactIntegerFour", "multiSpinFourWordsBareState",
+                "multiSpinLanes", "multiSpinSteadyLanes", "multiSpinSteadyLanesWide"}) {
             if (score.containsKey(k) && score.containsKey(k + "TwoThreads")) {
                 System.out.printf("wall-clock, two threads / one: %s %.2f%n", k, score.get(k + "TwoThreads") / score.get(k));
             }

@@ -24,20 +24,29 @@ import org.obverse.model.IsingProblem;
 public final class MultiSpinCoding {
     /** Largest number of terms (neighbours plus field) of one spin. */
     public static final int MAX_TERMS = 15;
-    private static final int LEVELS = 8;
+    static final int LEVELS = 8;
     /** Threshold bits always drawn before the loop stops at the first fully decided word. */
     private static final int FIXED_ROUNDS = 10;
+    /** Neighbours a spin of the padded lane path has (missing ones padded). */
+    static final int PADDED = 6;
 
-    private final int n;
+    final int n;
     private final double magnitude;
-    private final int[] start;
-    private final int[] neighbour;
+    final int[] start;
+    final int[] neighbour;
+    // The prepared problem, package-private: SteadyMultiSpin sweeps the same form.
     // -1 (all reads) where the coupling is antiferromagnetic (J > 0): then equal spins are unsatisfied.
-    private final long[] sameIsUnsatisfied;
+    final long[] sameIsUnsatisfied;
     // Ghost term of spin k: bit pattern b_k ^ ghostMask[k] is "unsatisfied"; hasGhost[k] says whether k has a field.
-    private final long[] ghostMask;
-    private final boolean[] hasGhost;
-    private final int[] terms;
+    final long[] ghostMask;
+    final boolean[] hasGhost;
+    final int[] terms;
+    // Spins without a field and with at most six neighbours (all of the K4,4 cell grid): their
+    // neighbours padded to six a spin, a missing one as the spin itself with an "unsatisfied"
+    // mask of 0 (b ^ b ^ 0 = 0 is never unsatisfied), so that one lane loop counts all six.
+    final boolean[] sixPadded;
+    final int[] padNeighbour;
+    final long[] padSame;
 
     private MultiSpinCoding(int n, double magnitude, int[] start, int[] neighbour, long[] sameIsUnsatisfied,
                             long[] ghostMask, boolean[] hasGhost, int[] terms) {
@@ -49,6 +58,22 @@ public final class MultiSpinCoding {
         this.ghostMask = ghostMask;
         this.hasGhost = hasGhost;
         this.terms = terms;
+        this.sixPadded = new boolean[n];
+        this.padNeighbour = new int[PADDED * n];
+        this.padSame = new long[PADDED * n];
+        for (int k = 0; k < n; k++) {
+            sixPadded[k] = !hasGhost[k] && start[k + 1] - start[k] <= PADDED;
+            // Padded wherever there are at most six neighbours, field or not (SteadyMultiSpin
+            // counts the field as a seventh term).
+            int j = 0;
+            for (int q = start[k]; start[k + 1] - start[k] <= PADDED && q < start[k + 1]; q++, j++) {
+                padNeighbour[PADDED * k + j] = neighbour[q];
+                padSame[PADDED * k + j] = sameIsUnsatisfied[q];
+            }
+            for (; j < PADDED; j++) {
+                padNeighbour[PADDED * k + j] = k;
+            }
+        }
     }
 
     /** Why the problem cannot be multi-spin coded, or null where it can. */
@@ -418,6 +443,10 @@ public final class MultiSpinCoding {
             int d = terms[k];
             int uphillLevels = (d + 1) >>> 1;
             int row = k * m;
+            if (sixPadded[k]) {
+                sixTermVisit(bits, k, thresholds, lanes);
+                continue;
+            }
             if (uphillLevels > 3) {
                 for (int i = 0; i < m; i++) {
                     one[0] = s0[i];
@@ -524,6 +553,145 @@ public final class MultiSpinCoding {
             for (int i = 0; i < m; i++) {
                 bits[row + i] ^= ~(e0[i] | e1[i] | e2[i]) | below[i];
             }
+        }
+    }
+
+    /**
+     * One visit of spin k (no field, at most six neighbours) in {@link #sweepLanes}: the same
+     * draws and decisions as the general lane step, in fewer and larger loops. The six padded
+     * terms are counted by two full adders in one lane loop (no count arrays), and each fixed
+     * round draws and decides in one loop. Measured: the general lane step spends most of its
+     * time in loop overhead and in loads and stores of its scratch arrays, not in the draws.
+     */
+    private void sixTermVisit(long[] bits, int k, long[] thresholds, Lanes lanes) {
+        int m = lanes.count;
+        long[] s0 = lanes.s0;
+        long[] s1 = lanes.s1;
+        long[] e0 = lanes.e0;
+        long[] e1 = lanes.e1;
+        long[] e2 = lanes.e2;
+        long[] und = lanes.undecided;
+        long[] below = lanes.below;
+        long[] keep = lanes.keep;
+        int d = terms[k];
+        int uphillLevels = (d + 1) >>> 1;
+        int row = k * m;
+        int o = PADDED * k;
+        int r0 = padNeighbour[o] * m;
+        int r1 = padNeighbour[o + 1] * m;
+        int r2 = padNeighbour[o + 2] * m;
+        int r3 = padNeighbour[o + 3] * m;
+        int r4 = padNeighbour[o + 4] * m;
+        int r5 = padNeighbour[o + 5] * m;
+        long u0 = padSame[o];
+        long u1 = padSame[o + 1];
+        long u2 = padSame[o + 2];
+        long u3 = padSame[o + 3];
+        long u4 = padSame[o + 4];
+        long u5 = padSame[o + 5];
+        long on0 = uphillLevels > 0 ? -1L : 0L;
+        long on1 = uphillLevels > 1 ? -1L : 0L;
+        long on2 = uphillLevels > 2 ? -1L : 0L;
+        for (int i = 0; i < m; i++) {
+            long b = bits[row + i];
+            long x0 = b ^ bits[r0 + i] ^ u0;
+            long x1 = b ^ bits[r1 + i] ^ u1;
+            long x2 = b ^ bits[r2 + i] ^ u2;
+            long x3 = b ^ bits[r3 + i] ^ u3;
+            long x4 = b ^ bits[r4 + i] ^ u4;
+            long x5 = b ^ bits[r5 + i] ^ u5;
+            // Two full adders give two sums and two carries; the count is a0 + 2·a1 + 4·a2.
+            long y01 = x0 ^ x1;
+            long sa = y01 ^ x2;
+            long ca = (x0 & x1) | (x2 & y01);
+            long y34 = x3 ^ x4;
+            long sb = y34 ^ x5;
+            long cb = (x3 & x4) | (x5 & y34);
+            long a0 = sa ^ sb;
+            long k0 = sa & sb;
+            long z = ca ^ cb;
+            long a1 = z ^ k0;
+            long a2 = (ca & cb) | (k0 & z);
+            long f0 = ~(a0 | a1 | a2) & on0;
+            long f1 = a0 & ~(a1 | a2) & on1;
+            long f2 = a1 & ~(a0 | a2) & on2;
+            e0[i] = f0;
+            e1[i] = f1;
+            e2[i] = f2;
+            und[i] = f0 | f1 | f2;
+            below[i] = 0;
+        }
+        long some = 0;
+        long all = -1L;
+        for (int i = 0; i < m; i++) {
+            long u = und[i];
+            long kp = (u | -u) >> 63;
+            keep[i] = kp;
+            some |= kp;
+            all &= kp;
+        }
+        int base = d * LEVELS;
+        long p0 = uphillLevels > 0 ? thresholds[base] : 0;
+        long p1 = uphillLevels > 1 ? thresholds[base + 1] : 0;
+        long p2 = uphillLevels > 2 ? thresholds[base + 2] : 0;
+        if (some != 0) {
+            if (all == 0) {
+                System.arraycopy(s0, 0, lanes.saved0, 0, m);
+                System.arraycopy(s1, 0, lanes.saved1, 0, m);
+            }
+            for (int bit = 0; bit < FIXED_ROUNDS; bit++) {
+                long h0 = p0 >> 63;
+                long h1 = p1 >> 63;
+                long h2 = p2 >> 63;
+                p0 <<= 1;
+                p1 <<= 1;
+                p2 <<= 1;
+                drawAndDecide(m, s0, s1, und, below, e0, e1, e2, h0, h1, h2);
+            }
+            if (all == 0) {
+                restore(m, s0, lanes.saved0, keep);
+                restore(m, s1, lanes.saved1, keep);
+            }
+        } else {
+            p0 <<= FIXED_ROUNDS;
+            p1 <<= FIXED_ROUNDS;
+            p2 <<= FIXED_ROUNDS;
+        }
+        long left = 0;
+        for (int i = 0; i < m; i++) {
+            left |= und[i];
+        }
+        if (left != 0) {
+            long[] one = lanes.one;
+            for (int i = 0; i < m; i++) {
+                if (und[i] != 0) {
+                    one[0] = s0[i];
+                    one[1] = s1[i];
+                    below[i] |= finishLane(und[i], e0[i], p0, e1[i], p1, e2[i], p2, one, 0);
+                    s0[i] = one[0];
+                    s1[i] = one[1];
+                }
+            }
+        }
+        for (int i = 0; i < m; i++) {
+            bits[row + i] ^= ~(e0[i] | e1[i] | e2[i]) | below[i];
+        }
+    }
+
+    /** One fixed round in one loop: every lane's next word, compared with the threshold bit. */
+    private static void drawAndDecide(int m, long[] s0, long[] s1, long[] und, long[] below, long[] e0, long[] e1,
+                                      long[] e2, long h0, long h1, long h2) {
+        for (int i = 0; i < m; i++) {
+            long x = s0[i];
+            long y = s1[i];
+            long r = Long.rotateLeft(x + y, 17) + x;
+            long t = y ^ x;
+            s0[i] = Long.rotateLeft(x, 49) ^ t ^ (t << 21);
+            s1[i] = Long.rotateLeft(t, 28);
+            long pb = (e0[i] & h0) | (e1[i] & h1) | (e2[i] & h2);
+            long un = und[i];
+            below[i] |= un & ~r & pb;
+            und[i] = un & ~(r ^ pb);
         }
     }
 

@@ -19,9 +19,45 @@ public final class SamplerSettings {
     /** Which Metropolis kernel runs the reads. */
     public enum Kernel {
         /** One read at a time, maintained local fields, bracketing exponential table. */
-        EXACT,
+        EXACT("exact"),
         /** 64 reads a word; only for problems with one coupling magnitude (see {@link MultiSpinCoding}). */
-        MULTI_SPIN
+        MULTI_SPIN("multi-spin"),
+        /**
+         * 64 reads a word on the same problems, with twelve random words drawn at every spin
+         * visit (see {@link SteadyMultiSpin}): faster in vector lanes, other reads for a seed.
+         */
+        MULTI_SPIN_STEADY("multi-spin-steady");
+
+        private final String label;
+
+        Kernel(String label) {
+            this.label = label;
+        }
+
+        /** The name commands and campaign plans use. */
+        public String label() {
+            return label;
+        }
+
+        /** The kernel of that name, or null. */
+        public static Kernel byLabel(String label) {
+            for (Kernel k : values()) {
+                if (k.label.equals(label)) {
+                    return k;
+                }
+            }
+            return null;
+        }
+
+        /** Every name, as "a, b or c" for messages. */
+        public static String labels() {
+            Kernel[] v = values();
+            StringBuilder b = new StringBuilder();
+            for (int i = 0; i < v.length; i++) {
+                b.append(i == 0 ? "" : i == v.length - 1 ? " or " : ", ").append(v[i].label);
+            }
+            return b.toString();
+        }
     }
 
     /** Which sampling method runs the reads. */

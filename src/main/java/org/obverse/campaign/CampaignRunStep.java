@@ -165,8 +165,9 @@ public final class CampaignRunStep {
                     : EnergyScalesTable.read(s.energyScales(), s.energyUnits());
             return settings.withPathIntegral(new PathIntegralSettings(scales, s.temperature(), s.slices()));
         }
-        if ("multi-spin".equals(s.kernel())) {
-            settings = settings.withKernel(SamplerSettings.Kernel.MULTI_SPIN);
+        SamplerSettings.Kernel kernel = SamplerSettings.Kernel.byLabel(s.kernel());
+        if (kernel != null) {
+            settings = settings.withKernel(kernel);
         }
         return settings;
     }

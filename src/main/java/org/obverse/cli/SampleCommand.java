@@ -66,7 +66,7 @@ public final class SampleCommand implements Callable<Integer> {
             description = "samples file (.npy or .csv) with --problem; a folder (must not exist) with --manifest")
     Path out;
 
-    @Option(names = "--kernel", paramLabel = "K", description = "exact (default) or multi-spin (one coupling magnitude, no errors)")
+    @Option(names = "--kernel", paramLabel = "K", description = "exact (default), multi-spin or multi-spin-steady (one coupling magnitude, no errors)")
     String kernel = "exact";
 
     @Option(names = "--sweeps-per-us", paramLabel = "X", description = "Metropolis sweeps per microsecond of schedule (default 1000)")
@@ -163,15 +163,11 @@ public final class SampleCommand implements Callable<Integer> {
             ControlErrors e = ControlErrorsCodec.read(errors);
             s = s.withErrors(e);
         }
-        switch (kernel) {
-            case "exact":
-                break;
-            case "multi-spin":
-                s = s.withKernel(SamplerSettings.Kernel.MULTI_SPIN);
-                break;
-            default:
-                throw new BadInputException("--kernel " + kernel + ": unknown kernel; use exact or multi-spin");
+        SamplerSettings.Kernel k = SamplerSettings.Kernel.byLabel(kernel);
+        if (k == null) {
+            throw new BadInputException("--kernel " + kernel + ": unknown kernel; use " + SamplerSettings.Kernel.labels());
         }
+        s = s.withKernel(k);
         if (!(sweepsPerMicrosecond > 0) || !Double.isFinite(sweepsPerMicrosecond)) {
             throw new BadInputException("--sweeps-per-us " + sweepsPerMicrosecond + ": need a finite number > 0");
         }

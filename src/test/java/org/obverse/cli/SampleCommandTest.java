@@ -112,6 +112,40 @@ class SampleCommandTest extends CommandTestSupport {
     }
 
     @Test
+    void steadyMultiSpinKernelSamplesAPlusMinusOneGlass() throws Exception {
+        IsingProblem p = org.obverse.problems.SpinGlasses.cellGrid(2, 2,
+                org.obverse.problems.SpinGlasses.Couplings.PLUS_MINUS_ONE, org.obverse.testsupport.Seeds.rng(31));
+        Path glass = dir.resolve("glass.json");
+        ProblemCodec.write(glass, false, ProblemFile.of(p, null));
+        Path out = dir.resolve("steady.npy");
+        Run r = obverse("sample", "--problem", glass.toString(), "--reads", "300", "--seed", "8", "--kernel",
+                "multi-spin-steady", "--out", out.toString());
+        assertThat(r.code()).as(r.err()).isZero();
+        assertEnergiesMatch(p, out, dir.resolve("steady.energies.npy"), 300);
+        // One thread: the same bytes; the first multi-spin kernel: other reads (other draws).
+        Path one = dir.resolve("one.npy");
+        Run r1 = obverse("sample", "--problem", glass.toString(), "--reads", "300", "--seed", "8", "--kernel",
+                "multi-spin-steady", "--threads", "1", "--out", one.toString());
+        assertThat(r1.code()).as(r1.err()).isZero();
+        assertThat(Files.readAllBytes(one)).isEqualTo(Files.readAllBytes(out));
+        Path first = dir.resolve("first.npy");
+        Run r2 = obverse("sample", "--problem", glass.toString(), "--reads", "300", "--seed", "8", "--kernel",
+                "multi-spin", "--out", first.toString());
+        assertThat(r2.code()).as(r2.err()).isZero();
+        assertThat(Files.readAllBytes(first)).isNotEqualTo(Files.readAllBytes(out));
+
+        Run bad = obverse("sample", "--problem", problem.toString(), "--reads", "5", "--seed", "1", "--kernel",
+                "multi-spin-steady", "--out", dir.resolve("v.npy").toString());
+        assertThat(bad.code()).isEqualTo(Main.BAD_INPUT);
+        assertThat(bad.err()).contains("multi-spin coding needs every coupling");
+        Run unknown = obverse("sample", "--problem", glass.toString(), "--reads", "5", "--seed", "1", "--kernel",
+                "fast", "--out", dir.resolve("u.npy").toString());
+        assertThat(unknown.code()).isEqualTo(Main.BAD_INPUT);
+        assertThat(unknown.err()).contains("--kernel fast: unknown kernel; use exact, multi-spin or multi-spin-steady");
+        assertThat(Files.exists(dir.resolve("v.npy"))).isFalse();
+    }
+
+    @Test
     void badInputGetsOneLineAndExitTwo() throws Exception {
         Path badSchedule = dir.resolve("bad-schedule.json");
         Files.writeString(badSchedule, "{\"format\": \"obverse.schedule/1\", \"points\": [[0, 0], [1, 0.5], [2, 0.4], [3, 1]]}");

@@ -15,6 +15,7 @@ import java.util.List;
 import java.util.Set;
 import java.util.regex.Pattern;
 import org.obverse.anneal.PathIntegralSettings;
+import org.obverse.anneal.SamplerSettings;
 
 /**
  * Reads {@code obverse.campaign/1} (spec/campaign.md) into a {@link CampaignPlan}. Every
@@ -23,6 +24,10 @@ import org.obverse.anneal.PathIntegralSettings;
  * are made where the device is read, by the prepare step.
  */
 public final class CampaignPlanCodec {
+    /** The sampler kernels a plan may name: those of the sample command. */
+    private static final String[] KERNELS = java.util.Arrays.stream(SamplerSettings.Kernel.values())
+            .map(SamplerSettings.Kernel::label).toArray(String[]::new);
+
     public static final String KIND = "campaign";
 
     /** Names that become file names: letters, digits, '.', '_' and '-', not starting with '.'. */
@@ -297,7 +302,7 @@ public final class CampaignPlanCodec {
         }
         Path errors = s.hasNonNull("errors") ? existingFile(s.get("errors"), "sampler.errors") : null;
         if (kind.equals("sa")) {
-            String kernel = s.has("kernel") ? oneOf(s.get("kernel"), "sampler.kernel", "exact", "multi-spin") : "exact";
+            String kernel = s.has("kernel") ? oneOf(s.get("kernel"), "sampler.kernel", KERNELS) : "exact";
             return new CampaignPlan.Sampler("sa", sweeps, kernel, errors, null, null, Double.NaN, 0);
         }
         Path scales = s.hasNonNull("energy_scales") ? existingFile(s.get("energy_scales"), "sampler.energy_scales") : null;

@@ -22,6 +22,7 @@ import java.io.IOException;
 final class JsonTreeReader {
     private static final JsonFactory FACTORY = JsonFactory.builder()
             .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+            .enable(StreamReadFeature.USE_FAST_DOUBLE_PARSER)
             .build();
     private static final JsonNodeFactory NODES = JsonNodeFactory.instance;
 

@@ -53,6 +53,12 @@ class CampaignPlanCodecTest extends QuietTest {
         assertThat(p.sampler().kind()).isEqualTo("sa");
         assertThat(p.sampler().sweepsPerUs()).isEqualTo(1000.0);
         assertThat(p.seed()).isEqualTo(5L);
+        assertThat(p.sampler().kernel()).isEqualTo("exact");
+        for (String k : List.of("multi-spin", "multi-spin-steady")) {
+            CampaignPlan q = CampaignPlanCodec.read(plan(GOOD.replace("\"seed\": 5",
+                    "\"seed\": 5, \"sampler\": {\"kind\": \"sa\", \"kernel\": \"" + k + "\"}")));
+            assertThat(q.sampler().kernel()).isEqualTo(k);
+        }
     }
 
     @Test
@@ -79,6 +85,8 @@ class CampaignPlanCodecTest extends QuietTest {
         refused(GOOD.replace("\"seed\": 5", "\"seed\": 5, \"sampler\": {\"kind\": \"sa\", \"sweeps_per_us\": -1}"),
                 "sampler.sweeps_per_us: -1.0 is not positive");
         refused(GOOD.replace("\"pause_us\": [0.5], ", ""), "schedules.pause_us: is missing or empty while pause_s is given");
+        refused(GOOD.replace("\"seed\": 5", "\"seed\": 5, \"sampler\": {\"kind\": \"sa\", \"kernel\": \"fast\"}"),
+                "sampler.kernel: is \"fast\", not one of exact, multi-spin, multi-spin-steady");
         refused(GOOD.replace("\"obverse.campaign/1\"", "\"obverse.campaign/2\""), "\"format\": is \"obverse.campaign/2\"");
     }
 
