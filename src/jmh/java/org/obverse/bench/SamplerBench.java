@@ -182,11 +182,11 @@ public class SamplerBench {
         long[] laneWords;
         MultiSpinCoding.Lanes lanes;
         long[] steadyWords;
-        SteadyMultiSpin.Lanes steadyLanes;
+        MultiSpinCoding.Lanes steadyLanes;
         long[] wideWords;
         MultiSpinCoding.Lanes wideLanes;
         long[] steadyWideWords;
-        SteadyMultiSpin.Lanes steadyWideLanes;
+        MultiSpinCoding.Lanes steadyWideLanes;
         // The lane kernel on one block and on four (the sampler's small cases).
         long[] laneWords1;
         MultiSpinCoding.Lanes lanes1;
@@ -255,7 +255,7 @@ public class SamplerBench {
             for (int i = 0; i < LANES; i++) {
                 lanes.setState(i, rng.nextLong(), rng.nextLong());
             }
-            steadyLanes = new SteadyMultiSpin.Lanes(LANES);
+            steadyLanes = new MultiSpinCoding.Lanes(LANES);
             steadyWords = laneWords.clone();
             for (int i = 0; i < LANES; i++) {
                 steadyLanes.setState(i, rng.nextLong(), rng.nextLong());
@@ -266,7 +266,7 @@ public class SamplerBench {
             }
             steadyWideWords = wideWords.clone();
             wideLanes = new MultiSpinCoding.Lanes(WIDE_LANES);
-            steadyWideLanes = new SteadyMultiSpin.Lanes(WIDE_LANES);
+            steadyWideLanes = new MultiSpinCoding.Lanes(WIDE_LANES);
             for (int i = 0; i < WIDE_LANES; i++) {
                 long a = rng.nextLong();
                 long b = rng.nextLong();

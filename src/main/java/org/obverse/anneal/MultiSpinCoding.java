@@ -353,23 +353,23 @@ public final class MultiSpinCoding {
     }
 
     /**
-     * The working arrays of {@link #sweepLanes} for a number of 64-read blocks (lanes): the
-     * generator state of each lane ({@link XoroshiroState}) and scratch, one array per
-     * quantity so that the lane loops compile to vector instructions. Not shared between
-     * threads.
+     * The working arrays of {@link #sweepLanes} and {@link SteadyMultiSpin#sweepLanes} for a
+     * number of 64-read blocks (lanes): the generator state of each lane ({@link XoroshiroState})
+     * and scratch, one array per quantity so that the lane loops compile to vector
+     * instructions. Not shared between threads.
      */
     public static final class Lanes {
-        private final int count;
-        private final long[] s0;
-        private final long[] s1;
+        final int count;
+        final long[] s0;
+        final long[] s1;
         private final long[] c0;
         private final long[] c1;
         private final long[] c2;
-        private final long[] e0;
-        private final long[] e1;
+        final long[] e0;
+        final long[] e1;
         private final long[] e2;
-        private final long[] undecided;
-        private final long[] below;
+        final long[] undecided;
+        final long[] below;
         private final long[] keep;
         private final long[] draw;
         private final long[] saved0;

@@ -483,11 +483,11 @@ public final class ReferenceSampler {
             final long[] thresholds = new long[MultiSpinCoding.thresholdLength()];
             final byte[] row;
             final long[] bits;
-            final SteadyMultiSpin.Lanes lanes;
+            final MultiSpinCoding.Lanes lanes;
 
             Workspace(int n, int lanes) {
                 bits = new long[n * lanes];
-                this.lanes = new SteadyMultiSpin.Lanes(lanes);
+                this.lanes = new MultiSpinCoding.Lanes(lanes);
                 row = new byte[n];
             }
         }
@@ -510,7 +510,7 @@ public final class ReferenceSampler {
             int n = kernel.size();
             // A last short unit gets working arrays of its own size.
             long[] bits = m == lanes ? ws.bits : new long[n * m];
-            SteadyMultiSpin.Lanes state = m == lanes ? ws.lanes : new SteadyMultiSpin.Lanes(m);
+            MultiSpinCoding.Lanes state = m == lanes ? ws.lanes : new MultiSpinCoding.Lanes(m);
             for (int i = 0; i < m; i++) {
                 long[] s = RandomStreams.state(seed, StreamPurpose.WORDS, first + i);
                 for (int k = 0; k < n; k++) {

@@ -149,50 +149,6 @@ public final class SteadyMultiSpin {
     }
 
     /**
-     * The working arrays of {@link #sweepLanes} for a number of 64-read blocks (lanes): each
-     * lane's generator state ({@link XoroshiroState}) and scratch, one array per quantity so
-     * that the lane loops compile to vector instructions. Not shared between threads.
-     */
-    public static final class Lanes {
-        private final int count;
-        private final long[] s0;
-        private final long[] s1;
-        private final long[] e0;
-        private final long[] e1;
-        private final long[] undecided;
-        private final long[] below;
-
-        /** Working arrays for {@code count} ≥ 1 lanes. */
-        public Lanes(int count) {
-            if (count < 1) {
-                throw new IllegalArgumentException("lanes " + count + " must be >= 1");
-            }
-            this.count = count;
-            s0 = new long[count];
-            s1 = new long[count];
-            e0 = new long[count];
-            e1 = new long[count];
-            undecided = new long[count];
-            below = new long[count];
-        }
-
-        public int count() {
-            return count;
-        }
-
-        /** Sets the generator state of a lane. */
-        public void setState(int lane, long a, long b) {
-            s0[lane] = a;
-            s1[lane] = b;
-        }
-
-        /** The generator state of a lane, {a, b}, as a new array. */
-        public long[] state(int lane) {
-            return new long[] {s0[lane], s1[lane]};
-        }
-    }
-
-    /**
      * {@link #sweep} for {@code lanes.count()} blocks at once, each with its own generator state
      * in {@code lanes}: every block ends exactly as {@link #sweep} leaves it (the same draws in
      * the same order). {@code bits} holds the blocks interleaved: spin k of lane i at
@@ -201,7 +157,7 @@ public final class SteadyMultiSpin {
      * and a one-lane finish for the blocks still undecided; a spin with more neighbours takes
      * the one-lane step of {@link #sweep} lane by lane.
      */
-    public void sweepLanes(long[] bits, long[] thresholds, Lanes lanes) {
+    public void sweepLanes(long[] bits, long[] thresholds, MultiSpinCoding.Lanes lanes) {
         MultiSpinCoding c = coding;
         int m = lanes.count;
         for (int k = 0; k < c.n; k++) {
@@ -225,7 +181,7 @@ public final class SteadyMultiSpin {
      * flips start as the reads that are not uphill and gain every read decided below its
      * threshold.
      */
-    private void paddedVisit(long[] bits, int k, long[] thresholds, Lanes lanes) {
+    private void paddedVisit(long[] bits, int k, long[] thresholds, MultiSpinCoding.Lanes lanes) {
         MultiSpinCoding c = coding;
         int m = lanes.count;
         long[] s0 = lanes.s0;

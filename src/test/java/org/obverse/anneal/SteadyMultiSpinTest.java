@@ -47,7 +47,7 @@ class SteadyMultiSpinTest extends QuietTest {
             long[][] ref = new long[m][n];
             long[] bits = new long[n * m];
             long[][] refState = new long[m][];
-            SteadyMultiSpin.Lanes lanes = new SteadyMultiSpin.Lanes(m);
+            MultiSpinCoding.Lanes lanes = new MultiSpinCoding.Lanes(m);
             for (int i = 0; i < m; i++) {
                 for (int k = 0; k < n; k++) {
                     ref[i][k] = rng.nextLong();
