@@ -111,43 +111,7 @@ class BranchFreeKernelTest extends QuietTest {
                     ? SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3), SpinGlasses.Couplings.PLUS_MINUS_ONE, rng)
                     : MultiSpinFourWordTest.randomPlusMinus(rng);
             MultiSpinCoding coding = MultiSpinCoding.of(p);
-            int n = p.size();
-            int m = rng.nextInt(4) == 0 ? 1 + rng.nextInt(70) : 1 + rng.nextInt(20);
-            long[][] ref = new long[m][n];
-            long[] bits = new long[n * m];
-            long[][] refState = new long[m][];
-            MultiSpinCoding.Lanes lanes = new MultiSpinCoding.Lanes(m);
-            for (int i = 0; i < m; i++) {
-                for (int k = 0; k < n; k++) {
-                    ref[i][k] = rng.nextLong();
-                    bits[k * m + i] = ref[i][k];
-                }
-                long a = rng.nextLong();
-                long b = rng.nextLong();
-                refState[i] = new long[] {a, b};
-                lanes.setState(i, a, b);
-            }
-            long[] thresholds = new long[MultiSpinCoding.thresholdLength()];
-            int sweeps = 1 + rng.nextInt(5);
-            for (int t = 0; t < sweeps; t++) {
-                // Large beta too: then almost every uphill read is refused in the first rounds,
-                // and lanes without an uphill read (no draws) occur.
-                double beta = rng.nextInt(5) == 0 ? 0.0 : rng.nextInt(4) == 0 ? 20 * rng.nextDouble() : rng.nextDouble() * 3;
-                coding.thresholds(beta, thresholds);
-                for (int i = 0; i < m; i++) {
-                    coding.sweep(ref[i], thresholds, refState[i]);
-                }
-                coding.sweepLanes(bits, thresholds, lanes);
-                for (int i = 0; i < m; i++) {
-                    for (int k = 0; k < n; k++) {
-                        assertThat(bits[k * m + i]).as("lane %d of %d, spin %d, sweep %d", i, m, k, t).isEqualTo(ref[i][k]);
-                    }
-                }
-            }
-            for (int i = 0; i < m; i++) {
-                assertThat(XoroshiroState.next(lanes.state(i))).as("lane %d state", i)
-                        .isEqualTo(XoroshiroState.next(refState[i]));
-            }
+            LaneCheck.lanesEqualBlocksAlone(LaneCheck.of(coding), p.size(), rng);
         });
     }
 }

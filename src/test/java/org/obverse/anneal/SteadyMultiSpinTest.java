@@ -42,40 +42,7 @@ class SteadyMultiSpinTest extends QuietTest {
                 p = IsingProblem.of(p.variables(), h, p.edgeUs(), p.edgeVs(), p.couplings(), 0.0);
             }
             SteadyMultiSpin kernel = SteadyMultiSpin.of(p);
-            int n = p.size();
-            int m = rng.nextInt(4) == 0 ? 1 + rng.nextInt(70) : 1 + rng.nextInt(20);
-            long[][] ref = new long[m][n];
-            long[] bits = new long[n * m];
-            long[][] refState = new long[m][];
-            MultiSpinCoding.Lanes lanes = new MultiSpinCoding.Lanes(m);
-            for (int i = 0; i < m; i++) {
-                for (int k = 0; k < n; k++) {
-                    ref[i][k] = rng.nextLong();
-                    bits[k * m + i] = ref[i][k];
-                }
-                long a = rng.nextLong();
-                long b = rng.nextLong();
-                refState[i] = new long[] {a, b};
-                lanes.setState(i, a, b);
-            }
-            long[] thresholds = new long[MultiSpinCoding.thresholdLength()];
-            int sweeps = 1 + rng.nextInt(5);
-            for (int t = 0; t < sweeps; t++) {
-                double beta = rng.nextInt(5) == 0 ? 0.0 : rng.nextInt(4) == 0 ? 20 * rng.nextDouble() : rng.nextDouble() * 3;
-                kernel.thresholds(beta, thresholds);
-                for (int i = 0; i < m; i++) {
-                    kernel.sweep(ref[i], thresholds, refState[i]);
-                }
-                kernel.sweepLanes(bits, thresholds, lanes);
-                for (int i = 0; i < m; i++) {
-                    for (int k = 0; k < n; k++) {
-                        assertThat(bits[k * m + i]).as("lane %d of %d, spin %d, sweep %d", i, m, k, t).isEqualTo(ref[i][k]);
-                    }
-                }
-            }
-            for (int i = 0; i < m; i++) {
-                assertThat(lanes.state(i)).as("lane %d state", i).containsExactly(refState[i]);
-            }
+            LaneCheck.lanesEqualBlocksAlone(LaneCheck.of(kernel), p.size(), rng);
         });
     }
 
