@@ -21,7 +21,7 @@ import org.obverse.model.IsingProblem;
  *
  * <p>Immutable after {@link #of}; the sweep kernel allocates nothing.
  */
-public final class MultiSpinCoding {
+public final class MultiSpinCoding implements WordSweeps {
     /** Largest number of terms (neighbours plus field) of one spin. */
     public static final int MAX_TERMS = 15;
     static final int LEVELS = 8;
@@ -145,6 +145,7 @@ public final class MultiSpinCoding {
     }
 
     /** Number of spins. */
+    @Override
     public int size() {
         return n;
     }
@@ -163,6 +164,7 @@ public final class MultiSpinCoding {
      * The acceptance thresholds at inverse temperature beta. Output: {@code out[d·8 + m]} for
      * m &lt; d/2 holds ⌊exp(−β·2c(d − 2m))·2⁶³⌋·2 as an unsigned 64-bit fraction.
      */
+    @Override
     public void thresholds(double beta, long[] out) {
         for (int d = 1; d <= MAX_TERMS; d++) {
             for (int m = 0; 2 * m < d && m < LEVELS; m++) {
@@ -185,6 +187,7 @@ public final class MultiSpinCoding {
      * multiSpinFourWordsBareState, multiSpinLanesOne, multiSpinLanesFour}, spec/sampling.md): each
      * leaves every block with the same bits and the same generator state.
      */
+    @Override
     public void sweep(long[] bits, long[] thresholds, long[] state) {
         for (int k = 0; k < n; k++) {
             int uphillLevels = (terms[k] + 1) >>> 1;
@@ -425,6 +428,7 @@ public final class MultiSpinCoding {
      * undecided after the fixed rounds, and spins with more than six terms, take the one-lane
      * paths.
      */
+    @Override
     public void sweepLanes(long[] bits, long[] thresholds, Lanes lanes) {
         int m = lanes.count;
         long[] s0 = lanes.s0;

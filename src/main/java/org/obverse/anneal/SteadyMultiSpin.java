@@ -30,7 +30,7 @@ import org.obverse.model.IsingProblem;
  *
  * <p>Immutable; {@link #sweepLanes} allocates nothing ({@link #sweep} two one-element arrays a call).
  */
-public final class SteadyMultiSpin {
+public final class SteadyMultiSpin implements WordSweeps {
     /** Random words every block draws at every spin visit before the until-decided tail. */
     public static final int FIXED_WORDS = 12;
 
@@ -50,11 +50,13 @@ public final class SteadyMultiSpin {
     }
 
     /** Number of spins. */
+    @Override
     public int size() {
         return coding.n;
     }
 
     /** The thresholds at inverse temperature beta: {@link MultiSpinCoding#thresholds}. */
+    @Override
     public void thresholds(double beta, long[] out) {
         coding.thresholds(beta, out);
     }
@@ -64,6 +66,7 @@ public final class SteadyMultiSpin {
      * {@code bits[k]} holds spin k of the 64 reads and is updated in place; the generator's
      * state ({@link XoroshiroState}) in {@code state}, advanced in place.
      */
+    @Override
     public void sweep(long[] bits, long[] thresholds, long[] state) {
         long[] s0 = {state[0]};
         long[] s1 = {state[1]};
@@ -157,6 +160,7 @@ public final class SteadyMultiSpin {
      * and a one-lane finish for the blocks still undecided; a spin with more neighbours takes
      * the one-lane step of {@link #sweep} lane by lane.
      */
+    @Override
     public void sweepLanes(long[] bits, long[] thresholds, MultiSpinCoding.Lanes lanes) {
         MultiSpinCoding c = coding;
         int m = lanes.count;

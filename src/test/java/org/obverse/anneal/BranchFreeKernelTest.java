@@ -42,28 +42,15 @@ class BranchFreeKernelTest extends QuietTest {
     @Test
     void branchFreeIntegerKernelTakesTheExactDecisions() {
         Seeds.forEachCase(12, 9700, (rng, seed) -> {
-            IsingProblem p = SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3),
-                    SpinGlasses.Couplings.PLUS_MINUS_ONE, rng);
-            int n = p.size();
-            int[] start = p.adjacencyStarts();
-            int[] neighbour = p.adjacencyVariables();
-            int[] edge = p.adjacencyEdges();
-            int[] perEdge = new int[p.edgeCount()];
-            for (int e = 0; e < perEdge.length; e++) {
-                perEdge[e] = rng.nextInt(7) - 3;
-            }
-            int[] intCoupling = new int[edge.length];
-            double[] coupling = new double[edge.length];
-            for (int q = 0; q < edge.length; q++) {
-                intCoupling[q] = perEdge[edge[q]];
-                coupling[q] = intCoupling[q];
-            }
-            int[] intFields = new int[n];
-            double[] fields = new double[n];
-            for (int k = 0; k < n; k++) {
-                intFields[k] = rng.nextInt(3) == 0 ? rng.nextInt(5) - 2 : 0;
-                fields[k] = intFields[k];
-            }
+            IntegerGlass glass = IntegerGlass.random(rng, 3, 2);
+            IsingProblem p = glass.grid;
+            int n = glass.n;
+            int[] start = glass.start;
+            int[] neighbour = glass.neighbour;
+            int[] intCoupling = glass.intCoupling;
+            double[] coupling = glass.coupling;
+            int[] intFields = glass.intFields;
+            double[] fields = glass.fields;
             int bound = MetropolisKernels.integerFieldBound(n, start, coupling, fields, 1 << 12);
             int degree = MetropolisKernels.maxDegree(n, start);
             int[] padNeighbour = MetropolisKernels.padded(n, start, neighbour, degree, true);
@@ -111,7 +98,7 @@ class BranchFreeKernelTest extends QuietTest {
                     ? SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3), SpinGlasses.Couplings.PLUS_MINUS_ONE, rng)
                     : MultiSpinFourWordTest.randomPlusMinus(rng);
             MultiSpinCoding coding = MultiSpinCoding.of(p);
-            LaneCheck.lanesEqualBlocksAlone(LaneCheck.of(coding), p.size(), rng);
+            LaneCheck.lanesEqualBlocksAlone(coding, rng);
         });
     }
 }

@@ -17,28 +17,16 @@ class IntegerKernelTest extends QuietTest {
         // With the same random numbers the integer kernel must take every decision the same
         // way, so spins agree after each sweep and both generators end in the same state.
         Seeds.forEachCase(12, 9400, (rng, seed) -> {
-            IsingProblem p = SpinGlasses.cellGrid(2, 3, SpinGlasses.Couplings.PLUS_MINUS_ONE, rng);
-            int n = p.size();
             // Border cells have fewer neighbours, so the padded layout really pads.
-            int[] start = p.adjacencyStarts();
-            int[] neighbour = p.adjacencyVariables();
-            int[] edge = p.adjacencyEdges();
-            int[] perEdge = new int[p.edgeCount()];
-            for (int e = 0; e < perEdge.length; e++) {
-                perEdge[e] = rng.nextInt(7) - 3;
-            }
-            int[] intCoupling = new int[edge.length];
-            double[] coupling = new double[edge.length];
-            for (int q = 0; q < edge.length; q++) {
-                intCoupling[q] = perEdge[edge[q]];
-                coupling[q] = intCoupling[q];
-            }
-            int[] intFields = new int[n];
-            double[] fields = new double[n];
-            for (int k = 0; k < n; k++) {
-                intFields[k] = rng.nextInt(3) == 0 ? rng.nextInt(5) - 2 : 0;
-                fields[k] = intFields[k];
-            }
+            IntegerGlass glass = IntegerGlass.on(SpinGlasses.cellGrid(2, 3, SpinGlasses.Couplings.PLUS_MINUS_ONE, rng), rng, 3, 2);
+            IsingProblem p = glass.grid;
+            int n = glass.n;
+            int[] start = glass.start;
+            int[] neighbour = glass.neighbour;
+            int[] intCoupling = glass.intCoupling;
+            double[] coupling = glass.coupling;
+            int[] intFields = glass.intFields;
+            double[] fields = glass.fields;
             int bound = MetropolisKernels.integerFieldBound(n, start, coupling, fields, 1 << 12);
             assertThat(bound).isPositive();
             byte[] a = ExponentialBracketTest.randomSpins(n, rng);

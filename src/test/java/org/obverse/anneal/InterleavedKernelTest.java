@@ -24,30 +24,19 @@ class InterleavedKernelTest extends QuietTest {
     @Test
     void fourReadKernelEqualsEachReadSweptAlone() {
         Seeds.forEachCase(16, 10100, (rng, seed) -> {
-            IsingProblem p = SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3),
+            IsingProblem grid = SpinGlasses.cellGrid(1 + rng.nextInt(3), 1 + rng.nextInt(3),
                     SpinGlasses.Couplings.PLUS_MINUS_ONE, rng);
-            int n = p.size();
-            int[] start = p.adjacencyStarts();
-            int[] neighbour = p.adjacencyVariables();
-            int[] edge = p.adjacencyEdges();
             // Couplings up to ±40 in some cases: fields beyond a byte, negative lanes.
             int scale = rng.nextBoolean() ? 3 : 40;
-            int[] perEdge = new int[p.edgeCount()];
-            for (int e = 0; e < perEdge.length; e++) {
-                perEdge[e] = rng.nextInt(2 * scale + 1) - scale;
-            }
-            int[] intCoupling = new int[edge.length];
-            double[] coupling = new double[edge.length];
-            for (int q = 0; q < edge.length; q++) {
-                intCoupling[q] = perEdge[edge[q]];
-                coupling[q] = intCoupling[q];
-            }
-            int[] intFields = new int[n];
-            double[] fields = new double[n];
-            for (int k = 0; k < n; k++) {
-                intFields[k] = rng.nextInt(3) == 0 ? rng.nextInt(2 * scale + 1) - scale : 0;
-                fields[k] = intFields[k];
-            }
+            IntegerGlass glass = IntegerGlass.on(grid, rng, scale, scale);
+            IsingProblem p = glass.grid;
+            int n = glass.n;
+            int[] start = glass.start;
+            int[] neighbour = glass.neighbour;
+            int[] intCoupling = glass.intCoupling;
+            double[] coupling = glass.coupling;
+            int[] intFields = glass.intFields;
+            double[] fields = glass.fields;
             int bound = MetropolisKernels.integerFieldBound(n, start, coupling, fields, 1 << 12);
             assertThat(bound).isBetween(0, MetropolisKernels.FOUR_FIELD_LIMIT);
             int degree = MetropolisKernels.maxDegree(n, start);

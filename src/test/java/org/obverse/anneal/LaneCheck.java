@@ -10,52 +10,12 @@ import org.apache.commons.rng.UniformRandomProvider;
  * sweeps at β from 0 (every uphill move taken) to 20 (nearly none).
  */
 final class LaneCheck {
-    /** The three methods the two multi-spin kernels share. */
-    interface LaneKernel {
-        void thresholds(double beta, long[] out);
-
-        void sweep(long[] bits, long[] thresholds, long[] state);
-
-        void sweepLanes(long[] bits, long[] thresholds, MultiSpinCoding.Lanes lanes);
-    }
-
     private LaneCheck() {
     }
 
-    static LaneKernel of(MultiSpinCoding c) {
-        return new LaneKernel() {
-            public void thresholds(double beta, long[] out) {
-                c.thresholds(beta, out);
-            }
-
-            public void sweep(long[] bits, long[] thresholds, long[] state) {
-                c.sweep(bits, thresholds, state);
-            }
-
-            public void sweepLanes(long[] bits, long[] thresholds, MultiSpinCoding.Lanes lanes) {
-                c.sweepLanes(bits, thresholds, lanes);
-            }
-        };
-    }
-
-    static LaneKernel of(SteadyMultiSpin c) {
-        return new LaneKernel() {
-            public void thresholds(double beta, long[] out) {
-                c.thresholds(beta, out);
-            }
-
-            public void sweep(long[] bits, long[] thresholds, long[] state) {
-                c.sweep(bits, thresholds, state);
-            }
-
-            public void sweepLanes(long[] bits, long[] thresholds, MultiSpinCoding.Lanes lanes) {
-                c.sweepLanes(bits, thresholds, lanes);
-            }
-        };
-    }
-
     /** Random words and states for 1–70 lanes of an n-spin problem; asserts lanes == blocks alone. */
-    static void lanesEqualBlocksAlone(LaneKernel kernel, int n, UniformRandomProvider rng) {
+    static void lanesEqualBlocksAlone(WordSweeps kernel, UniformRandomProvider rng) {
+        int n = kernel.size();
         int m = rng.nextInt(4) == 0 ? 1 + rng.nextInt(70) : 1 + rng.nextInt(20);
         long[][] ref = new long[m][n];
         long[] bits = new long[n * m];

@@ -42,7 +42,7 @@ class SteadyMultiSpinTest extends QuietTest {
                 p = IsingProblem.of(p.variables(), h, p.edgeUs(), p.edgeVs(), p.couplings(), 0.0);
             }
             SteadyMultiSpin kernel = SteadyMultiSpin.of(p);
-            LaneCheck.lanesEqualBlocksAlone(LaneCheck.of(kernel), p.size(), rng);
+            LaneCheck.lanesEqualBlocksAlone(kernel, rng);
         });
     }
 
