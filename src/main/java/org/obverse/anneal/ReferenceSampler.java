@@ -417,13 +417,7 @@ public final class ReferenceSampler {
             int n = coding.size();
             int m = lanes;
             long[] bits = ws.laneBits;
-            for (int i = 0; i < m; i++) {
-                long[] state = RandomStreams.state(seed, StreamPurpose.WORDS, first + i);
-                for (int k = 0; k < n; k++) {
-                    bits[k * m + i] = XoroshiroState.next(state);
-                }
-                ws.lanes.setState(i, state[0], state[1]);
-            }
+            seedLanes(seed, first, m, n, bits, ws.lanes);
             for (double beta : betas) {
                 coding.thresholds(beta, ws.thresholds);
                 coding.sweepLanes(bits, ws.thresholds, ws.lanes);
@@ -433,20 +427,8 @@ public final class ReferenceSampler {
             }
         }
 
-        /** Block b's words from {@code bits} (spin k at k·stride + lane) into the output, and its energies. */
         private void finishBlock(int b, long[] bits, int stride, int lane, byte[] row) {
-            int n = coding.size();
-            long mask = block.validMask(b);
-            long[] words = block.words();
-            for (int k = 0; k < n; k++) {
-                words[b * n + k] = bits[k * stride + lane] & mask;
-            }
-            int first = b << 6;
-            int last = Math.min(block.reads(), first + 64);
-            for (int r = first; r < last; r++) {
-                block.unpackRows(r, 1, row);
-                energies[r] = nominal.energy(row);
-            }
+            ReferenceSampler.finishBlock(block, nominal, energies, coding.size(), b, bits, stride, lane, row);
         }
     }
 
@@ -511,31 +493,45 @@ public final class ReferenceSampler {
             // A last short unit gets working arrays of its own size.
             long[] bits = m == lanes ? ws.bits : new long[n * m];
             MultiSpinCoding.Lanes state = m == lanes ? ws.lanes : new MultiSpinCoding.Lanes(m);
-            for (int i = 0; i < m; i++) {
-                long[] s = RandomStreams.state(seed, StreamPurpose.WORDS, first + i);
-                for (int k = 0; k < n; k++) {
-                    bits[k * m + i] = XoroshiroState.next(s);
-                }
-                state.setState(i, s[0], s[1]);
-            }
+            seedLanes(seed, first, m, n, bits, state);
             for (double beta : betas) {
                 kernel.thresholds(beta, ws.thresholds);
                 kernel.sweepLanes(bits, ws.thresholds, state);
             }
-            long[] words = block.words();
             for (int i = 0; i < m; i++) {
-                int b = first + i;
-                long mask = block.validMask(b);
-                for (int k = 0; k < n; k++) {
-                    words[b * n + k] = bits[k * m + i] & mask;
-                }
-                int firstRead = b << 6;
-                int last = Math.min(block.reads(), firstRead + 64);
-                for (int r = firstRead; r < last; r++) {
-                    block.unpackRows(r, 1, ws.row);
-                    energies[r] = nominal.energy(ws.row);
-                }
+                finishBlock(block, nominal, energies, n, first + i, bits, m, i, ws.row);
             }
+        }
+    }
+
+    /**
+     * The 64-read blocks first … first+m−1 seeded as lanes, each from its own stream
+     * {@code generator(seed, WORDS, block)}: its random start words into {@code bits} (spin k
+     * of lane i at k·m + i), then its generator state into {@code lanes}.
+     */
+    private static void seedLanes(long seed, int first, int m, int n, long[] bits, MultiSpinCoding.Lanes lanes) {
+        for (int i = 0; i < m; i++) {
+            long[] s = RandomStreams.state(seed, StreamPurpose.WORDS, first + i);
+            for (int k = 0; k < n; k++) {
+                bits[k * m + i] = XoroshiroState.next(s);
+            }
+            lanes.setState(i, s[0], s[1]);
+        }
+    }
+
+    /** Block b's words from {@code bits} (spin k at k·stride + lane) into the output, and its nominal energies. */
+    private static void finishBlock(SampleBlock block, IsingProblem nominal, double[] energies, int n, int b,
+                                    long[] bits, int stride, int lane, byte[] row) {
+        long mask = block.validMask(b);
+        long[] words = block.words();
+        for (int k = 0; k < n; k++) {
+            words[b * n + k] = bits[k * stride + lane] & mask;
+        }
+        int first = b << 6;
+        int last = Math.min(block.reads(), first + 64);
+        for (int r = first; r < last; r++) {
+            block.unpackRows(r, 1, row);
+            energies[r] = nominal.energy(row);
         }
     }
 }
